@@ -1,0 +1,51 @@
+import { Command, CommanderError } from 'commander';
+import { isRingfallError } from '../core/errors';
+import { registerPredict } from './commands/predict';
+import { registerFit } from './commands/fit';
+import { registerBatch } from './commands/batch';
+import { registerPlan } from './commands/plan';
+import { registerDemo } from './commands/demo';
+import { exitCodeFor } from './exit-codes';
+
+/**
+ * Run the ringfall CLI with `argv` (as process.argv). Returns the exit status
+ * (CONTRACT.md): 0 done and every check passed; 1 a check failed; 2 usage or input error.
+ */
+export async function main(argv: readonly string[]): Promise<number> {
+  const debug = argv.includes('--debug');
+  const program = new Command('ringfall')
+    .description('Reconcile gaussmeter survey readings with coil physics.')
+    .option('--debug', 'print stack traces on errors')
+    .exitOverride()
+    .configureOutput({ writeErr: (text) => process.stderr.write(text) });
+  const status = { code: 0 };
+  const context = { setExitCode: (code: number) => { status.code = Math.max(status.code, code); } };
+  registerPredict(program, context);
+  registerFit(program, context);
+  registerBatch(program, context);
+  registerPlan(program, context);
+  registerDemo(program, context);
+  try {
+    await program.parseAsync(argv as string[]);
+    return status.code;
+  } catch (error) {
+    if (error instanceof CommanderError) {
+      // help and version exit 0; everything else commander reports is a usage error
+      return error.exitCode === 0 ? 0 : 2;
+    }
+    if (isRingfallError(error)) {
+      process.stderr.write(`ringfall: ${error.message}\n`);
+      if (debug) process.stderr.write(`${error.stack ?? ''}\n`);
+      return exitCodeFor(error);
+    }
+    process.stderr.write(`ringfall: internal error: ${(error as Error)?.message ?? String(error)}\n`);
+    if (debug) process.stderr.write(`${(error as Error)?.stack ?? ''}\n`);
+    else process.stderr.write('Run again with --debug for details, and report it with the input file.\n');
+    return 3;
+  }
+}
+
+/** What a command may do besides printing: raise the process exit status. */
+export interface CommandContext {
+  setExitCode(code: number): void;
+}

@@ -1,0 +1,30 @@
+/**
+ * Project error: a problem the user can fix. Carries a stable `code`, the offending
+ * value and where it was found, so callers (CLI, web page) can map it to an exit status
+ * or show it next to the input. Message form: "what failed: what was found (where).
+ * What to do."
+ *
+ * Programmer errors use TypeError / RangeError instead.
+ */
+export class RingfallError extends Error {
+  override readonly name = 'RingfallError';
+  readonly code: string;
+  readonly value: unknown;
+  readonly where: string | null;
+
+  constructor(
+    code: string,
+    message: string,
+    details: { value?: unknown; where?: string | null; cause?: unknown } = {},
+  ) {
+    super(message, details.cause === undefined ? undefined : { cause: details.cause });
+    this.code = code;
+    this.value = details.value;
+    this.where = details.where ?? null;
+  }
+}
+
+/** True when `error` is a RingfallError, optionally with the given code. */
+export function isRingfallError(error: unknown, code?: string): error is RingfallError {
+  return error instanceof RingfallError && (code === undefined || error.code === code);
+}

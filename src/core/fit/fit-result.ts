@@ -1,0 +1,71 @@
+import type { ModelId, ParameterUnit } from '../models/field-model';
+
+/**
+ * What a fit of one model to one survey returns. Never thrown away on
+ * non-convergence: `converged: false` with the `stopReason` instead.
+ * All values SI. Fields may be added; the listed ones are relied upon by analyses,
+ * reports and the JSON contract (CONTRACT.md).
+ */
+export interface ParameterEstimate {
+  readonly name: string;
+  readonly unit: ParameterUnit;
+  readonly value: number;
+  /** Standard error, or null when fixed or not determined by the data. */
+  readonly stderr: number | null;
+  /** t-based 95 % interval with n − k degrees of freedom, or null when fixed / undetermined. */
+  readonly ci95: readonly [number, number] | null;
+  readonly fixed: boolean;
+  /** False when the data cannot determine this parameter (identifiability, DOMAIN §7.6). */
+  readonly determined: boolean;
+}
+
+export interface FitStats {
+  /** Readings used. */
+  readonly n: number;
+  /** Free (fitted) parameters. */
+  readonly k: number;
+  /** Σ (y − f)² in T², unweighted. */
+  readonly rss: number;
+  /** √(rss / n), T. */
+  readonly rmse: number;
+  /** Σ ((y − f)/σ)²; equals rss when no uncertainties are stated (σ = 1). */
+  readonly chiSquare: number;
+  /** χ²/(n − k) when uncertainties were stated, else null. */
+  readonly reducedChiSquare: number | null;
+  readonly aicc: number;
+  readonly bic: number;
+  /** Among the models fitted to the same survey; null until compared. */
+  readonly akaikeWeight: number | null;
+}
+
+export interface FitResult {
+  readonly model: ModelId;
+  readonly converged: boolean;
+  readonly stopReason: string;
+  readonly iterations: number;
+  /** By parameter name, in the model's parameter order. */
+  readonly params: Readonly<Record<string, ParameterEstimate>>;
+  /** Names of the free parameters, in covariance order. */
+  readonly freeParameters: readonly string[];
+  /** Covariance of the free parameters (SI), row-major k×k, or null when singular. */
+  readonly covariance: readonly number[] | null;
+  /** Correlation matrix of the free parameters, row-major k×k, or null. */
+  readonly correlation: readonly number[] | null;
+  /** How the covariance was scaled (DOMAIN §7.4): stated σ, or s² estimated from residuals. */
+  readonly uncertaintyScale: 'stated' | 'estimated';
+  readonly stats: FitStats;
+  /** Per reading, in survey order: prediction (T), residual y − f (T), σ used (T, null if none). */
+  readonly points: readonly {
+    readonly line: number;
+    readonly distance: number;
+    readonly radial: number;
+    readonly field: number;
+    readonly predicted: number;
+    readonly residual: number;
+    readonly standardUncertainty: number | null;
+    /** Set when a robust loss flagged this reading as an outlier. */
+    readonly outlier?: boolean;
+  }[];
+  /** Plain-language warnings (identifiability, χ² too large, bound hit, non-convergence). */
+  readonly warnings: readonly string[];
+}

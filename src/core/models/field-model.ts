@@ -1,0 +1,65 @@
+/**
+ * The contract between the fit-model catalog (core/models) and the fitting engine
+ * (core/fit). Every model in DESIGN.md's catalog implements FieldModel.
+ */
+
+/** Catalog ids; part of the CLI and JSON contract (DESIGN.md). */
+export type ModelId =
+  | 'loop'
+  | 'thick-coil'
+  | 'solenoid'
+  | 'coil-pair'
+  | 'rectangle'
+  | 'dipole'
+  | 'power-law'
+  | 'inverse-square'
+  | 'inverse-cube';
+
+/** Unit of a parameter in SI, as it appears in the JSON report. */
+export type ParameterUnit = 'A' | 'm' | 'T' | 'A·m²' | '1' | 'T·m^n';
+
+export interface ParameterSpec {
+  /** Name used in --fix, spec files and JSON (camelCase: ampereTurns, radius, probeOffset). */
+  readonly name: string;
+  readonly unit: ParameterUnit;
+  /** Hard bounds the fit respects (SI). Use ±Infinity for none. */
+  readonly lower: number;
+  readonly upper: number;
+  /** One line for people: "ampere-turns N·I". */
+  readonly description: string;
+}
+
+/**
+ * Survey points in struct-of-arrays form (SI), ready for tight loops.
+ * `kind` says what the reading is: 'magnitude' → the model predicts |B| (+ background);
+ * 'axial' → the model predicts the signed axial component B_z (+ background).
+ */
+export interface SurveyPoints {
+  readonly n: number;
+  readonly distance: Float64Array;
+  readonly radial: Float64Array;
+  readonly field: Float64Array;
+  readonly kind: 'magnitude' | 'axial';
+}
+
+export interface FieldModel {
+  readonly id: ModelId;
+  /** Short name for people: "circular loop (elliptic integrals)". */
+  readonly label: string;
+  /** True for physical coil models, false for descriptive power laws. */
+  readonly physical: boolean;
+  readonly parameters: readonly ParameterSpec[];
+  /**
+   * Predicted reading at every point for parameter vector `params` (order of
+   * `parameters`, SI), written into `out` (length n). Must not allocate per point.
+   */
+  evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void;
+  /**
+   * Analytic Jacobian ∂prediction_i/∂params_j written row-major into `out`
+   * (length n·k, out[i*k + j]). Omit when no analytic form is practical; the engine
+   * then uses central differences.
+   */
+  jacobian?(params: Float64Array, points: SurveyPoints, out: Float64Array): void;
+  /** Data-driven starting values (SI, order of `parameters`), DOMAIN §1.1 heuristics. */
+  initialGuess(points: SurveyPoints): Float64Array;
+}

@@ -1,0 +1,71 @@
+/**
+ * The units ringfall reads and writes, with exact SI factors.
+ *
+ * Factors: SI Brochure, 9th ed. (BIPM 2019) for SI prefixes; NIST SP 811 (2008),
+ * Appendix B.8/B.9 for the non-SI units: 1 G = 1e-4 T exactly, 1 in = 0.0254 m exactly.
+ */
+export type QuantityKind = 'field' | 'length' | 'current' | 'moment';
+
+export interface UnitDefinition {
+  /** Canonical symbol as written in output (ASCII where the trade uses it: uT, not µT). */
+  readonly symbol: string;
+  readonly kind: QuantityKind;
+  /** Multiply a value in this unit by `factor` to get SI (T, m, A, A·m²). */
+  readonly factor: number;
+}
+
+const definitions: readonly UnitDefinition[] = [
+  { symbol: 'T', kind: 'field', factor: 1 },
+  { symbol: 'mT', kind: 'field', factor: 1e-3 },
+  { symbol: 'uT', kind: 'field', factor: 1e-6 },
+  { symbol: 'nT', kind: 'field', factor: 1e-9 },
+  { symbol: 'kG', kind: 'field', factor: 1e-1 },
+  { symbol: 'G', kind: 'field', factor: 1e-4 },
+  { symbol: 'mG', kind: 'field', factor: 1e-7 },
+  { symbol: 'm', kind: 'length', factor: 1 },
+  { symbol: 'cm', kind: 'length', factor: 1e-2 },
+  { symbol: 'mm', kind: 'length', factor: 1e-3 },
+  { symbol: 'um', kind: 'length', factor: 1e-6 },
+  { symbol: 'in', kind: 'length', factor: 0.0254 },
+  { symbol: 'A', kind: 'current', factor: 1 },
+  { symbol: 'mA', kind: 'current', factor: 1e-3 },
+  { symbol: 'kA', kind: 'current', factor: 1e3 },
+  { symbol: 'A·m²', kind: 'moment', factor: 1 },
+];
+
+/** Spellings people write, mapped to the canonical symbol. Matched case-sensitively first. */
+const aliases: Readonly<Record<string, string>> = {
+  'µT': 'uT', 'μT': 'uT', 'microtesla': 'uT',
+  'tesla': 'T', 'millitesla': 'mT', 'nanotesla': 'nT',
+  'Gs': 'G', 'gauss': 'G', 'Gauss': 'G', 'kGs': 'kG', 'kilogauss': 'kG', 'mGs': 'mG', 'milligauss': 'mG',
+  'µm': 'um', 'μm': 'um',
+  'inch': 'in', 'inches': 'in', '"': 'in',
+  'A m2': 'A·m²', 'A*m^2': 'A·m²', 'Am2': 'A·m²', 'A m^2': 'A·m²', 'A.m2': 'A·m²', 'A·m2': 'A·m²', 'A m²': 'A·m²',
+  'At': 'A', 'A-t': 'A', 'AT': 'A', 'ampere-turns': 'A', 'amperes': 'A', 'ampere': 'A',
+};
+
+const bySymbol = new Map<string, UnitDefinition>(definitions.map((d) => [d.symbol, d]));
+
+/**
+ * Look a unit spelling up. Case-sensitive first (mT vs MT matter in principle), then a
+ * case-insensitive pass for the unambiguous spellings (MM, Mm, CM, IN, UT, NT, GAUSS).
+ * Returns undefined for an unknown unit.
+ */
+export function lookupUnit(spelling: string): UnitDefinition | undefined {
+  const text = spelling.trim();
+  const direct = bySymbol.get(text) ?? bySymbol.get(aliases[text] ?? '');
+  if (direct) return direct;
+  const lower = text.toLowerCase();
+  // 'mg' could be milligram; in a field column it can only mean milligauss.
+  const caseless: Record<string, string> = {
+    t: 'T', mt: 'mT', ut: 'uT', 'µt': 'uT', 'μt': 'uT', nt: 'nT', g: 'G', gs: 'G', kg: 'kG', mg: 'mG',
+    gauss: 'G', tesla: 'T', m: 'm', cm: 'cm', mm: 'mm', in: 'in', inch: 'in', inches: 'in', a: 'A',
+  };
+  const symbol = caseless[lower];
+  return symbol === undefined ? undefined : bySymbol.get(symbol);
+}
+
+/** All canonical symbols of one kind, for messages ("use one of: T, mT, …"). */
+export function unitsOfKind(kind: QuantityKind): string[] {
+  return definitions.filter((d) => d.kind === kind).map((d) => d.symbol);
+}
