@@ -1,0 +1,167 @@
+import type { FitResult, ParameterEstimate } from '../fit/fit-result';
+import type { ParameterUnit } from '../models/field-model';
+import { displayUnit, formatNumber, formatQuantity, type QuantityKind } from '../units';
+import type { Report, SurveyReport, ThresholdResult, Verdict } from './report';
+
+/** How many set-aside rows the text report lists before pointing to --json. */
+const rejectedListed = 20;
+
+/**
+ * Render a Report as plain text for an 80-column terminal: per survey its provenance,
+ * the best model's parameters with 95 % intervals in sensible units, the model
+ * comparison, verdict, threshold distances, warnings and cautions.
+ */
+export function renderTextReport(report: Report): string {
+  return report.surveys.map(renderSurvey).join('\n' + '═'.repeat(78) + '\n\n');
+}
+
+function renderSurvey(survey: SurveyReport): string {
+  const lines: string[] = [];
+  lines.push(`Survey ${survey.source}`);
+  const facts = [
+    `coil ${survey.coil ?? '(not stated)'}`,
+    `date ${survey.date ?? '(not stated)'}`,
+    `${survey.readingType ?? 'detector type not stated'}`,
+    `${survey.readings.used} of ${survey.readings.total} rows used`,
+  ];
+  lines.push('  ' + facts.join(' · '));
+  for (const note of survey.notes) lines.push(`  note: ${note}`);
+  const rejected = survey.readings.rejected;
+  if (rejected.length > 0) {
+    lines.push(`  rows set aside (${rejected.length}):`);
+    for (const row of rejected.slice(0, rejectedListed)) lines.push(`    line ${row.line}: ${row.reason}`);
+    if (rejected.length > rejectedListed) {
+      lines.push(`    … ${rejected.length - rejectedListed} more; --json lists every one.`);
+    }
+  }
+  lines.push('');
+
+  const best = survey.fits.find((fit) => fit.model === survey.best) ?? null;
+  if (best) {
+    const weight = best.stats.akaikeWeight;
+    lines.push(`Coil as measured — ${best.model}` + (weight === null ? '' : ` (Akaike weight ${formatNumber(weight, 3)})`));
+    lines.push(...parameterTable(best));
+    if (best.uncertaintyScale === 'estimated') {
+      lines.push('  Intervals use the scatter of the readings (no instrument uncertainty given).');
+    }
+    lines.push('');
+  } else {
+    lines.push('No model converged; see the warnings below.', '');
+  }
+
+  if (survey.fits.length > 0) {
+    lines.push('Models side by side (same readings; lower AICc is better)');
+    lines.push(...comparisonTable(survey.fits, survey.best));
+    for (const sentence of survey.comparison) lines.push(...wrap(sentence, 2));
+    lines.push('');
+  }
+
+  if (survey.verdict) lines.push(...verdictLines(survey.verdict), '');
+  if (survey.thresholds.length > 0) lines.push(...thresholdLines(survey.thresholds), '');
+
+  const warnings = [...survey.warnings, ...survey.fits.flatMap((f) => f.warnings.map((w) => `${f.model}: ${w}`))];
+  if (warnings.length > 0) {
+    lines.push('Warnings');
+    for (const warning of warnings) lines.push(...wrap(`- ${warning}`, 2, 4));
+    lines.push('');
+  }
+  if (survey.cautions.length > 0) {
+    lines.push('Cautions');
+    for (const caution of survey.cautions) lines.push(...wrap(`- ${caution}`, 2, 4));
+    lines.push('');
+  }
+  return lines.join('\n');
+}
+
+function kindOf(unit: ParameterUnit): QuantityKind | null {
+  switch (unit) {
+    case 'A': return 'current';
+    case 'm': return 'length';
+    case 'T': return 'field';
+    case 'A·m²': return 'moment';
+    default: return null;
+  }
+}
+
+/** Value and interval formatted in one display unit chosen from the value. */
+export function formatEstimate(estimate: ParameterEstimate): { value: string; interval: string } {
+  const kind = kindOf(estimate.unit);
+  const reference = Math.max(Math.abs(estimate.value), Math.abs(estimate.ci95?.[0] ?? 0), Math.abs(estimate.ci95?.[1] ?? 0));
+  const unit = kind ? displayUnit(reference === 0 ? estimate.value : reference, kind) : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
+  const show = (x: number) => `${formatNumber(x / unit.factor, 4)}${unit.symbol ? ' ' + unit.symbol : ''}`;
+  let interval: string;
+  if (estimate.fixed) interval = 'fixed';
+  else if (!estimate.determined) interval = 'not determined by these readings';
+  else if (estimate.ci95) interval = `${formatNumber(estimate.ci95[0] / unit.factor, 4)} to ${show(estimate.ci95[1])}`;
+  else interval = 'no interval';
+  return { value: show(estimate.value), interval };
+}
+
+function parameterTable(fit: FitResult): string[] {
+  const rows = Object.values(fit.params).map((estimate) => {
+    const { value, interval } = formatEstimate(estimate);
+    return [estimate.name, value, interval];
+  });
+  return table(['parameter', 'value', '95% interval'], rows);
+}
+
+function comparisonTable(fits: readonly FitResult[], best: string | null): string[] {
+  const finiteAicc = fits.filter((f) => f.converged && Number.isFinite(f.stats.aicc)).map((f) => f.stats.aicc);
+  const minimum = finiteAicc.length > 0 ? Math.min(...finiteAicc) : NaN;
+  const rows = fits.map((fit) => [
+    (fit.model === best ? '* ' : '  ') + fit.model,
+    String(fit.stats.k),
+    formatQuantity(fit.stats.rmse, 'field', { significant: 3 }),
+    fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3),
+    fit.converged && Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'did not converge',
+    fit.stats.akaikeWeight === null ? '—' : formatNumber(fit.stats.akaikeWeight, 3),
+  ]);
+  return table(['model', 'k', 'RMS residual', 'red. χ²', 'ΔAICc', 'weight'], rows);
+}
+
+function verdictLines(verdict: Verdict): string[] {
+  const lines = [`Spec check: ${verdict.status.toUpperCase()}` + (verdict.findings.length ? ` — ${verdict.findings.join(', ')}` : '')];
+  for (const check of verdict.checks) lines.push(...wrap(`[${check.status}] ${check.what}: ${check.evidence}`, 2, 4));
+  for (const sentence of verdict.explanations) lines.push(...wrap(sentence, 2));
+  return lines;
+}
+
+function thresholdLines(thresholds: readonly ThresholdResult[]): string[] {
+  const rows = thresholds.map((t) => {
+    const level = formatQuantity(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` (${t.level.label})` : '');
+    const distance = t.distance ? formatQuantity(t.distance.value, 'length', { significant: 3, unit: { symbol: 'mm', factor: 1e-3 } }) : '—';
+    const interval = t.distance?.ci95 ? `${formatNumber(t.distance.ci95[0] * 1e3, 3)} to ${formatNumber(t.distance.ci95[1] * 1e3, 3)} mm` : '—';
+    const naive = t.naive?.distance ? `${formatNumber(t.naive.distance.value * 1e3, 3)} mm (${t.naive.model})` : '—';
+    return [level, `${distance}${t.extrapolated ? ' (extrapolated)' : ''}`, interval, naive];
+  });
+  const lines = ['Where the field falls below a level (on axis, from the distance datum)'];
+  lines.push(...table(['level', 'distance', '95% interval', 'naive power law'], rows));
+  for (const t of thresholds) for (const note of t.notes) lines.push(...wrap(`- ${note}`, 2, 4));
+  return lines;
+}
+
+/** A left-aligned text table with two-space indent and a rule under the header. */
+export function table(header: readonly string[], rows: readonly (readonly string[])[]): string[] {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const line = (cells: readonly string[]) => '  ' + cells.map((c, i) => c.padEnd(widths[i] ?? 0)).join('  ').trimEnd();
+  return [line(header), '  ' + widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(line)];
+}
+
+/** Word-wrap to 78 columns with a first-line indent and a hanging indent. */
+export function wrap(text: string, indent: number, hanging = indent, width = 78): string[] {
+  const words = text.split(/\s+/).filter((w) => w !== '');
+  const lines: string[] = [];
+  let current = ' '.repeat(indent);
+  let empty = true;
+  for (const word of words) {
+    if (!empty && current.length + 1 + word.length > width) {
+      lines.push(current);
+      current = ' '.repeat(hanging) + word;
+    } else {
+      current += (empty ? '' : ' ') + word;
+    }
+    empty = false;
+  }
+  if (!empty) lines.push(current);
+  return lines;
+}
