@@ -1,0 +1,115 @@
+import { RingfallError } from '../../errors';
+import type { ReadingType } from '../../survey/survey';
+import { parseQuantity } from '../../units';
+import { icnirp2010ReferenceLevel, type ExposureGroup } from './icnirp-reference-level';
+
+/** A field level to find the distance for, with where it comes from. */
+export interface ThresholdLevel {
+  /** T. */
+  readonly value: number;
+  /** For people: "implant screening line, static (ICNIRP 2009)"; null for a plain quantity. */
+  readonly label: string | null;
+  /** Detector type the level is defined for: 'dc' static limits, 'rms' ICNIRP 2010; null when not stated. */
+  readonly readingType: ReadingType | null;
+  /** Source flag (DOMAIN.md §0) for a preset; null for a plain quantity. */
+  readonly flag: string | null;
+  readonly notes: readonly string[];
+}
+
+/** Fixed presets a user can name instead of a quantity (ids are our own, part of the CLI). */
+export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = {
+  'implant-static': {
+    value: 5e-4,
+    label: 'implant screening line, static (ICNIRP 2009)',
+    readingType: 'dc',
+    flag: '[V] ICNIRP 2009, Health Physics 96:504–514: implant wearers generally unaffected below 0.5 mT (DOMAIN.md §4.1, §4.3)',
+    notes: ['IEC 60601-2-33 ed. 4 uses 0.9 mT (preset "mr-implant") for inadvertent magnet-mode activation near MR equipment.'],
+  },
+  'mr-implant': {
+    value: 9e-4,
+    label: 'MR equipment implant line (IEC 60601-2-33 ed. 4)',
+    readingType: 'dc',
+    flag: '[V] IEC 60601-2-33 ed. 4.0 raised the MR magnet-mode line to 0.9 mT (DOMAIN.md §4.3)',
+    notes: ['The general screening line for implant wearers is 0.5 mT (preset "implant-static").'],
+  },
+  'pacemaker-ac': {
+    value: 1e-4,
+    label: 'pacemaker guidance, power frequency (ORNL)',
+    readingType: 'rms',
+    flag: '[V] ORNL guidance quoted in DOMAIN.md §4.3: 0.1 mT at 60 Hz',
+    notes: ['Measured in-vivo interference thresholds at 50 Hz span a wide range; follow the device maker\'s guidance.'],
+  },
+  'static-public': {
+    value: 0.4,
+    label: 'ICNIRP 2009 static limit, general public',
+    readingType: 'dc',
+    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    notes: [],
+  },
+  'static-occupational': {
+    value: 2,
+    label: 'ICNIRP 2009 static limit, occupational head and trunk',
+    readingType: 'dc',
+    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    notes: [],
+  },
+  'static-limbs': {
+    value: 8,
+    label: 'ICNIRP 2009 static limit, occupational limbs',
+    readingType: 'dc',
+    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    notes: [],
+  },
+};
+
+const frequencyPattern = /^\s*((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(Hz|kHz|MHz)\s*$/i;
+const frequencyFactor: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6 };
+
+/**
+ * Read a threshold as written on the command line or in the web page: a field quantity
+ * ("0.5mT", "5 G"), a preset name (`thresholdPresets`), or an ICNIRP 2010 reference level
+ * "icnirp-public@50Hz" / "icnirp-occupational@1kHz" (rms, DOMAIN.md §4.2).
+ *
+ * @throws RingfallError code `THRESHOLD_LEVEL` (not a field, not positive, unknown
+ *   preset), `THRESHOLD_FREQUENCY` (frequency missing or outside 1 Hz – 10 MHz)
+ * @example parseThresholdLevel('icnirp-public@50Hz').value // 2e-4
+ */
+export function parseThresholdLevel(text: string, what = '--threshold'): ThresholdLevel {
+  const trimmed = text.trim();
+  const preset = thresholdPresets[trimmed.toLowerCase()];
+  if (preset) return preset;
+  const icnirp = /^icnirp-(public|occupational)(?:@(.*))?$/i.exec(trimmed);
+  if (icnirp) return icnirpLevel(icnirp[1]!.toLowerCase() as ExposureGroup, icnirp[2], text, what);
+  if (/^[a-z]/i.test(trimmed)) {
+    throw new RingfallError(
+      'THRESHOLD_LEVEL',
+      `${what}: "${text}" is neither a field nor a known preset. Give a field like "0.5mT" or one of: ${[...Object.keys(thresholdPresets), 'icnirp-public@50Hz', 'icnirp-occupational@50Hz'].join(', ')}.`,
+      { value: text },
+    );
+  }
+  const level = parseQuantity(trimmed, 'field', what).value;
+  if (!(level > 0)) {
+    throw new RingfallError('THRESHOLD_LEVEL', `${what}: "${text}" is not a positive field. Give a level above zero, e.g. "0.5mT".`, { value: text });
+  }
+  return { value: level, label: null, readingType: null, flag: null, notes: [] };
+}
+
+function icnirpLevel(group: ExposureGroup, frequencyText: string | undefined, text: string, what: string): ThresholdLevel {
+  const match = frequencyPattern.exec(frequencyText ?? '');
+  if (!match) {
+    throw new RingfallError(
+      'THRESHOLD_FREQUENCY',
+      `${what}: "${text}" needs the frequency of the field, written like "icnirp-${group}@50Hz" or "icnirp-${group}@1kHz".`,
+      { value: text },
+    );
+  }
+  const frequency = Number(match[1]) * frequencyFactor[match[2]!.toLowerCase()]!;
+  const reference = icnirp2010ReferenceLevel(frequency, group);
+  return {
+    value: reference.value,
+    label: `ICNIRP 2010 ${group === 'public' ? 'general public' : 'occupational'} reference level at ${match[1]} ${match[2]} (${reference.band})`,
+    readingType: 'rms',
+    flag: reference.flag,
+    notes: reference.notes,
+  };
+}
