@@ -38,6 +38,13 @@ export interface RejectedRow {
   readonly value: string | null;
   /** What was wrong and what to do, in one sentence. */
   readonly reason: string;
+  /**
+   * Stable code of the problem, for programs (the web page highlights by it): ROW_NOT_A_NUMBER,
+   * ROW_NOT_FINITE, ROW_EMPTY_CELL, ROW_MISSING_CELLS, ROW_EXTRA_CELLS, ROW_NEGATIVE_MAGNITUDE,
+   * ROW_NEGATIVE_DISTANCE, ROW_NEGATIVE_UNCERTAINTY, ROW_IMPLAUSIBLE, ROW_OVER_RANGE, ROW_BAD_DATE,
+   * ROW_BAD_READING_TYPE, ROW_COMMENTED, ROW_UNCLOSED_QUOTE, ROW_SURVEY_TOO_SMALL (src/io/import).
+   */
+  readonly code?: string;
 }
 
 export interface Survey {

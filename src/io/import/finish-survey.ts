@@ -1,0 +1,61 @@
+import type { FieldKind, ReadingType, Reading, Survey } from '../../core/survey/survey';
+import { formatQuantity } from '../../core/units';
+import type { SurveyGroup } from './survey-collector';
+
+/**
+ * Turn a group of rows into a Survey and write the notes the report must show.
+ *
+ * Sign of a plain `B` column (signed single-axis reading): small negative readings far
+ * from the coil are real (zero offset, background; DOMAIN §3.3–3.4, §5) and are kept.
+ * When the largest reading in magnitude is negative and the readings sum below zero,
+ * the probe was held reversed: every sign is flipped and a note says so. (A strict
+ * "all negative" test would miss a reversed probe whose farthest readings are lifted
+ * above zero by background.)
+ */
+export function finishSurvey(
+  group: SurveyGroup,
+  otherReadingTypes: readonly (ReadingType | null)[],
+  context: { readonly source: string; readonly fieldKind: FieldKind; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[] },
+): Survey {
+  const notes: string[] = [];
+  let readings: Reading[] = group.readings;
+  if (context.fieldKind === 'axial' && readings.length > 0) {
+    let sum = 0;
+    let largest = readings[0] as Reading;
+    let negatives = 0;
+    for (const reading of readings) {
+      sum += reading.field;
+      if (reading.field < 0) negatives += 1;
+      if (Math.abs(reading.field) > Math.abs(largest.field)) largest = reading;
+    }
+    if (largest.field < 0 && sum < 0) {
+      readings = readings.map((reading) => ({ ...reading, field: -reading.field }));
+      notes.push(
+        `probe read reversed: the largest reading (${formatQuantity(largest.field, 'field')}, line ${largest.line}) and the sum of the readings are negative, ` +
+          `so every sign was flipped (${negatives} of ${readings.length} readings were negative)`,
+      );
+    } else if (negatives > 0) {
+      notes.push(`${negatives} negative reading${negatives === 1 ? '' : 's'} kept as read: a single-axis reading far from a coil can be below zero (zero offset, background)`);
+    }
+  }
+  if (group.negativeRadial > 0) {
+    notes.push(`${group.negativeRadial} negative radial offset${group.negativeRadial === 1 ? '' : 's'} read as ${group.negativeRadial === 1 ? 'its' : 'their'} absolute value (the coil's field is symmetric about its axis)`);
+  }
+  const others = otherReadingTypes.map((t) => t ?? 'unlabelled');
+  if (others.length > 0) {
+    notes.push(`the same coil and date also has ${others.join(', ')} readings in this file; they form a separate survey, since detector types are never mixed`);
+  }
+  notes.push(...context.fileNotes);
+  return {
+    source: context.source,
+    coil: group.coil,
+    date: group.date,
+    readingType: group.readingType,
+    fieldKind: context.fieldKind,
+    readings,
+    rejected: group.rejected,
+    totalRows: readings.length + group.rejected.length,
+    meta: context.meta,
+    notes,
+  };
+}

@@ -1,0 +1,122 @@
+/**
+ * Types of the survey importer's input options and its result. The result is data the
+ * CLI and the web page show as is: which column became what and why, and every row that
+ * was not used.
+ */
+import type { FieldKind, RejectedRow, Survey } from '../../core/survey/survey';
+
+/**
+ * What a column holds. `field` is a signed single-axis reading (plain `B`), `magnitude`
+ * a |B| column, `bx`/`by`/`bz` components (all three → magnitude; `bz` alone → axial).
+ */
+export type ColumnRole =
+  | 'distance'
+  | 'radial'
+  | 'field'
+  | 'magnitude'
+  | 'bx'
+  | 'by'
+  | 'bz'
+  | 'uncertainty'
+  | 'coil'
+  | 'date'
+  | 'reading';
+
+/** A hand-made column assignment (web page column mapping), overriding detection. */
+export interface ColumnMapping {
+  /** The column: 0-based index, or its header text exactly as written. */
+  readonly column: number | string;
+  /** What the column holds, or 'ignore' to leave it out. */
+  readonly role: ColumnRole | 'ignore';
+  /** Unit of a numeric column (e.g. "mm", "mT"); overrides the unit in the header. */
+  readonly unit?: string;
+}
+
+export interface ImportOptions {
+  /** File name or label for messages and Survey.source ("pasted text"). */
+  readonly source: string;
+  /** Unit of field columns whose header states none (`--field-unit`), e.g. "mT". */
+  readonly fieldUnit?: string;
+  /** Unit of distance and radial columns whose header states none (`--distance-unit`). */
+  readonly distanceUnit?: string;
+  /** Hand-made column assignments; columns not named keep their detected role. */
+  readonly mapping?: readonly ColumnMapping[];
+}
+
+/** Where a column's unit came from. */
+export type UnitSource = 'header' | 'option' | 'metadata' | 'mapping';
+
+/** What the importer made of one column, and why. */
+export interface ColumnDetection {
+  /** 0-based column index. */
+  readonly index: number;
+  /** Header text as written (BOM and surrounding spaces removed). */
+  readonly header: string;
+  /** The role the column plays, or null when it is ignored. */
+  readonly role: ColumnRole | null;
+  /** Canonical unit symbol ("mm", "mT", "uT") for numeric roles, else null. */
+  readonly unit: string | null;
+  readonly unitSource: UnitSource | null;
+  /** One sentence for people: `name "distance" with unit "mm" in brackets`. */
+  readonly reason: string;
+}
+
+/** A `# key: value` line before the header. */
+export interface MetadataLine {
+  readonly line: number;
+  /** Lower-cased, runs of spaces, underscores and hyphens made one space. */
+  readonly key: string;
+  readonly value: string;
+}
+
+/** How the file was read: everything the web page needs to show and override detection. */
+export interface Detection {
+  readonly delimiter: ',' | ';' | '\t';
+  /** True when "12,5" is read as 12.5 (delimiter is semicolon or tab). */
+  readonly decimalComma: boolean;
+  readonly lineBreak: 'LF' | 'CRLF' | 'CR';
+  readonly byteOrderMark: boolean;
+  /** 1-based line of the header row. */
+  readonly headerLine: number;
+  readonly metadata: readonly MetadataLine[];
+  /** `#` lines before the header that are not `key: value` metadata. */
+  readonly comments: readonly { readonly line: number; readonly text: string }[];
+  readonly columns: readonly ColumnDetection[];
+  readonly fieldKind: FieldKind;
+  /** File-level remarks (ignored columns, precedence rules applied). */
+  readonly notes: readonly string[];
+}
+
+/** A coil/date group with too few usable readings to fit; all its rows are kept here. */
+export interface SkippedSurvey {
+  readonly survey: Survey;
+  readonly reason: string;
+}
+
+/** Row bookkeeping: dataRows = used + rejected (in surveys and skipped) + unassigned. */
+export interface ImportCounts {
+  /** Non-blank records after the header. */
+  readonly dataRows: number;
+  readonly used: number;
+  readonly rejected: number;
+  /** Blank lines (or lines of only delimiters) after the header, not data. */
+  readonly blankLines: number;
+}
+
+export interface ImportResult {
+  /** One Survey per coil, date (and reading type when a file mixes them), in file order. */
+  readonly surveys: readonly Survey[];
+  /** Groups with fewer than MIN_USABLE_READINGS usable readings. */
+  readonly skipped: readonly SkippedSurvey[];
+  /** Rows that belong to no survey (commented out, or coil/date/reading cell unreadable). */
+  readonly unassigned: readonly RejectedRow[];
+  readonly detection: Detection;
+  readonly counts: ImportCounts;
+}
+
+/**
+ * Fewest usable readings a survey needs: the smallest model in the catalog, the dipole
+ * with background and probe offset fixed, has 2 free parameters (moment, background), and
+ * a fit needs at least one degree of freedom beyond them to estimate its residual scale.
+ */
+export const MIN_USABLE_READINGS = 3;

@@ -1,0 +1,110 @@
+import Papa from 'papaparse';
+import type { ReadingType } from '../../core/survey/survey';
+import { detectColumns, type ColumnDetectionResult } from './detect-columns';
+import { detectDelimiter, type Delimiter } from './detect-delimiter';
+import { roleForName } from './header-names';
+import { importError, place } from './import-errors';
+import type { Detection, ImportOptions, MetadataLine } from './import-types';
+import { looksBinary } from './looks-binary';
+import { parseDate } from './parse-date';
+import { parseReadingType } from './parse-reading-type';
+import { readPreamble, type Preamble } from './read-preamble';
+
+/** Everything decided before the first data row. */
+export interface FileLayout {
+  readonly preamble: Preamble;
+  readonly delimiter: Delimiter;
+  readonly decimalComma: boolean;
+  readonly columns: ColumnDetectionResult;
+  readonly detection: Detection;
+  /** Metadata as a record (later keys win), keys as in MetadataLine. */
+  readonly meta: Readonly<Record<string, string>>;
+  /** Coil, date and reading type from metadata, used where the row has no such cell. */
+  readonly defaults: { readonly coil: string | null; readonly date: string | null; readonly readingType: ReadingType | null };
+}
+
+const sampleLineCount = 10;
+const sampleCharacterLimit = 1 << 16;
+
+/**
+ * Decide how to read a survey file from its beginning: binary check, metadata, header,
+ * delimiter (from the header and up to ten following lines), columns and units.
+ * Column problems are returned in `columns.problems`, not thrown, so a page can show the
+ * detection and let the user map columns by hand.
+ *
+ * @param text the text so far, byte-order mark removed
+ * @param final true when no more text will come
+ * @returns the layout, or null when more text is needed
+ * @throws RingfallError IMPORT_BINARY, IMPORT_EMPTY, IMPORT_NO_HEADER, IMPORT_METADATA
+ */
+export function readLayout(text: string, byteOrderMark: boolean, final: boolean, options: ImportOptions): FileLayout | null {
+  const binary = looksBinary(text.slice(0, 8192));
+  if (binary) {
+    throw importError(
+      'IMPORT_BINARY',
+      `Survey file is not text: found ${binary} (${options.source}). Save or export the readings as CSV text (UTF-8), e.g. "distance (mm),B (mT)" then one row per reading.`,
+      options.source,
+    );
+  }
+  const preamble = readPreamble(text, final, options.source);
+  if (!preamble) return null;
+  const sample: string[] = [];
+  let offset = preamble.dataOffset;
+  while (sample.length < sampleLineCount && offset < text.length) {
+    const end = text.indexOf(preamble.newline, offset);
+    if (end === -1 && !final) break;
+    sample.push(text.slice(offset, end === -1 ? text.length : end));
+    offset = end === -1 ? text.length : end + 1;
+  }
+  if (!final && sample.length < sampleLineCount && text.length - preamble.dataOffset < sampleCharacterLimit) return null;
+  const delimiter = detectDelimiter(preamble.headerText, sample);
+  const parsedHeader = Papa.parse<string[]>(preamble.headerText, { delimiter, newline: preamble.newline }).data[0] ?? [];
+  const headers = parsedHeader.map((h) => h.replace(/\r$/u, ''));
+  const columns = detectColumns(headers, preamble.headerLine, options);
+  const meta: Record<string, string> = {};
+  for (const { key, value } of preamble.metadata) meta[key] = value;
+  const detection: Detection = {
+    delimiter,
+    decimalComma: delimiter !== ',',
+    lineBreak: preamble.lineBreak,
+    byteOrderMark,
+    headerLine: preamble.headerLine,
+    metadata: preamble.metadata,
+    comments: preamble.comments,
+    columns: columns.columns,
+    fieldKind: columns.fieldKind,
+    notes: columns.notes,
+  };
+  return { preamble, delimiter, decimalComma: delimiter !== ',', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
+}
+
+function readDefaults(metadata: readonly MetadataLine[], source: string): FileLayout['defaults'] {
+  let coil: string | null = null;
+  let date: string | null = null;
+  let readingType: ReadingType | null = null;
+  for (const { key, value, line } of metadata) {
+    const role = roleForName(key);
+    if (role === 'coil' && value !== '') coil = value;
+    if (role === 'date' && value !== '') {
+      date = parseDate(value);
+      if (date === null) {
+        throw importError(
+          'IMPORT_METADATA',
+          `Metadata date not read: "${value}" is not a date ringfall reads (${place(source, line)}). Write it as YYYY-MM-DD, e.g. 2026-03-14.`,
+          place(source, line), value,
+        );
+      }
+    }
+    if (role === 'reading' && value !== '') {
+      readingType = parseReadingType(value);
+      if (readingType === null) {
+        throw importError(
+          'IMPORT_METADATA',
+          `Metadata reading type not read: "${value}" is not dc, rms or peak (${place(source, line)}). Write "# reading: dc", "rms" or "peak".`,
+          place(source, line), value,
+        );
+      }
+    }
+  }
+  return { coil, date, readingType };
+}

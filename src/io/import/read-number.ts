@@ -1,0 +1,50 @@
+const numberPattern = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/**
+ * Read a numeric cell: optional sign, digits with one decimal point, optional exponent
+ * ("12", "-0.5", ".25", "1e-3"). With `decimalComma` a single comma is the decimal mark
+ * ("12,5" → 12.5); a cell with both marks is not read, since "1.234,5" would need a
+ * guess about thousands separators. A leading U+2212 minus sign is read as "-".
+ * Hex, binary, "Infinity" and the empty cell, all of which JavaScript's Number() accepts,
+ * are refused here.
+ *
+ * @returns the number (possibly ±Infinity for "1e999"), or NaN when the cell is not a number
+ * @example readNumber(' 12,5 ', true) // 12.5
+ */
+export function readNumber(cell: string, decimalComma: boolean): number {
+  let text = cell.trim();
+  if (text.charCodeAt(0) === 0x2212) text = `-${text.slice(1)}`;
+  if (decimalComma) {
+    const comma = text.indexOf(',');
+    if (comma !== -1) {
+      if (text.includes('.') || text.indexOf(',', comma + 1) !== -1) return Number.NaN;
+      text = `${text.slice(0, comma)}.${text.slice(comma + 1)}`;
+    }
+  }
+  return numberPattern.test(text) ? Number(text) : Number.NaN;
+}
+
+/**
+ * Why a cell gave no finite number: a stable code and a reason for people.
+ * @param value what readNumber returned for the cell (NaN or ±Infinity)
+ */
+export function explainNumberCell(cell: string, column: string, value: number): { code: string; reason: string } {
+  const text = cell.trim();
+  if (text === '') return { code: 'ROW_EMPTY_CELL', reason: `column "${column}" is empty. Fill in the value or delete the row.` };
+  if (value === Infinity || value === -Infinity) {
+    return { code: 'ROW_NOT_FINITE', reason: `column "${column}": "${shorten(text)}" is too large to be a number. Write the measured value.` };
+  }
+  if (/^[+-]?(?:nan|inf|infinity)$/iu.test(text)) {
+    return { code: 'ROW_NOT_FINITE', reason: `column "${column}": "${text}" is not a finite number. Write the measured value.` };
+  }
+  if (/^(?:o\.?l\.?|ovl|over|overload|over ?range|ofl)$/iu.test(text)) {
+    return { code: 'ROW_OVER_RANGE', reason: `column "${column}": "${text}" is the meter's over-range display, not a reading. Re-measure this point on a higher range.` };
+  }
+  const hint = /\d,\d/u.test(text) ? ' A decimal comma is read only in files delimited by semicolon or tab, and never together with a decimal point.' : '';
+  return { code: 'ROW_NOT_A_NUMBER', reason: `column "${column}": "${shorten(text)}" is not a number.${hint} Correct the cell or delete the row.` };
+}
+
+/** Keep messages short when a cell is very long (fuzzed or corrupted lines). */
+export function shorten(text: string, limit = 40): string {
+  return text.length <= limit ? text : `${text.slice(0, limit)}… (${text.length} characters)`;
+}

@@ -1,0 +1,46 @@
+import type { ReadingType } from '../../core/survey/survey';
+import { parseDate } from './parse-date';
+import { parseReadingType } from './parse-reading-type';
+import { shorten } from './read-number';
+import type { RowContext, RowKey } from './read-row';
+
+type WidthProblem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string } | null;
+
+/**
+ * Read which survey a row belongs to: its coil, date and reading-type cells, each
+ * falling back to the `# coil:`, `# date:`, `# reading:` metadata when the file has no
+ * such column or the cell is empty. A row whose key cell is missing or unreadable
+ * belongs to no survey: it is put in `collector.unassigned` and null is returned.
+ */
+export function readRowKey(cells: readonly string[], line: number, context: RowContext, widthProblem: WidthProblem): RowKey | null {
+  const { layout, defaults, collector, headers } = context;
+  const keyColumns = [layout.coil, layout.date, layout.reading].filter((index): index is number => index !== null);
+  if (widthProblem && keyColumns.some((index) => index >= cells.length)) {
+    collector.unassigned.push({ line, column: widthProblem.column, value: widthProblem.value, reason: widthProblem.reason, code: widthProblem.code });
+    return null;
+  }
+  const cell = (index: number | null): string => (index === null ? '' : (cells[index] ?? '').trim());
+  const coilText = cell(layout.coil);
+  const dateText = cell(layout.date);
+  const readingText = cell(layout.reading);
+  const date = dateText === '' ? defaults.date : parseDate(dateText);
+  if (date === null && dateText !== '') {
+    const column = headers[layout.date ?? 0] ?? 'date';
+    collector.unassigned.push({
+      line, column, value: shorten(dateText), code: 'ROW_BAD_DATE',
+      reason: `column "${column}": "${shorten(dateText)}" is not a date ringfall reads, so the row belongs to no survey. Write dates as YYYY-MM-DD, e.g. 2026-03-14.`,
+    });
+    return null;
+  }
+  const readingType: ReadingType | null = readingText === '' ? defaults.readingType : parseReadingType(readingText);
+  if (readingType === null && readingText !== '') {
+    const column = headers[layout.reading ?? 0] ?? 'reading';
+    collector.unassigned.push({
+      line, column, value: shorten(readingText), code: 'ROW_BAD_READING_TYPE',
+      reason: `column "${column}": "${shorten(readingText)}" is not dc, rms or peak, so the row belongs to no survey. ` +
+        'Write the detector type, or if the column holds field values write its unit in the header, e.g. "reading (mT)".',
+    });
+    return null;
+  }
+  return { coil: coilText === '' ? defaults.coil : coilText, date, readingType };
+}

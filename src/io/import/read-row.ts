@@ -1,0 +1,135 @@
+import type { Reading, ReadingType } from '../../core/survey/survey';
+import type { ColumnLayout, NumericColumn } from './detect-columns';
+import type { FileLayout } from './read-layout';
+import { explainNumberCell, readNumber, shorten } from './read-number';
+import { readRowKey } from './read-row-key';
+import type { SurveyCollector } from './survey-collector';
+
+/** What the row reader needs besides the row. */
+export interface RowContext {
+  readonly layout: ColumnLayout;
+  readonly decimalComma: boolean;
+  /** Header text of every column, for messages. */
+  readonly headers: readonly string[];
+  /** Which columns are used (have a role). */
+  readonly used: readonly boolean[];
+  readonly defaults: FileLayout['defaults'];
+  readonly collector: SurveyCollector;
+}
+
+/** Largest |value| taken for a reading: beyond any gaussmeter (the strongest DC magnets reach about 45 T). */
+const maximumField = 100;
+/** Largest distance taken, m: far beyond any coil survey. */
+const maximumDistance = 100;
+
+type Problem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string };
+
+/**
+ * Read one data row into a Reading of its survey, or a RejectedRow with line, column,
+ * value and reason. Rows whose coil, date or reading cell cannot be read belong to no
+ * survey and go to `collector.unassigned`. Rows short of cells only in unused trailing
+ * columns, and rows with extra empty trailing cells (a trailing delimiter), are read.
+ */
+export function readRow(cells: readonly string[], line: number, context: RowContext): void {
+  const { layout, collector } = context;
+  const widthProblem = checkWidth(cells, context);
+  const key = readRowKey(cells, line, context, widthProblem);
+  if (key === null) return;
+  const group = collector.group(key.coil, key.date, key.readingType);
+  const outcome = widthProblem ?? readNumbers(cells, line, layout, context.decimalComma);
+  if ('reason' in outcome) {
+    group.rejected.push({ line, column: outcome.column, value: outcome.value, reason: outcome.reason, code: outcome.code });
+    return;
+  }
+  if (outcome.radial < 0) {
+    group.negativeRadial += 1;
+    outcome.radial = -outcome.radial;
+  }
+  group.readings.push(outcome);
+}
+
+/** A row's key cells: coil, date, reading type. */
+export interface RowKey {
+  readonly coil: string | null;
+  readonly date: string | null;
+  readonly readingType: ReadingType | null;
+}
+
+function checkWidth(cells: readonly string[], context: RowContext): Problem | null {
+  const width = context.layout.width;
+  if (cells.length > width) {
+    const extra = cells.slice(width).find((cell) => cell.trim() !== '');
+    if (extra === undefined) return null;
+    return {
+      column: null, value: shorten(extra.trim()), code: 'ROW_EXTRA_CELLS',
+      reason: `the row has ${cells.length} cells but the header has ${width}; "${shorten(extra.trim())}" has no column. Fix the row or add a header for that column.`,
+    };
+  }
+  const missing = context.headers.filter((_, index) => index >= cells.length && context.used[index]);
+  if (missing.length === 0) return null;
+  return {
+    column: missing[0] ?? null, value: null, code: 'ROW_MISSING_CELLS',
+    reason: `the row has ${cells.length} cell${cells.length === 1 ? '' : 's'} but the header has ${width}; no ${missing.map((m) => `"${m}"`).join(', ')}. Fill in the missing cells or delete the row.`,
+  };
+}
+
+type MutableReading = { -readonly [K in keyof Reading]: Reading[K] };
+
+function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): MutableReading | Problem {
+  const distance = readColumn(cells, layout.distance, decimalComma);
+  if (typeof distance !== 'number') return distance;
+  if (distance < 0) {
+    return problem(cells, layout.distance, 'ROW_NEGATIVE_DISTANCE',
+      'is negative; distances are measured outward from the coil (winding plane or near face). Put readings from the other side in their own survey with positive distances.');
+  }
+  if (distance > maximumDistance) return problem(cells, layout.distance, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
+  let radial = 0;
+  if (layout.radial) {
+    const value = readColumn(cells, layout.radial, decimalComma);
+    if (typeof value !== 'number') return value;
+    if (Math.abs(value) > maximumDistance) return problem(cells, layout.radial, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
+    radial = value;
+  }
+  const reading: MutableReading = { line, distance, radial, field: 0 };
+  if (layout.components) {
+    const [x, y, z] = layout.components.map((column) => readColumn(cells, column, decimalComma));
+    for (const [index, value] of [x, y, z].entries()) {
+      if (typeof value !== 'number') return value as Problem;
+      if (Math.abs(value) > maximumField) return problem(cells, layout.components[index] as NumericColumn, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+    }
+    reading.components = { x: x as number, y: y as number, z: z as number };
+    reading.field = Math.hypot(x as number, y as number, z as number);
+  } else if (layout.field) {
+    const field = readColumn(cells, layout.field, decimalComma);
+    if (typeof field !== 'number') return field;
+    if (field < 0 && layout.fieldKind === 'magnitude') {
+      return problem(cells, layout.field, 'ROW_NEGATIVE_MAGNITUDE', 'is negative in a magnitude (|B|) column. Correct the reading, or write the column as "B" if it is a signed single-axis reading.');
+    }
+    if (Math.abs(field) > maximumField) return problem(cells, layout.field, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+    reading.field = field;
+  }
+  if (layout.uncertainty && (cells[layout.uncertainty.index] ?? '').trim() !== '') {
+    const uncertainty = readColumn(cells, layout.uncertainty, decimalComma);
+    if (typeof uncertainty !== 'number') return uncertainty;
+    if (!(uncertainty > 0)) {
+      return problem(cells, layout.uncertainty, 'ROW_NEGATIVE_UNCERTAINTY', 'is not a positive uncertainty. Give a standard uncertainty above zero, or leave the cell empty.');
+    }
+    if (uncertainty > maximumField) return problem(cells, layout.uncertainty, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+    reading.standardUncertainty = uncertainty;
+  }
+  return reading;
+}
+
+/** A cell converted to SI, or the problem with it. */
+function readColumn(cells: readonly string[], column: NumericColumn, decimalComma: boolean): number | Problem {
+  const cell = cells[column.index] ?? '';
+  const value = readNumber(cell, decimalComma);
+  if (Number.isFinite(value)) return column.divisor === 0 ? value * column.factor : value / column.divisor;
+  const { code, reason } = explainNumberCell(cell, column.header, value);
+  return { column: column.header, value: shorten(cell.trim()), code, reason };
+}
+
+function problem(cells: readonly string[], column: NumericColumn, code: string, what: string): Problem {
+  const value = shorten((cells[column.index] ?? '').trim());
+  return { column: column.header, value, code, reason: `column "${column.header}": "${value}" ${what}` };
+}

@@ -1,0 +1,153 @@
+import Papa from 'papaparse';
+import { checkResult } from './check-result';
+import type { ImportOptions, ImportResult } from './import-types';
+import { readLayout, type FileLayout } from './read-layout';
+import { readRow, type RowContext } from './read-row';
+import { SurveyCollector } from './survey-collector';
+
+/** What papaparse's low-level Parser gives the step callback: one row in `data[0]`. */
+interface StepResults {
+  readonly data: string[][];
+  readonly errors: readonly { readonly code: string }[];
+  readonly meta: { readonly cursor: number };
+}
+
+/** A quoted field still open after this many characters stops re-parsing until a quote arrives. */
+const stalledQuoteLength = 1 << 16;
+
+/**
+ * Chunk-fed survey importer: push text as it arrives (a file stream, an upload), then
+ * finish() for the result. Memory holds the readings and at most one partial row, so a
+ * 1,000,000-row file streams through in bounded extra space.
+ *
+ * Algorithm: the beginning is buffered until readLayout can see the metadata, header and
+ * ten sample lines; then rows go through papaparse's Parser in step mode with
+ * `ignoreLastRow` (the partial last row waits for the next chunk, as papaparse's own
+ * chunk streamers do). Physical line numbers come from counting line breaks between the
+ * parser's row cursors, so quoted fields with line breaks keep later numbers right.
+ *
+ * @example const importer = new SurveyImporter({ source: 'a.csv' }); importer.push(text); importer.finish().surveys
+ */
+export class SurveyImporter {
+  private pending = '';
+  private started = false;
+  private byteOrderMark = false;
+  private nextAttempt = 0;
+  private finished = false;
+  private layout: FileLayout | null = null;
+  private context: RowContext | null = null;
+  private parser: Papa.Parser | null = null;
+  private remainder = '';
+  private stalled = false;
+  private line = 0;
+  private chunkText = '';
+  private chunkCursor = 0;
+
+  constructor(private readonly options: ImportOptions) {}
+
+  /** Add the next piece of text (any split, even inside a row or a CRLF). */
+  push(chunk: string): void {
+    if (this.finished) throw new TypeError('SurveyImporter.push() after finish(): create a new importer for a new file');
+    if (chunk === '') return;
+    if (!this.started) {
+      this.started = true;
+      if (chunk.charCodeAt(0) === 0xfeff) {
+        this.byteOrderMark = true;
+        chunk = chunk.slice(1);
+      }
+    }
+    if (this.context) {
+      this.feed(chunk, false);
+      return;
+    }
+    this.pending += chunk;
+    if (this.pending.length >= this.nextAttempt) this.start(false);
+  }
+
+  /**
+   * Read what is left and build the result.
+   * @throws RingfallError with an IMPORT_* code for file-level problems (see import-errors.ts)
+   */
+  finish(): ImportResult {
+    if (this.finished) throw new TypeError('SurveyImporter.finish() called twice');
+    this.finished = true;
+    if (!this.context) this.start(true);
+    this.feed('', true);
+    const layout = this.layout as FileLayout;
+    const collector = (this.context as RowContext).collector;
+    const { surveys, skipped, counts } = collector.finish();
+    return checkResult({ surveys, skipped, unassigned: collector.unassigned, detection: layout.detection, counts }, this.options.source, layout.preamble.headerLine);
+  }
+
+  private start(final: boolean): void {
+    const layout = readLayout(this.pending, this.byteOrderMark, final, this.options);
+    if (!layout) {
+      this.nextAttempt = Math.max(2 * this.pending.length, 4096);
+      return;
+    }
+    const problem = layout.columns.problems[0];
+    if (problem) throw problem;
+    const columnLayout = layout.columns.layout;
+    if (!columnLayout) throw new TypeError('readLayout() gave no column layout and no problem');
+    this.layout = layout;
+    this.context = {
+      layout: columnLayout,
+      decimalComma: layout.decimalComma,
+      headers: layout.detection.columns.map((c) => c.header),
+      used: layout.detection.columns.map((c) => c.role !== null),
+      defaults: layout.defaults,
+      collector: new SurveyCollector({ source: this.options.source, fieldKind: columnLayout.fieldKind, meta: layout.meta, fileNotes: layout.detection.notes }),
+    };
+    this.parser = new Papa.Parser({ delimiter: layout.delimiter, newline: layout.preamble.newline, step: (results: StepResults) => this.row(results) } as Papa.ParseConfig);
+    this.line = layout.preamble.headerLine + 1;
+    const rest = this.pending.slice(layout.preamble.dataOffset);
+    this.pending = '';
+    this.feed(rest, final);
+  }
+
+  private feed(chunk: string, final: boolean): void {
+    const text = this.remainder + chunk;
+    if (this.stalled && !final && !chunk.includes('"')) {
+      this.remainder = text;
+      return;
+    }
+    this.chunkText = text;
+    this.chunkCursor = 0;
+    const result = (this.parser as Papa.Parser).parse(text, 0, !final) as { meta: { cursor: number } };
+    this.remainder = final ? '' : text.slice(result.meta.cursor);
+    this.stalled = this.remainder.length > stalledQuoteLength && this.remainder.includes('"');
+    this.chunkText = '';
+  }
+
+  private row(results: StepResults): void {
+    const context = this.context as RowContext;
+    const cells = results.data[0] ?? [];
+    const cursor = results.meta.cursor;
+    const text = this.chunkText;
+    const newline = (this.layout as FileLayout).preamble.newline;
+    const first = this.line;
+    let breaks = 0;
+    for (let at = text.indexOf(newline, this.chunkCursor); at !== -1 && at < cursor; at = text.indexOf(newline, at + 1)) breaks += 1;
+    const span = cursor - this.chunkCursor;
+    this.chunkCursor = cursor;
+    this.line += breaks;
+    if (cells.every((cell) => cell.trim() === '')) {
+      if (span > 0) context.collector.blankLines += 1;
+      return;
+    }
+    const unclosed = results.errors.find((e) => e.code === 'MissingQuotes');
+    if (unclosed) {
+      const last = first + breaks - (text[cursor - 1] === newline ? 1 : 0);
+      context.collector.unassigned.push({
+        line: first, column: null, value: null, code: 'ROW_UNCLOSED_QUOTE',
+        reason: `a quoted field opened on line ${first} is never closed, so lines ${first}–${last} read as one row and are not used. Remove the stray " or close the quote.`,
+      });
+      return;
+    }
+    if ((cells[0] ?? '').trimStart().startsWith('#')) {
+      context.collector.unassigned.push({ line: first, column: null, value: null, code: 'ROW_COMMENTED', reason: 'the row is commented out with "#"; not used. Remove the "#" to use it.' });
+      return;
+    }
+    readRow(cells, first, context);
+  }
+}
