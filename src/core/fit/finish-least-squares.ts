@@ -1,0 +1,102 @@
+import { onBound } from './free-parameters';
+import type { LeastSquaresProblem, LeastSquaresSolution, StopCode } from './least-squares-types';
+import type { PreparedLeastSquares } from './prepare-least-squares';
+import { weightedJacobian } from './weighted-jacobian';
+
+const CONVERGED: ReadonlySet<StopCode> = new Set<StopCode>([
+  'cost-tolerance',
+  'step-tolerance',
+  'cost-and-step-tolerance',
+  'gradient-tolerance',
+  'exact-fit',
+  'machine-precision',
+  'no-free-parameters',
+]);
+
+/**
+ * Package the state of a finished {@link fitLeastSquares} run: copy θ̂, predictions and
+ * residuals out of the workspace, evaluate the weighted Jacobian in the ORIGINAL
+ * parameters at θ̂ (for the covariance), flag parameters on a bound, word the stop reason.
+ */
+export function finishLeastSquares(
+  problem: LeastSquaresProblem,
+  setup: PreparedLeastSquares,
+  stopCode: StopCode,
+  iterations: number,
+  evaluations: number,
+): LeastSquaresSolution {
+  const { ws, map, settings } = setup;
+  const { m, p } = ws;
+  const k = map.count;
+  const warnings = [...setup.warnings];
+  let spent = evaluations;
+  let jacobian = new Float64Array(0);
+  if (stopCode !== 'non-finite-start' && k > 0) {
+    spent += weightedJacobian(problem, map, ws, settings.differenceStep, ws.jacobian);
+    jacobian = new Float64Array(m * k);
+    for (let j = 0; j < k; j++) for (let i = 0; i < m; i++) jacobian[i * k + j] = ws.jacobian[i + j * m]!;
+  }
+  const atBound = new Array<boolean>(p).fill(false);
+  for (let j = 0; j < k; j++) {
+    const at = map.index[j]!;
+    if (onBound(map, j, ws.params[at]!)) {
+      atBound[at] = true;
+      warnings.push(`parameter ${at} ended on its bound (${ws.params[at]})`);
+    }
+  }
+  const predicted = ws.predicted.slice();
+  const residuals = new Float64Array(m);
+  let chiSquare = 0;
+  let rss = 0;
+  for (let i = 0; i < m; i++) {
+    const r = problem.observed[i]! - predicted[i]!;
+    residuals[i] = r;
+    rss += r * r;
+    const z = r * ws.inverseUncertainty[i]!;
+    chiSquare += z * z;
+  }
+  return {
+    converged: CONVERGED.has(stopCode),
+    stopCode,
+    stopReason: describeStop(stopCode, setup),
+    iterations,
+    evaluations: spent,
+    params: ws.params.slice(),
+    freeIndices: Array.from(map.index),
+    chiSquare,
+    rss,
+    predicted,
+    residuals,
+    jacobian,
+    atBound,
+    warnings,
+  };
+}
+
+function describeStop(code: StopCode, setup: PreparedLeastSquares): string {
+  const s = setup.settings;
+  switch (code) {
+    case 'cost-tolerance':
+      return `converged: relative reduction of χ² below ${s.costTolerance}`;
+    case 'step-tolerance':
+      return `converged: relative step below ${s.stepTolerance}`;
+    case 'cost-and-step-tolerance':
+      return `converged: relative reduction of χ² below ${s.costTolerance} and relative step below ${s.stepTolerance}`;
+    case 'gradient-tolerance':
+      return `converged: residuals orthogonal to every Jacobian column within ${s.gradientTolerance}`;
+    case 'exact-fit':
+      return 'converged: the residuals are exactly zero';
+    case 'machine-precision':
+      return 'converged: no further reduction is possible at machine precision';
+    case 'no-free-parameters':
+      return 'nothing to fit: every parameter is fixed';
+    case 'max-evaluations':
+      return `not converged: the budget of ${s.maxEvaluations} evaluations ran out`;
+    case 'max-iterations':
+      return `not converged: the budget of ${s.maxIterations} iterations ran out`;
+    case 'aborted':
+      return 'not converged: aborted by the caller';
+    case 'non-finite-start':
+      return 'not converged: the model gave a non-finite value at the starting point';
+  }
+}

@@ -1,0 +1,72 @@
+import type { DampingScratch } from './damping-parameter';
+
+/**
+ * Preallocated buffers for {@link fitLeastSquares} with m observations and p parameters,
+ * so that the iteration allocates nothing. Pass one to many fits of the same size (a
+ * benchmark, a multi-start) to avoid even the per-fit allocation.
+ */
+export interface LeastSquaresWorkspace {
+  readonly m: number;
+  readonly p: number;
+  /** θ in original parameters (current and trial), length p. */
+  readonly params: Float64Array;
+  readonly trialParams: Float64Array;
+  /** Model Jacobian row-major m×p as the problem writes it. */
+  readonly modelJacobian: Float64Array;
+  /** Weighted Jacobian of the free internal variables, column-major m×k (k ≤ p). */
+  readonly jacobian: Float64Array;
+  /** Weighted residuals (f − y)/σ at the current and the trial point, length m. */
+  readonly residuals: Float64Array;
+  readonly trialResiduals: Float64Array;
+  readonly predicted: Float64Array;
+  readonly trialPredicted: Float64Array;
+  /** Finite-difference evaluations, length m. */
+  readonly plus: Float64Array;
+  readonly minus: Float64Array;
+  /** 1/σᵢ, length m. */
+  readonly inverseUncertainty: Float64Array;
+  /** Length-p vectors over the free internal variables. */
+  readonly internal: Float64Array;
+  readonly trialInternal: Float64Array;
+  readonly step: Float64Array;
+  readonly scale: Float64Array;
+  readonly qtf: Float64Array;
+  readonly rdiag: Float64Array;
+  readonly columnNorms: Float64Array;
+  readonly work: Float64Array;
+  readonly derivative: Float64Array;
+  readonly pivot: Int32Array;
+  readonly damping: DampingScratch;
+}
+
+/** Allocate a workspace for m observations and p parameters. */
+export function createLeastSquaresWorkspace(m: number, p: number): LeastSquaresWorkspace {
+  const vm = (): Float64Array => new Float64Array(m);
+  const vp = (): Float64Array => new Float64Array(p);
+  return {
+    m,
+    p,
+    params: vp(),
+    trialParams: vp(),
+    modelJacobian: new Float64Array(m * p),
+    jacobian: new Float64Array(m * p),
+    residuals: vm(),
+    trialResiduals: vm(),
+    predicted: vm(),
+    trialPredicted: vm(),
+    plus: vm(),
+    minus: vm(),
+    inverseUncertainty: vm(),
+    internal: vp(),
+    trialInternal: vp(),
+    step: vp(),
+    scale: vp(),
+    qtf: vp(),
+    rdiag: vp(),
+    columnNorms: vp(),
+    work: vp(),
+    derivative: vp(),
+    pivot: new Int32Array(p),
+    damping: { sdiag: vp(), work1: vp(), work2: vp(), work3: vp() },
+  };
+}
