@@ -1,0 +1,2 @@
+export { mulberry32 } from './mulberry32';
+export { normalRandom } from './normal-random';
