@@ -12,7 +12,7 @@ const numberPattern = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
  * @example readNumber(' 12,5 ', true) // 12.5
  */
 export function readNumber(cell: string, decimalComma: boolean): number {
-  let text = cell.trim();
+  let text = cell.length > 0 && cell.charCodeAt(0) > 32 && cell.charCodeAt(cell.length - 1) > 32 ? cell : cell.trim();
   if (text.charCodeAt(0) === 0x2212) text = `-${text.slice(1)}`;
   if (decimalComma) {
     const comma = text.indexOf(',');

@@ -14,15 +14,14 @@ type WidthProblem = { readonly column: string | null; readonly value: string | n
  */
 export function readRowKey(cells: readonly string[], line: number, context: RowContext, widthProblem: WidthProblem): RowKey | null {
   const { layout, defaults, collector, headers } = context;
-  const keyColumns = [layout.coil, layout.date, layout.reading].filter((index): index is number => index !== null);
-  if (widthProblem && keyColumns.some((index) => index >= cells.length)) {
+  if (widthProblem && Math.max(layout.coil ?? -1, layout.date ?? -1, layout.reading ?? -1) >= cells.length) {
     collector.unassigned.push({ line, column: widthProblem.column, value: widthProblem.value, reason: widthProblem.reason, code: widthProblem.code });
     return null;
   }
-  const cell = (index: number | null): string => (index === null ? '' : (cells[index] ?? '').trim());
-  const coilText = cell(layout.coil);
-  const dateText = cell(layout.date);
-  const readingText = cell(layout.reading);
+  if (layout.coil === null && layout.date === null && layout.reading === null) return defaults;
+  const coilText = keyCell(cells, layout.coil);
+  const dateText = keyCell(cells, layout.date);
+  const readingText = keyCell(cells, layout.reading);
   const date = dateText === '' ? defaults.date : parseDate(dateText);
   if (date === null && dateText !== '') {
     const column = headers[layout.date ?? 0] ?? 'date';
@@ -43,4 +42,8 @@ export function readRowKey(cells: readonly string[], line: number, context: RowC
     return null;
   }
   return { coil: coilText === '' ? defaults.coil : coilText, date, readingType };
+}
+
+function keyCell(cells: readonly string[], index: number | null): string {
+  return index === null ? '' : (cells[index] ?? '').trim();
 }

@@ -57,6 +57,7 @@ export interface RowKey {
 
 function checkWidth(cells: readonly string[], context: RowContext): Problem | null {
   const width = context.layout.width;
+  if (cells.length === width) return null;
   if (cells.length > width) {
     const extra = cells.slice(width).find((cell) => cell.trim() !== '');
     if (extra === undefined) return null;
@@ -92,13 +93,15 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
   }
   const reading: MutableReading = { line, distance, radial, field: 0 };
   if (layout.components) {
-    const [x, y, z] = layout.components.map((column) => readColumn(cells, column, decimalComma));
-    for (const [index, value] of [x, y, z].entries()) {
-      if (typeof value !== 'number') return value as Problem;
-      if (Math.abs(value) > maximumField) return problem(cells, layout.components[index] as NumericColumn, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
-    }
-    reading.components = { x: x as number, y: y as number, z: z as number };
-    reading.field = Math.hypot(x as number, y as number, z as number);
+    const [columnX, columnY, columnZ] = layout.components;
+    const x = readComponent(cells, columnX, decimalComma);
+    if (typeof x !== 'number') return x;
+    const y = readComponent(cells, columnY, decimalComma);
+    if (typeof y !== 'number') return y;
+    const z = readComponent(cells, columnZ, decimalComma);
+    if (typeof z !== 'number') return z;
+    reading.components = { x, y, z };
+    reading.field = Math.hypot(x, y, z);
   } else if (layout.field) {
     const field = readColumn(cells, layout.field, decimalComma);
     if (typeof field !== 'number') return field;
@@ -118,6 +121,14 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     reading.standardUncertainty = uncertainty;
   }
   return reading;
+}
+
+function readComponent(cells: readonly string[], column: NumericColumn, decimalComma: boolean): number | Problem {
+  const value = readColumn(cells, column, decimalComma);
+  if (typeof value === 'number' && Math.abs(value) > maximumField) {
+    return problem(cells, column, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+  }
+  return value;
 }
 
 /** A cell converted to SI, or the problem with it. */

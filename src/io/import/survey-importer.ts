@@ -21,10 +21,11 @@ const stalledQuoteLength = 1 << 16;
  * 1,000,000-row file streams through in bounded extra space.
  *
  * Algorithm: the beginning is buffered until readLayout can see the metadata, header and
- * ten sample lines; then rows go through papaparse's Parser in step mode with
- * `ignoreLastRow` (the partial last row waits for the next chunk, as papaparse's own
- * chunk streamers do). Physical line numbers come from counting line breaks between the
- * parser's row cursors, so quoted fields with line breaks keep later numbers right.
+ * ten sample lines; then rows go through papaparse's Parser with `ignoreLastRow` (the
+ * partial last row waits for the next chunk, as papaparse's own chunk streamers do).
+ * Quote-free text takes papaparse's fast mode, where each row is one physical line; text
+ * with quotes goes row by row (step mode) and line numbers come from counting the line
+ * breaks between row cursors, so quoted fields with line breaks keep later numbers right.
  *
  * @example const importer = new SurveyImporter({ source: 'a.csv' }); importer.push(text); importer.finish().surveys
  */
@@ -36,7 +37,10 @@ export class SurveyImporter {
   private finished = false;
   private layout: FileLayout | null = null;
   private context: RowContext | null = null;
-  private parser: Papa.Parser | null = null;
+  /** Parser for text with quotes: rows one by one with their end cursor (step mode). */
+  private stepParser: Papa.Parser | null = null;
+  /** Parser for quote-free text: all rows at once (papaparse's fast mode). */
+  private bulkParser: Papa.Parser | null = null;
   private remainder = '';
   private stalled = false;
   private line = 0;
@@ -98,7 +102,9 @@ export class SurveyImporter {
       defaults: layout.defaults,
       collector: new SurveyCollector({ source: this.options.source, fieldKind: columnLayout.fieldKind, meta: layout.meta, fileNotes: layout.detection.notes }),
     };
-    this.parser = new Papa.Parser({ delimiter: layout.delimiter, newline: layout.preamble.newline, step: (results: StepResults) => this.row(results) } as Papa.ParseConfig);
+    const config = { delimiter: layout.delimiter, newline: layout.preamble.newline };
+    this.stepParser = new Papa.Parser({ ...config, step: (results: StepResults) => this.stepRow(results) } as Papa.ParseConfig);
+    this.bulkParser = new Papa.Parser(config);
     this.line = layout.preamble.headerLine + 1;
     const rest = this.pending.slice(layout.preamble.dataOffset);
     this.pending = '';
@@ -111,16 +117,34 @@ export class SurveyImporter {
       this.remainder = text;
       return;
     }
-    this.chunkText = text;
-    this.chunkCursor = 0;
-    const result = (this.parser as Papa.Parser).parse(text, 0, !final) as { meta: { cursor: number } };
-    this.remainder = final ? '' : text.slice(result.meta.cursor);
+    this.remainder = text.slice(this.parse(text, true));
+    if (final && this.remainder !== '') {
+      this.parse(this.remainder, false);
+      this.remainder = '';
+    }
     this.stalled = this.remainder.length > stalledQuoteLength && this.remainder.includes('"');
-    this.chunkText = '';
   }
 
-  private row(results: StepResults): void {
-    const context = this.context as RowContext;
+  /** Parse complete rows (all rows when `ignoreLastRow` is false); returns the cursor after the last one. */
+  private parse(text: string, ignoreLastRow: boolean): number {
+    if (text.indexOf('"') !== -1) {
+      this.chunkText = text;
+      this.chunkCursor = 0;
+      const cursor = (this.stepParser as Papa.Parser).parse(text, 0, ignoreLastRow).meta.cursor as number;
+      this.chunkText = '';
+      return cursor;
+    }
+    // No quotes: papaparse's fast mode splits on line breaks, so each row is one physical line.
+    const result = (this.bulkParser as Papa.Parser).parse(text, 0, ignoreLastRow) as { data: string[][]; meta: { cursor: number } };
+    for (const cells of result.data) {
+      this.take(cells, this.line, false, this.line);
+      this.line += 1;
+    }
+    return result.meta.cursor;
+  }
+
+  /** A row from the step parser: count the line breaks it spans to keep physical line numbers. */
+  private stepRow(results: StepResults): void {
     const cells = results.data[0] ?? [];
     const cursor = results.meta.cursor;
     const text = this.chunkText;
@@ -128,26 +152,47 @@ export class SurveyImporter {
     const first = this.line;
     let breaks = 0;
     for (let at = text.indexOf(newline, this.chunkCursor); at !== -1 && at < cursor; at = text.indexOf(newline, at + 1)) breaks += 1;
-    const span = cursor - this.chunkCursor;
+    const empty = cursor === this.chunkCursor;
     this.chunkCursor = cursor;
     this.line += breaks;
-    if (cells.every((cell) => cell.trim() === '')) {
-      if (span > 0) context.collector.blankLines += 1;
+    if (empty) return;
+    const unclosed = results.errors.length > 0 && hasUnclosedQuote(results.errors);
+    this.take(cells, first, unclosed, first + breaks - (text[cursor - 1] === newline ? 1 : 0));
+  }
+
+  private take(cells: readonly string[], line: number, unclosedQuote: boolean, lastLine: number): void {
+    const context = this.context as RowContext;
+    if (isBlank(cells)) {
+      context.collector.blankLines += 1;
       return;
     }
-    const unclosed = results.errors.find((e) => e.code === 'MissingQuotes');
-    if (unclosed) {
-      const last = first + breaks - (text[cursor - 1] === newline ? 1 : 0);
+    if (unclosedQuote) {
       context.collector.unassigned.push({
-        line: first, column: null, value: null, code: 'ROW_UNCLOSED_QUOTE',
-        reason: `a quoted field opened on line ${first} is never closed, so lines ${first}–${last} read as one row and are not used. Remove the stray " or close the quote.`,
+        line, column: null, value: null, code: 'ROW_UNCLOSED_QUOTE',
+        reason: `a quoted field opened on line ${line} is never closed, so lines ${line}–${lastLine} read as one row and are not used. Remove the stray " or close the quote.`,
       });
       return;
     }
-    if ((cells[0] ?? '').trimStart().startsWith('#')) {
-      context.collector.unassigned.push({ line: first, column: null, value: null, code: 'ROW_COMMENTED', reason: 'the row is commented out with "#"; not used. Remove the "#" to use it.' });
+    if (isCommented(cells[0] ?? '')) {
+      context.collector.unassigned.push({ line, column: null, value: null, code: 'ROW_COMMENTED', reason: 'the row is commented out with "#"; not used. Remove the "#" to use it.' });
       return;
     }
-    readRow(cells, first, context);
+    readRow(cells, line, context);
   }
+}
+
+/** True when every cell is empty or white space (a blank line, or one of only delimiters). */
+function isBlank(cells: readonly string[]): boolean {
+  for (const cell of cells) if (cell.length > 0 && (cell.charCodeAt(0) > 32 || cell.trim() !== '')) return false;
+  return true;
+}
+
+function isCommented(firstCell: string): boolean {
+  const code = firstCell.charCodeAt(0);
+  return code === 35 || (code <= 32 && firstCell.trimStart().startsWith('#'));
+}
+
+function hasUnclosedQuote(errors: StepResults['errors']): boolean {
+  for (const error of errors) if (error.code === 'MissingQuotes') return true;
+  return false;
 }
