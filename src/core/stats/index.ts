@@ -1,0 +1,12 @@
+export { akaikeWeights } from './akaike-weights';
+export { correlationMatrix } from './correlation-matrix';
+export { deltaMethodVariance } from './delta-method-variance';
+export { identifiability, type Identifiability } from './identifiability';
+export { chiSquareCriteria, leastSquaresCriteria, type InformationCriteria } from './information-criteria';
+export { leastSquaresCovariance, type CovarianceResult } from './least-squares-covariance';
+export { logGamma } from './log-gamma';
+export { parameterIntervals, type ParameterIntervals } from './parameter-intervals';
+export { regularizedIncompleteBeta } from './regularized-incomplete-beta';
+export { singularValues, type SingularValues } from './singular-value-decomposition';
+export { studentTCdf, studentTDensity } from './student-t-cdf';
+export { studentTQuantile } from './student-t-quantile';
