@@ -1,0 +1,111 @@
+import { isRingfallError } from '../core/errors';
+import type { Report, SurveyReport } from '../core/report/report';
+import type { RejectedRow, Survey } from '../core/survey/survey';
+import { detectSurveyLayout, importSurveys, type ColumnMapping, type Detection, type ImportCounts } from '../io';
+import { fitStage, parameterUnit } from './fit-stage';
+import { parseFitSettings, type FitSettings, type SettingError } from './fit-settings';
+
+/** One file handed to the pipeline, with the user's hand-made column mapping if any. */
+export interface PipelineFile {
+  readonly id: string;
+  readonly name: string;
+  readonly text: string;
+  readonly mapping?: readonly ColumnMapping[];
+  readonly fieldUnit?: string;
+  readonly distanceUnit?: string;
+}
+
+/** What became of one file: its detection, row counts and problems, or its error. */
+export interface FileOutcome {
+  readonly id: string;
+  readonly name: string;
+  /** The importer's file-level error (code and message), or null. */
+  readonly error: { readonly code: string; readonly message: string } | null;
+  /** How the file was read (also after a column error, when the header could be read). */
+  readonly detection: Detection | null;
+  readonly counts: ImportCounts | null;
+  /** Surveys found: coil, date and rows used. */
+  readonly surveys: readonly { readonly coil: string | null; readonly date: string | null; readonly used: number; readonly rejected: number }[];
+  /** Coil/date groups with too few usable rows, with the reason. */
+  readonly skipped: readonly { readonly coil: string | null; readonly date: string | null; readonly reason: string }[];
+  /** Every row not used (survey rows set aside, skipped groups, unassigned rows), first `rowsListed`. */
+  readonly rowsNotUsed: readonly RejectedRow[];
+  readonly rowsNotUsedTotal: number;
+}
+
+export interface PipelineOutcome {
+  readonly files: readonly FileOutcome[];
+  readonly report: Report;
+  readonly settingErrors: readonly SettingError[];
+}
+
+/** Progress of a run: `done` of `total` steps of the named stage. */
+export interface PipelineProgress {
+  readonly stage: 'import' | 'fit';
+  readonly done: number;
+  readonly total: number;
+  readonly label: string;
+}
+
+/** Rows not used listed per file in the page (all are counted). */
+export const rowsListed = 500;
+
+/**
+ * Import every file (a bad file becomes an error on that file; the others go on), then
+ * fit every survey with the settings and build the Report. Pure: no DOM; runs in the
+ * Web Worker (and in Node for tests).
+ */
+export function runPipeline(files: readonly PipelineFile[], settings: FitSettings, progress: (p: PipelineProgress) => void = () => {}): PipelineOutcome {
+  const { parsed, errors } = parseFitSettings(settings, parameterUnit);
+  const outcomes: FileOutcome[] = [];
+  const surveys: Survey[] = [];
+  files.forEach((file, index) => {
+    progress({ stage: 'import', done: index, total: files.length, label: `reading ${file.name}` });
+    const options = {
+      source: file.name,
+      ...(file.mapping ? { mapping: file.mapping } : {}),
+      ...(file.fieldUnit ? { fieldUnit: file.fieldUnit } : {}),
+      ...(file.distanceUnit ? { distanceUnit: file.distanceUnit } : {}),
+    };
+    try {
+      const result = importSurveys(file.text, options);
+      surveys.push(...result.surveys);
+      const rows = [
+        ...result.surveys.flatMap((s) => s.rejected),
+        ...result.skipped.flatMap((s) => [...s.survey.rejected, ...s.survey.readings.map((r) => ({ line: r.line, column: null, value: null, reason: s.reason }))]),
+        ...result.unassigned,
+      ].sort((a, b) => a.line - b.line);
+      outcomes.push({
+        id: file.id, name: file.name, error: null, detection: result.detection, counts: result.counts,
+        surveys: result.surveys.map((s) => ({ coil: s.coil, date: s.date, used: s.readings.length, rejected: s.rejected.length })),
+        skipped: result.skipped.map((s) => ({ coil: s.survey.coil, date: s.survey.date, reason: s.reason })),
+        rowsNotUsed: rows.slice(0, rowsListed), rowsNotUsedTotal: rows.length,
+      });
+    } catch (error) {
+      if (!isRingfallError(error)) throw error;
+      outcomes.push({
+        id: file.id, name: file.name, error: { code: error.code, message: error.message }, detection: layoutOf(file.text, options),
+        counts: null, surveys: [], skipped: [], rowsNotUsed: [], rowsNotUsedTotal: 0,
+      });
+    }
+  });
+  const reports: SurveyReport[] = [];
+  if (errors.length === 0) {
+    surveys.forEach((survey, index) => {
+      progress({ stage: 'fit', done: index, total: surveys.length, label: `fitting ${survey.coil ?? survey.source}` });
+      reports.push(fitStage(survey, parsed, settings));
+    });
+  }
+  progress({ stage: 'fit', done: surveys.length, total: surveys.length, label: 'done' });
+  return { files: outcomes, report: { surveys: reports }, settingErrors: errors };
+}
+
+/** The detection of a file whose import failed, when its header can still be read. */
+function layoutOf(text: string, options: Parameters<typeof detectSurveyLayout>[1]): Detection | null {
+  try {
+    return detectSurveyLayout(text.slice(0, 65_536), options).detection;
+  } catch (error) {
+    if (isRingfallError(error)) return null;
+    throw error;
+  }
+}

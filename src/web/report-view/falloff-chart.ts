@@ -1,0 +1,126 @@
+import type { ChartDataset } from 'chart.js';
+import { confidenceBand, fittedCurve, logSpacedDistances } from '../../core/report/curves';
+import type { SurveyReport } from '../../core/report/report';
+import { formatQuantity } from '../../core/units';
+import {
+  baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
+  type ChartSpec, type LegendItem,
+} from './chart-spec';
+import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
+import { rankedFits, readingsFit, type ModelLookup } from './survey-facts';
+
+type Point = { x: number; y: number | null };
+const curveSamples = 160;
+
+/**
+ * Falloff chart on log–log axes: on-axis readings with ±1σ error bars (σ as used by the
+ * fit), off-axis readings marked apart, each converged model's on-axis curve, the best
+ * model's 95 % confidence band, and the threshold levels with their distances.
+ * Null when the survey has no fit or no reading at a positive distance.
+ */
+export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSpec | null {
+  const reference = readingsFit(survey);
+  if (!reference) return null;
+  const readings = reference.points;
+  const positive = readings.filter((p) => p.distance > 0 && p.field > 0);
+  if (positive.length === 0) return null;
+  const notes: string[] = [];
+
+  const field = fieldUnitFor(Math.max(...positive.map((p) => p.field)));
+  const length = distanceUnitFor(Math.max(...positive.map((p) => p.distance)));
+  let xMin = Math.min(...positive.map((p) => p.distance));
+  let xMax = Math.max(...positive.map((p) => p.distance));
+  for (const t of survey.thresholds) {
+    for (const d of [t.distance?.value, t.naive?.distance?.value]) {
+      if (d !== undefined && d > 0 && d < xMax * 20) xMax = Math.max(xMax, d);
+    }
+  }
+  xMin /= 1.15;
+  xMax *= 1.15;
+  let yMin = Math.min(...positive.map((p) => p.field), ...survey.thresholds.map((t) => t.level.value)) / 2;
+  const yMax = Math.max(...positive.map((p) => p.field)) * 1.6;
+  yMin = Math.max(yMin, yMax * 1e-6);
+  const X = (d: number) => d / length.factor;
+  const Y = (b: number): number | null => (b > 0 ? b / field.factor : null);
+
+  const datasets: ChartDataset<'scatter', Point[]>[] = [];
+  const legend: LegendItem[] = [];
+
+  const onAxis = positive.filter((p) => p.radial === 0);
+  const offAxis = positive.filter((p) => p.radial !== 0);
+  const drawn = sampleIndices(onAxis.length, drawnReadingsLimit).map((i) => onAxis[i]!);
+  if (drawn.length < onAxis.length) notes.push(`${drawn.length} of ${onAxis.length} on-axis readings are drawn (an even sample); every reading was fitted.`);
+  const bars: Point[] = [];
+  for (const p of drawn) {
+    if (p.standardUncertainty === null || !(p.standardUncertainty > 0)) continue;
+    bars.push({ x: X(p.distance), y: Y(Math.max(p.field - p.standardUncertainty, yMin)) }, { x: X(p.distance), y: Y(p.field + p.standardUncertainty) }, { x: X(p.distance), y: null });
+  }
+  datasets.push({ label: 'readings', data: drawn.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.readings, borderColor: palette.readings, pointRadius: 2.5, order: 0 });
+  legend.push({ label: 'readings on axis', colour: palette.readings, shape: 'point' });
+  if (bars.length > 0) {
+    datasets.push({ label: '±1σ', data: bars, showLine: true, spanGaps: false, borderColor: withAlpha(palette.readings, 0.55), borderWidth: 1, pointRadius: 0, order: 1 });
+    legend.push({ label: '±1 standard uncertainty', colour: withAlpha(palette.readings, 0.55), shape: 'line' });
+  }
+  if (offAxis.length > 0) {
+    const sample = sampleIndices(offAxis.length, drawnReadingsLimit).map((i) => offAxis[i]!);
+    datasets.push({ label: 'off-axis readings', data: sample.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.offAxis, borderColor: palette.offAxis, pointStyle: 'triangle', pointRadius: 3.5, order: 0 });
+    legend.push({ label: 'readings off axis (curves are on axis; see residuals)', colour: palette.offAxis, shape: 'triangle' });
+  }
+  const skipped = readings.length - positive.length;
+  if (skipped > 0) notes.push(`${skipped} reading(s) at zero distance or with a field ≤ 0 cannot sit on log axes; the residuals chart shows them.`);
+
+  const distances = logSpacedDistances(xMin, xMax, curveSamples);
+  const ranked = rankedFits(survey).filter((fit) => fit.converged);
+  for (const fit of ranked) {
+    const model = lookup(fit.model);
+    if (!model) continue;
+    const curve = fittedCurve(model, fit, distances);
+    const colour = modelColour(fit.model);
+    const best = fit.model === survey.best;
+    if (best) {
+      const band = confidenceBand(model, fit, distances);
+      if (band) {
+        const bandColour = withAlpha(colour, 0.18);
+        datasets.push({ label: `${fit.model} 95% band (lower)`, data: Array.from(distances, (d, i) => ({ x: X(d), y: Y(Math.max(band.lower[i]!, yMin)) })), showLine: true, pointRadius: 0, borderWidth: 0, borderColor: bandColour, backgroundColor: bandColour, order: 3 });
+        datasets.push({ label: `${fit.model} 95% band`, data: Array.from(distances, (d, i) => ({ x: X(d), y: Y(band.upper[i]!) })), showLine: true, pointRadius: 0, borderWidth: 0, borderColor: bandColour, backgroundColor: bandColour, fill: '-1', order: 3 });
+        legend.push({ label: `${fit.model}: 95% confidence band of the curve`, colour: bandColour, shape: 'band' });
+      }
+    }
+    datasets.push({
+      label: fit.model, data: Array.from(distances, (d, i) => ({ x: X(d), y: Y(curve[i]!) })), showLine: true, pointRadius: 0,
+      borderColor: colour, borderWidth: best ? 2.5 : 1.5, ...(isPowerLaw(fit.model) ? { borderDash: [6, 4] } : {}), order: 2,
+    });
+    legend.push({ label: `${fit.model}${best ? ' (best)' : ''}`, colour, shape: isPowerLaw(fit.model) ? 'dashed' : 'line' });
+  }
+
+  survey.thresholds.forEach((t, index) => {
+    const level = Y(t.level.value);
+    if (level === null) return;
+    const name = formatQuantity(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` ${t.level.label}` : '');
+    datasets.push({ label: `level ${name}`, data: [{ x: X(xMin), y: level }, { x: X(xMax), y: level }], showLine: true, pointRadius: 0, borderColor: palette.threshold, borderWidth: 1, borderDash: [2, 3], order: 4 });
+    if (t.distance && t.distance.value > 0) {
+      datasets.push({ label: `${t.model} reaches ${name}`, data: [{ x: X(t.distance.value), y: Y(yMin) }, { x: X(t.distance.value), y: level }], showLine: true, pointRadius: [0, 4], pointStyle: 'rectRot', borderColor: palette.threshold, backgroundColor: palette.threshold, borderWidth: 1.5, order: 4 });
+    }
+    if (t.naive?.distance && t.naive.distance.value > 0) {
+      datasets.push({ label: `${t.naive.model} reaches ${name}`, data: [{ x: X(t.naive.distance.value), y: Y(yMin) }, { x: X(t.naive.distance.value), y: level }], showLine: true, pointRadius: [0, 4], pointStyle: 'crossRot', borderColor: withAlpha(palette.thresholdNaive, 0.6), borderWidth: 1.5, borderDash: [5, 3], order: 4 });
+    }
+    if (index === 0) {
+      legend.push({ label: 'threshold level; solid drop: where the best physical model falls below it', colour: palette.threshold, shape: 'line' });
+      legend.push({ label: 'dashed drop: where the naive power law says it does', colour: withAlpha(palette.thresholdNaive, 0.6), shape: 'dashed' });
+    }
+  });
+
+  const options = baseOptions();
+  options.scales = {
+    x: { type: 'logarithmic', min: X(xMin), max: X(xMax), title: { display: true, text: `distance from datum (${length.symbol}), log scale` }, grid: { color: palette.grid } },
+    y: { type: 'logarithmic', min: yMin / field.factor, max: yMax / field.factor, title: { display: true, text: `field |B| (${field.symbol}), log scale` }, grid: { color: palette.grid } },
+  } as NonNullable<typeof options.scales>;
+  return {
+    config: { type: 'scatter', data: { datasets }, options },
+    width: 760,
+    height: 420,
+    description: `Field against distance on log–log axes: ${readings.length} readings and ${ranked.length} fitted model curves.`,
+    legend,
+    notes,
+  };
+}

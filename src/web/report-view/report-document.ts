@@ -1,0 +1,66 @@
+import type { Report } from '../../core/report/report';
+import { drawChartsSource } from './figure';
+import { renderFleetSection } from './fleet-section';
+import { html, trusted, type SafeHtml } from './html';
+import { reportStyles } from './report-styles';
+import { renderSurveySection } from './survey-section';
+import type { ModelLookup } from './survey-facts';
+
+/** Element id of survey `index` in a rendered report. */
+export function surveyElementId(index: number): string {
+  return `rf-survey-${index + 1}`;
+}
+
+/**
+ * The report body (fleet overview when there are several surveys, then every survey)
+ * as HTML. Used by the web page and by `renderReportDocument`.
+ */
+export function renderReportBody(report: Report, lookup: ModelLookup): SafeHtml {
+  const ids = report.surveys.map((_, i) => surveyElementId(i));
+  return html`<div class="rf-report">
+${report.surveys.length > 1 ? renderFleetSection(report, ids) : ''}
+${report.surveys.map((survey, i) => renderSurveySection(survey, lookup, ids[i]!))}
+${report.surveys.length === 0 ? html`<p class="rf-empty">The report holds no survey.</p>` : ''}
+</div>`;
+}
+
+/** Options of a self-contained report file. */
+export interface ReportDocumentOptions {
+  /** Chart.js UMD bundle source (chart.umd.js), inlined so the file needs no network. */
+  readonly chartLibrary: string;
+  /** Page title; default "ringfall report". */
+  readonly title?: string;
+  /** One line under the title, e.g. "made by ringfall 0.1.0 from 3 files". */
+  readonly subtitle?: string;
+}
+
+/**
+ * One self-contained HTML file with the same view as the web page: inline CSS, the
+ * Chart.js bundle and chart data inline, the field map as inline SVG, and a Content
+ * Security Policy that forbids every outside request. Opens offline from disk and
+ * prints to PDF cleanly. Text from survey files is escaped.
+ */
+export function renderReportDocument(report: Report, lookup: ModelLookup, options: ReportDocumentOptions): string {
+  const title = options.title ?? 'ringfall report';
+  // "</script" inside the library would end the element early; "<\/" means the same in JS.
+  const library = options.chartLibrary.replace(/<\/(script)/gi, '<\\/$1');
+  const page: SafeHtml = html`<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>${title}</title>
+<style>body { margin: 0 auto; padding: 1rem; max-width: 820px; background: #f6f5f0; } @media print { body { background: #fff; padding: 0; } }${trusted(reportStyles)}</style>
+</head>
+<body>
+<header class="rf-report rf-doc-head"><h1>${title}</h1>${options.subtitle ? html`<p>${options.subtitle}</p>` : ''}</header>
+${renderReportBody(report, lookup)}
+<script>${trusted(library)}</script>
+<script>${trusted(drawChartsSource)}
+window.addEventListener('beforeprint', function () { document.querySelectorAll('details').forEach(function (d) { d.open = true; }); });</script>
+</body>
+</html>
+`;
+  return page.value;
+}

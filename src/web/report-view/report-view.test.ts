@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest';
+import { escapeHtml, html, inlineJson } from './html';
+import { renderReportDocument, renderSurveySection } from './index';
+import { fabricatedReport, standInLookup } from './testing-fixture';
+import { decimalYear } from './fleet-section';
+import { niceTicks } from './nice-ticks';
+
+const attack = '<img src=x onerror=alert(1)>';
+
+describe('report view', () => {
+  it('escapeHtml() turns the five HTML-special characters into entities (OWASP XSS rule #1)', () => {
+    expect(escapeHtml(`<a href="x">'&'</a>`)).toBe('&lt;a href=&quot;x&quot;&gt;&#39;&amp;&#39;&lt;/a&gt;');
+  });
+
+  it('html`` escapes interpolated text but keeps nested html`` markup', () => {
+    expect(html`<td>${attack}</td>${html`<b>ok</b>`}`.value).toBe('<td>&lt;img src=x onerror=alert(1)&gt;</td><b>ok</b>');
+  });
+
+  it('inlineJson() cannot close its script element', () => {
+    const text = inlineJson({ coil: '</script><script>alert(1)</script>' }).value;
+    expect(text).not.toContain('</script');
+    expect(JSON.parse(text)).toEqual({ coil: '</script><script>alert(1)</script>' });
+  });
+
+  it('renderSurveySection() shows a coil id of markup as text, everywhere it appears', () => {
+    const markup = renderSurveySection(fabricatedReport(attack), standInLookup, 'rf-survey-1').value;
+    expect(markup).not.toContain('<img');
+    expect(markup).toContain('&lt;img src=x onerror=alert(1)&gt;');
+    // the rejected cell "<b>x</b>" of the fixture is text too
+    expect(markup).not.toContain('<b>x</b>');
+  });
+
+  it('renderSurveySection() shows the fitted ampere-turns with their interval', () => {
+    const markup = renderSurveySection(fabricatedReport('HX-2'), standInLookup, 'rf-survey-1').value;
+    // fixture: 120 A ± 2 × 1.2 A
+    expect(markup).toMatch(/data-param="ampereTurns"><th scope="row">ampereTurns<\/th><td class="rf-num">120.0 A<\/td><td class="rf-num">117.6 to 122.4 A/);
+  });
+
+  it('renderReportDocument() is self-contained: inline library, CSP forbidding outside requests, no src/href to elsewhere', () => {
+    const doc = renderReportDocument({ surveys: [fabricatedReport('A'), { ...fabricatedReport('A'), date: '2025-03-14' }] }, standInLookup, { chartLibrary: 'window.Chart = function () {}; "</script>";' });
+    expect(doc).toContain(`default-src 'none'`);
+    expect(doc).not.toMatch(/\s(src|href)="(?!#)/);
+    expect(doc).toContain('window.Chart = function () {}; "<\\/script>";');
+    // two surveys × (falloff, residuals) + the fleet history chart of coil A
+    expect(doc.match(/<canvas /g)?.length).toBe(5);
+    expect(doc).toContain('History: ampere-turns of each coil over time');
+  });
+
+  it('decimalYear() puts 2 July 2026 at the middle of the year', () => {
+    // 2026 has 365 days; noon of day 183 (2 July) is 182.5 days in → 2026 + 182.5/365
+    expect(decimalYear('2026-07-02')).toBeCloseTo(2026.5, 12);
+    expect(decimalYear('not a date')).toBeNull();
+  });
+
+  it('niceTicks(0, 100, 5) gives steps of 20', () => {
+    // Heckbert's nice numbers: rough step 20 → 2×10¹
+    expect(niceTicks(0, 100, 5)).toEqual([0, 20, 40, 60, 80, 100]);
+    expect(niceTicks(-0.05, 0.05, 4)).toEqual([-0.04, -0.02, 0, 0.02, 0.04]);
+  });
+});

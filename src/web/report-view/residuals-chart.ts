@@ -1,0 +1,64 @@
+import type { ChartDataset } from 'chart.js';
+import type { FitResult } from '../../core/fit/fit-result';
+import type { SurveyReport } from '../../core/report/report';
+import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
+import { modelColour, palette } from './palette';
+import { bestFit, bestPowerLaw } from './survey-facts';
+
+/**
+ * Residuals chart: each reading's residual y − f divided by its standard uncertainty
+ * (or by the fit's RMS residual when none was stated), against distance, for the best
+ * model and the best power law. Systematic runs show where a model bends the wrong
+ * way; |value| > 2 marks readings worth a second look. Null when there is no best fit.
+ */
+export function residualsChart(survey: SurveyReport): ChartSpec | null {
+  const best = bestFit(survey);
+  if (!best) return null;
+  const fits: FitResult[] = [best];
+  const powerLaw = bestPowerLaw(survey);
+  if (powerLaw && powerLaw.model !== best.model) fits.push(powerLaw);
+  const notes: string[] = [];
+  const length = distanceUnitFor(Math.max(...best.points.map((p) => p.distance)));
+  const logAxis = best.points.every((p) => p.distance > 0);
+  const stated = best.points.some((p) => p.standardUncertainty !== null && p.standardUncertainty > 0);
+  const datasets: ChartDataset<'scatter', { x: number; y: number }[]>[] = [];
+  const legend: LegendItem[] = [];
+  let extreme = 3;
+  for (const fit of fits) {
+    const indices = sampleIndices(fit.points.length, drawnReadingsLimit);
+    if (indices.length < fit.points.length) notes.push(`${fit.model}: ${indices.length} of ${fit.points.length} residuals drawn (an even sample).`);
+    const data = indices.map((i) => {
+      const p = fit.points[i]!;
+      const scale = p.standardUncertainty !== null && p.standardUncertainty > 0 ? p.standardUncertainty : fit.stats.rmse;
+      const y = scale > 0 ? p.residual / scale : 0;
+      extreme = Math.max(extreme, Math.abs(y));
+      return { x: p.distance / length.factor, y };
+    });
+    const colour = modelColour(fit.model);
+    datasets.push({ label: fit.model, data, backgroundColor: colour, borderColor: colour, pointRadius: 2.5, pointStyle: fit === best ? 'circle' : 'rect' });
+    legend.push({ label: `${fit.model}${fit === best ? ' (best)' : ' (best power law)'}`, colour, shape: 'point' });
+  }
+  const xs = datasets.flatMap((d) => d.data.map((p) => p.x));
+  const xMin = Math.min(...xs) / (logAxis ? 1.15 : 1);
+  const xMax = Math.max(...xs) * 1.05;
+  const guide = (y: number, dash: number[]): ChartDataset<'scatter', { x: number; y: number }[]> => ({
+    label: y === 0 ? 'zero' : `${y > 0 ? '+' : '−'}2`, data: [{ x: xMin, y }, { x: xMax, y }], showLine: true, pointRadius: 0,
+    borderColor: palette.zero, borderWidth: 1, borderDash: dash,
+  });
+  datasets.push(guide(0, []), guide(2, [2, 3]), guide(-2, [2, 3]));
+  const limit = Math.min(Math.ceil(extreme * 1.1), 50);
+  if (extreme > 50) notes.push('Some residuals lie beyond ±50 and are clipped at the chart edge.');
+  const options = baseOptions();
+  options.scales = {
+    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum (${length.symbol})${logAxis ? ', log scale' : ''}` }, grid: { color: palette.grid } },
+    y: { type: 'linear', min: -limit, max: limit, title: { display: true, text: stated ? 'residual ÷ standard uncertainty' : 'residual ÷ RMS residual' }, grid: { color: palette.grid } },
+  } as NonNullable<typeof options.scales>;
+  return {
+    config: { type: 'scatter', data: { datasets }, options },
+    width: 760,
+    height: 280,
+    description: `Residuals of ${fits.map((f) => f.model).join(' and ')} against distance, scaled by the reading uncertainty.`,
+    legend,
+    notes,
+  };
+}

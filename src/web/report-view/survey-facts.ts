@@ -1,0 +1,36 @@
+import type { FitResult } from '../../core/fit/fit-result';
+import type { FieldModel, ModelId } from '../../core/models/field-model';
+import type { SurveyReport } from '../../core/report/report';
+
+/** Finds the FieldModel for a catalog id (the core catalog's getModel, or a stand-in in tests). */
+export type ModelLookup = (id: ModelId) => FieldModel | undefined;
+
+/** The fit the report names best, or null. */
+export function bestFit(survey: SurveyReport): FitResult | null {
+  return survey.fits.find((fit) => fit.model === survey.best) ?? null;
+}
+
+/** The fit whose per-reading points describe the survey's readings: the best, else the first. */
+export function readingsFit(survey: SurveyReport): FitResult | null {
+  return bestFit(survey) ?? survey.fits[0] ?? null;
+}
+
+/** Models that are rotationally symmetric about the coil axis (field map is meaningful). */
+const axisymmetric: ReadonlySet<ModelId> = new Set<ModelId>(['loop', 'thick-coil', 'solenoid', 'coil-pair', 'dipole']);
+
+/** True when the model's field is rotationally symmetric about the coil axis. */
+export function isAxisymmetric(model: ModelId): boolean {
+  return axisymmetric.has(model);
+}
+
+/** Converged fits ranked by AICc (lowest first), non-converged ones after them in report order. */
+export function rankedFits(survey: SurveyReport): FitResult[] {
+  const converged = survey.fits.filter((fit) => fit.converged && Number.isFinite(fit.stats.aicc));
+  converged.sort((a, b) => a.stats.aicc - b.stats.aicc);
+  return [...converged, ...survey.fits.filter((fit) => !converged.includes(fit))];
+}
+
+/** Best-ranked power law (power-law, inverse-square, inverse-cube) among converged fits, or null. */
+export function bestPowerLaw(survey: SurveyReport): FitResult | null {
+  return rankedFits(survey).find((fit) => fit.converged && ['power-law', 'inverse-square', 'inverse-cube'].includes(fit.model)) ?? null;
+}

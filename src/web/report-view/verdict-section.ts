@@ -1,0 +1,52 @@
+import type { SpecCheck, ThresholdResult, Verdict } from '../../core/report/report';
+import { formatNumber, formatQuantity } from '../../core/units';
+import { html, type SafeHtml } from './html';
+
+const statusWords: Readonly<Record<SpecCheck['status'], string>> = {
+  pass: 'meets the spec',
+  fail: 'does not meet the spec',
+  inconclusive: 'cannot be decided from these readings',
+};
+
+/** The spec verdict: status in words, findings, each check with its evidence sentence. */
+export function verdictSection(verdict: Verdict): SafeHtml {
+  return html`<section class="${`rf-block rf-verdict rf-status-${verdict.status}`}"><h3>Verdict: <span class="rf-status">${verdict.status}</span> — the coil ${statusWords[verdict.status]}</h3>
+${verdict.findings.length > 0 ? html`<p class="rf-findings">Findings: ${verdict.findings.map((f, i) => html`${i > 0 ? ', ' : ''}<strong>${f}</strong>`)}</p>` : ''}
+${verdict.explanations.map((sentence) => html`<p>${sentence}</p>`)}
+${verdict.checks.length > 0 ? html`<table class="rf-table"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th><th scope="col">evidence</th></tr></thead>
+<tbody>${verdict.checks.map((check) => html`<tr class="${`rf-status-${check.status}`}"><th scope="row">${check.what}</th><td><span class="rf-status">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? ` (${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)})` : ''}</td><td>${check.evidence}</td></tr>`)}</tbody></table>` : ''}
+</section>`;
+}
+
+function tolerance(check: SpecCheck): string {
+  const parts: string[] = [];
+  if (check.tolerance.relative > 0) parts.push(`${formatNumber(check.tolerance.relative * 100, 3)}%`);
+  if (check.tolerance.absolute > 0) parts.push(quantity(check.tolerance.absolute, check.expected.unit));
+  return parts.length > 0 ? ` ± ${parts.join(' + ')}` : '';
+}
+
+/** An SI value in a sensible display unit when its unit is T or m; as given otherwise. */
+export function quantity(value: number, unit: string): string {
+  if (unit === 'T') return formatQuantity(value, 'field', { significant: 4 });
+  if (unit === 'm') return formatQuantity(value, 'length', { significant: 4, unit: { symbol: 'mm', factor: 1e-3 } });
+  if (unit === 'A') return formatQuantity(value, 'current', { significant: 4 });
+  return `${formatNumber(value, 4)}${unit && unit !== '1' ? ' ' + unit : ''}`;
+}
+
+/**
+ * Threshold distances: per level the best physical model's distance with its 95 %
+ * interval, the naive power law's distance and the ratio between them, and the notes.
+ */
+export function thresholdSection(thresholds: readonly ThresholdResult[]): SafeHtml {
+  const mm = (value: number) => quantity(value, 'm');
+  return html`<section class="rf-block rf-thresholds"><h3>Where the field falls below a level</h3>
+<p class="rf-sub">On the coil axis, distance from the survey's datum, for the reading's detector type.</p>
+<table class="rf-table"><thead><tr><th scope="col">level</th><th scope="col">model</th><th scope="col">distance (95% interval)</th><th scope="col">naive power law</th><th scope="col">naive ÷ model</th></tr></thead>
+<tbody>${thresholds.map((t) => {
+    const distance = t.distance;
+    const naive = t.naive?.distance ?? null;
+    return html`<tr><th scope="row">${formatQuantity(t.level.value, 'field', { significant: 3 })}${t.level.label ? html`<br><span class="rf-sub">${t.level.label}</span>` : ''}</th><td>${t.model}</td><td class="rf-num">${distance ? mm(distance.value) : 'not reached'}${distance?.ci95 ? ` (${mm(distance.ci95[0])} to ${mm(distance.ci95[1])})` : ''}${t.extrapolated ? html` <span class="rf-flag">beyond the surveyed range</span>` : ''}</td><td class="rf-num">${naive ? `${mm(naive.value)} (${t.naive?.model ?? ''})` : '—'}</td><td class="rf-num">${distance && naive && distance.value > 0 ? `${formatNumber(naive.value / distance.value, 3)}×` : '—'}</td></tr>`;
+  })}</tbody></table>
+${thresholds.flatMap((t) => t.notes).filter((note, i, all) => all.indexOf(note) === i).map((note) => html`<p class="rf-note">${note}</p>`)}
+</section>`;
+}
