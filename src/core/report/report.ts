@@ -39,6 +39,15 @@ export interface SpecCheck {
   readonly tolerance: { readonly relative: number; readonly absolute: number };
   /** One sentence of evidence, with numbers and units. */
   readonly evidence: string;
+  /** What was compared: a label parameter, a field claim, or the far-field moment derived from the label. */
+  readonly kind?: 'parameter' | 'claim' | 'moment';
+  /**
+   * For an inconclusive check: the measurement that would decide it, in one sentence
+   * (added points and where, or the uncertainty to reach). Absent when decided.
+   */
+  readonly toDecide?: string;
+  /** Claims only: the same point under other curves, side by side (T). */
+  readonly alternatives?: readonly { readonly model: ModelId; readonly value: number; readonly unit: 'T' }[];
 }
 
 export interface Verdict {
@@ -50,15 +59,32 @@ export interface Verdict {
 }
 
 export interface ThresholdResult {
-  readonly level: { readonly value: number; readonly unit: 'T'; readonly label?: string };
+  readonly level: { readonly value: number; readonly unit: 'T'; readonly label?: string; readonly flag?: string };
   readonly model: ModelId;
   readonly distance: { readonly value: number; readonly unit: 'm'; readonly ci95: readonly [number, number] | null } | null;
   readonly extrapolated: boolean;
   readonly naive: {
     readonly model: ModelId;
     readonly distance: { readonly value: number; readonly unit: 'm' } | null;
+    /** naive distance / physical-model distance. */
+    readonly ratio?: number | null;
+    readonly extrapolated?: boolean;
   } | null;
   readonly notes: readonly string[];
+  /** The fitted power law's distance (descriptive baseline) and its ratio to the physical model's. */
+  readonly powerLaw?: {
+    readonly model: ModelId;
+    readonly exponent: number;
+    readonly distance: { readonly value: number; readonly unit: 'm' } | null;
+    readonly ratio: number | null;
+    readonly extrapolated: boolean;
+  } | null;
+  /** How the 95 % interval was obtained: delta method, or Monte Carlo when the curve is strongly nonlinear. */
+  readonly intervalMethod?: 'delta' | 'monte-carlo' | null;
+  /** Surveyed distances as field-point distances from the datum, m. */
+  readonly surveyedRange?: readonly [number, number] | null;
+  /** DOMAIN.md §4.5 cautions that go with every threshold distance. */
+  readonly cautions?: readonly string[];
 }
 
 export interface Report {

@@ -3,6 +3,7 @@ import type { Spec, SpecClaim, SpecParameter } from '../../core/analysis/spec/sp
 import { parseQuantity, parseRelativePlusAbsolute, type QuantityKind, type RelativePlusAbsolute } from '../../core/units';
 import type { ReadingType } from '../../core/survey/survey';
 import { specError, type SpecPlace } from './spec-error';
+import { parseReadingType } from '../import/parse-reading-type';
 
 /** Parameters of a catalog model, or undefined for an unknown id. */
 export type ParameterCatalog = (id: string) => readonly ParameterSpec[] | undefined;
@@ -21,7 +22,6 @@ export interface EntryContext {
 
 const topKeys = ['coil', 'model', 'params', 'tolerance', 'tolerances', 'claims', 'readingType', 'waveform', 'crestFactor', 'note'];
 const claimKeys = ['distance', 'radial', 'field', 'tolerance', 'note'];
-const readingTypes: readonly ReadingType[] = ['dc', 'rms', 'peak'];
 const waveforms: Readonly<Record<string, number>> = { sine: Math.SQRT2, square: 1 };
 
 /**
@@ -119,9 +119,8 @@ function readCoils(value: unknown, place: SpecPlace): string[] | null {
 
 function readReadingType(value: unknown, place: SpecPlace): ReadingType | null {
   if (value === undefined || value === null) return null;
-  const text = typeof value === 'string' ? value.trim().toLowerCase() : '';
-  const type = readingTypes.find((t) => t === text);
-  if (!type) throw specError('SPEC_READING_TYPE', 'Spec readingType', `found ${describe(value)}`, place, 'Use "dc", "rms" or "peak".', value);
+  const type = typeof value === 'string' ? parseReadingType(value) : null;
+  if (!type) throw specError('SPEC_READING_TYPE', 'Spec readingType', `found ${describe(value)}`, place, 'Use "dc", "rms" or "peak" (a bare "ac" does not say which).', value);
   return type;
 }
 

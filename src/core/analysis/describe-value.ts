@@ -1,0 +1,46 @@
+import type { ParameterUnit } from '../models/field-model';
+import { displayUnit, formatNumber, type QuantityKind } from '../units';
+
+/** Quantity kind of a catalog parameter unit, or null for dimensionless ones. */
+export function kindOfUnit(unit: ParameterUnit | 'T' | 'm'): QuantityKind | null {
+  switch (unit) {
+    case 'A': return 'current';
+    case 'm': return 'length';
+    case 'T': return 'field';
+    case 'A·m²': return 'moment';
+    default: return null;
+  }
+}
+
+const friendly: Readonly<Record<string, string>> = {
+  ampereTurns: 'ampere-turns',
+  probeOffset: 'probe offset',
+  innerRadius: 'inner radius',
+  outerRadius: 'outer radius',
+  moment: 'moment',
+};
+
+/** A parameter name as people say it: ampereTurns → "ampere-turns". */
+export function parameterWords(name: string): string {
+  return friendly[name] ?? name;
+}
+
+/**
+ * "96.0 A (92.0–100)" or "44.8 mm (43.9–45.7)": an SI value in a display unit chosen from
+ * the value, its interval in the same unit, three significant digits.
+ */
+export function describeValue(value: number, kind: QuantityKind | null, interval?: readonly [number, number] | null, significant = 3): string {
+  const unit = kind ? displayUnit(value === 0 && interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : value, kind) : { symbol: '', factor: 1 };
+  const show = (x: number) => formatNumber(x / unit.factor, significant);
+  const symbol = unit.symbol ? ` ${unit.symbol}` : '';
+  return `${show(value)}${symbol}` + (interval ? ` (${show(interval[0])}–${show(interval[1])})` : '');
+}
+
+/** "120 A ± 10 %" / "45 mm ± 2 mm" / "1.7 mT ± (5 % + 20 uT)". */
+export function describeTolerance(nominal: number, kind: QuantityKind | null, tolerance: { relative: number; absolute: number }): string {
+  const parts: string[] = [];
+  if (tolerance.relative > 0) parts.push(`${Number((100 * tolerance.relative).toPrecision(3))} %`);
+  if (tolerance.absolute > 0) parts.push(describeValue(tolerance.absolute, kind));
+  const spread = parts.length === 0 ? '0' : parts.length === 1 ? parts[0]! : `(${parts.join(' + ')})`;
+  return `${describeValue(nominal, kind)} ± ${spread}`;
+}

@@ -1,0 +1,108 @@
+import { RingfallError } from '../../errors';
+import { formatQuantity } from '../../units';
+import { parameterRole } from '../parameter-roles';
+import { sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
+import { expectedIntervals, type ExpectedIntervals } from './expected-intervals';
+import { optimalDesign } from './optimal-design';
+
+/** Where the probe can go and how many readings to plan. */
+export interface PlanOptions {
+  /** Number of positions. */
+  readonly count: number;
+  /** Nearest and farthest distance the probe can be placed at, m. */
+  readonly reach: readonly [number, number];
+  /** Probe size: least separation between two positions, m. */
+  readonly probeSize: number;
+  /** Largest radial offset for off-axis positions, m; 0 or omitted: on axis only. */
+  readonly maxRadial?: number;
+  /** Names of the parameters that matter; default the free amplitude, geometry and exponent parameters. */
+  readonly interest?: readonly string[];
+  /** A plan to compare, e.g. the distances the user meant to use. */
+  readonly compare?: readonly DesignPoint[];
+}
+
+/** A recommended plan beside an evenly spaced one of the same size and, if given, the user's. */
+export interface MeasurementPlan {
+  readonly recommended: ExpectedIntervals;
+  readonly evenlySpaced: ExpectedIntervals;
+  readonly compared: ExpectedIntervals | null;
+  /** Names of the parameters the plan was optimised for. */
+  readonly interest: readonly string[];
+  readonly notes: readonly string[];
+}
+
+const axialCandidates = 160;
+const radialSteps = [0.25, 0.5, 0.75, 1, 1.25, 1.5];
+
+/**
+ * Recommend probe positions for a survey of a coil whose rough parameters are known:
+ * a candidate grid over the reach (on axis, and off axis when `maxRadial` > 0), then the
+ * Ds-optimal choice (optimalDesign) for the parameters that matter, with the other free
+ * parameters (probe offset, background) as nuisance. Returns the expected 95 % intervals
+ * of the recommended plan, an evenly spaced plan of the same size, and the user's plan.
+ *
+ * @throws RingfallError PLAN_REACH (reach empty or too short for the count at this probe
+ *   size), PLAN_COUNT (fewer positions than free parameters + 1), PLAN_INTEREST (unknown
+ *   or fixed parameter named)
+ */
+export function planMeasurements(problem: DesignProblem, options: PlanOptions): MeasurementPlan {
+  const [near, far] = options.reach;
+  const k = problem.free.length;
+  const freeNames = problem.free.map((j) => problem.model.parameters[j]!.name);
+  if (!(near >= 0 && far > near)) {
+    throw new RingfallError('PLAN_REACH', `Plan reach: ${formatQuantity(near, 'length')} to ${formatQuantity(far, 'length')} is not a range. Give the nearest and farthest probe distance, e.g. --reach 5mm..200mm.`, { value: options.reach });
+  }
+  if (!Number.isInteger(options.count) || options.count <= k) {
+    throw new RingfallError('PLAN_COUNT', `Plan points: ${options.count} positions for ${k} free parameters (${freeNames.join(', ')}). Plan at least ${k + 1}, better ${2 * k + 2}, or fix parameters.`, { value: options.count });
+  }
+  if ((options.count - 1) * options.probeSize > far - near && !(options.maxRadial! > 0)) {
+    throw new RingfallError('PLAN_REACH', `Plan reach: ${options.count} positions ${formatQuantity(options.probeSize, 'length')} apart do not fit between ${formatQuantity(near, 'length')} and ${formatQuantity(far, 'length')}. Plan fewer points, widen the reach, or give a smaller probe size.`, { value: options.reach });
+  }
+  const interestNames = options.interest ?? freeNames.filter((name) => ['amplitude', 'geometry', 'exponent'].includes(parameterRole(name)));
+  const interest = interestNames.map((name) => {
+    const index = freeNames.indexOf(name);
+    if (index < 0) throw new RingfallError('PLAN_INTEREST', `Plan parameter: "${name}" is not a free parameter of ${problem.model.id} (free: ${freeNames.join(', ')}). Name a free parameter.`, { value: name });
+    return index;
+  });
+
+  const candidates = candidateGrid(problem, options);
+  const rows = sensitivityRows(problem, candidates);
+  const chosen = optimalDesign({
+    rows,
+    k,
+    coordinates: candidates.map((p) => [p.distance, p.radial] as const),
+    count: options.count,
+    spacing: options.probeSize,
+    interest: interest.length > 0 ? interest : [...Array(k).keys()],
+  });
+  const even = Array.from({ length: options.count }, (_, i) => ({ distance: near + ((far - near) * i) / (options.count - 1), radial: 0 }));
+  const notes = [`Noise model per reading: ${formatNumber100(problem.noise.relative)} % of the reading + ${formatQuantity(problem.noise.absolute, 'field')}, and ${formatQuantity(problem.noise.position, 'length')} position uncertainty.`];
+  if (chosen.length < options.count) notes.push(`Only ${chosen.length} positions fit the reach at this probe size.`);
+  return {
+    recommended: expectedIntervals(problem, chosen.map((c) => candidates[c]!)),
+    evenlySpaced: expectedIntervals(problem, even),
+    compared: options.compare ? expectedIntervals(problem, options.compare) : null,
+    interest: interest.length > 0 ? interestNames : freeNames,
+    notes,
+  };
+}
+
+function formatNumber100(fraction: number): string {
+  return String(Math.round(fraction * 1e6) / 1e4);
+}
+
+/** Axial grid (at most 160 points, finer than half a probe size where possible) and, if asked, off-axis rows at fractions of the coil's size. */
+function candidateGrid(problem: DesignProblem, options: PlanOptions): DesignPoint[] {
+  const [near, far] = options.reach;
+  const steps = Math.min(axialCandidates - 1, Math.max(40, Math.ceil((2 * (far - near)) / Math.max(options.probeSize, 1e-9))));
+  const grid: DesignPoint[] = [];
+  for (let i = 0; i <= steps; i += 1) grid.push({ distance: near + ((far - near) * i) / steps, radial: 0 });
+  const maxRadial = options.maxRadial ?? 0;
+  if (maxRadial > 0) {
+    const size = Math.max(...problem.model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? problem.values[j]! : 0)), maxRadial / 2);
+    const radii = radialSteps.map((f) => f * size).filter((r) => r <= maxRadial);
+    const coarse = Math.min(40, steps);
+    for (const radial of radii) for (let i = 0; i <= coarse; i += 1) grid.push({ distance: near + ((far - near) * i) / coarse, radial });
+  }
+  return grid;
+}

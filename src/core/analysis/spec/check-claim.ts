@@ -1,0 +1,74 @@
+import type { ModelId } from '../../models/field-model';
+import type { SpecCheck } from '../../report/report';
+import { formatQuantity, formatNumber } from '../../units';
+import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
+import { decideConformity } from '../decide-conformity';
+import { describeTolerance, describeValue } from '../describe-value';
+import { beyondSurvey, deltaVariance, probeOffsetOf, surveyedFieldRange, type FittedModel } from '../fitted-model';
+import { parameterRole } from '../parameter-roles';
+import type { CheckOutcome } from './check-parameter';
+import { decidingMeasurement } from './deciding-measurement';
+import type { ReadingRelation } from './reading-relation';
+import type { SpecClaim } from './spec';
+
+/**
+ * Check a claimed field at a point against the fitted model: the coil's own field there
+ * (probe offset and background removed) with a 95 % interval by the delta method,
+ * Var(B) ≈ ∇_θBᵀ·C·∇_θB (JCGM 100:2008 §5.1.2), scaled into the label's reading type and
+ * decided by decideConformity. Beside it, what the fitted inverse-square and power-law
+ * curves give at the same point: a claim that only such a curve reproduces was most likely
+ * extrapolated with a power law (DOMAIN.md §1.9).
+ *
+ * @param naive converged descriptive fits of the same survey (inverse-square, power-law)
+ */
+export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[]): CheckOutcome {
+  const model = fitted.point.model;
+  const values = model.physical ? coilOnlyValues(model, fitted.values) : backgroundFree(fitted);
+  const offset = model.physical ? probeOffsetOf(fitted) : 0;
+  const factor = relation.factor;
+  const value = fitted.point.field(values, claim.distance, claim.radial) * factor;
+  const gradient = new Float64Array(values.length);
+  fitted.point.gradient(values, claim.distance, claim.radial, gradient);
+  const mask = model.physical ? coilOnlyMask(model) : model.parameters.map((p) => parameterRole(p.name) === 'background');
+  for (let j = 0; j < gradient.length; j += 1) gradient[j] = mask[j] ? 0 : gradient[j]! * factor;
+  const variance = deltaVariance(fitted, gradient);
+  const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
+  const ci95 = half === null ? null : ([value - half, value + half] as const);
+  const alternatives = naive.flatMap((other) => {
+    const reading = claim.distance - offset;
+    const otherValue = fitted === other ? null : other.point.field(backgroundFree(other), reading, claim.radial) * factor;
+    return otherValue === null || !Number.isFinite(otherValue) ? [] : [{ model: other.fit.model, value: otherValue, unit: 'T' as const }];
+  });
+  const where = `field at ${formatQuantity(claim.distance, 'length', { significant: 3 })}${claim.radial > 0 ? `, ${formatQuantity(claim.radial, 'length', { significant: 3 })} off axis` : ''}`;
+  const base = { what: where, kind: 'claim' as const, expected: { value: claim.field, unit: 'T' }, measured: { value, unit: 'T', ci95 }, tolerance: claim.tolerance, alternatives };
+  const side = value < claim.field ? 'low' : 'high';
+  const claimText = describeTolerance(claim.field, 'field', claim.tolerance);
+  const sideBySide = alternatives.length === 0 ? '' : `; ${alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${describeValue(a.value, 'field')}`).join(', ')}`;
+  const extrapolated = beyondSurvey(claim.distance, surveyedFieldRange(fitted, offset)) ? ' (beyond the surveyed distances: the model extrapolates)' : '';
+  const measuredText = `${describeValue(value, 'field', ci95)} from the ${model.id} fit${extrapolated} vs ${claimText} claimed${sideBySide}`;
+  if (!relation.comparable) {
+    return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}.`, toDecide: relation.note ?? '' }, role: 'claim', side, blocked: 'reading-type', matchesNaive: null };
+  }
+  if (ci95 === null) {
+    return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}; the fit gives no interval.`, toDecide: 'Fit with all coil parameters free so that the fit reports a covariance.' }, role: 'claim', side, blocked: 'undetermined', matchesNaive: null };
+  }
+  const decision = decideConformity(value, ci95, claim.field, claim.tolerance);
+  const matches = alternatives.find((a) => Math.abs(a.value - claim.field) <= decision.upper - claim.field)?.model ?? null;
+  const check: SpecCheck = { ...base, status: decision.status, evidence: `${measuredText}: ${{ pass: 'within', fail: 'outside', inconclusive: 'straddling' }[decision.status]} the tolerance.` };
+  if (decision.status !== 'inconclusive') return { check, role: 'claim', side, blocked: null, matchesNaive: matches };
+  const toDecide = decision.shrinkFactor === 0
+    ? 'The estimate sits on the tolerance limit; no amount of readings can move it off.'
+    : decidingMeasurement(fitted, { gradient, neededHalfWidth: half! * decision.shrinkFactor!, words: `the ${where} interval`, kind: 'field' });
+  return { check: { ...check, toDecide }, role: 'claim', side, blocked: null, matchesNaive: matches };
+}
+
+function backgroundFree(fitted: FittedModel): Float64Array {
+  const values = new Float64Array(fitted.values);
+  fitted.point.model.parameters.forEach((p, j) => { if (parameterRole(p.name) === 'background') values[j] = 0; });
+  return values;
+}
+
+function exponentOf(naive: readonly FittedModel[], model: ModelId): string {
+  const exponent = naive.find((n) => n.fit.model === model)?.fit.params['exponent']?.value;
+  return exponent === undefined ? '' : ` (n = ${formatNumber(exponent, 3)})`;
+}

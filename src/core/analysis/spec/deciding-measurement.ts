@@ -1,0 +1,83 @@
+import { formatQuantity, type QuantityKind } from '../../units';
+import { describeValue } from '../describe-value';
+import type { FittedModel } from '../fitted-model';
+import { noiseFromFit } from '../noise-from-fit';
+import { sensitivityRows } from '../plan/design-problem';
+
+/** The quantity an inconclusive check is about, and how narrow its interval must get. */
+export interface DecisionTarget {
+  /** ∂quantity/∂θ over every model parameter (model order). */
+  readonly gradient: ArrayLike<number>;
+  /** 95 % half-width the interval must shrink to, SI. */
+  readonly neededHalfWidth: number;
+  /** For the sentence: "the radius interval". */
+  readonly words: string;
+  readonly kind: QuantityKind | null;
+}
+
+const candidateCount = 80;
+
+/**
+ * One sentence saying what measurement would decide an inconclusive check: how many more
+ * readings, and where, would shrink its 95 % interval enough. Readings are added greedily
+ * where each one cuts the variance most, by the rank-one update
+ * C ← C − (C·g)(C·g)ᵀ/(1 + gᵀ·C·g) of the covariance for a new weighted sensitivity row g
+ * (Sherman–Morrison; the sequential design idea of Atkinson, Donev & Tobias 2007, ch. 11,
+ * from memory), at on-axis distances from 0 to 1.5× the farthest reading, each as
+ * precise as the survey's own readings (noiseFromFit). Stops at 4× the survey's size.
+ */
+export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget): string {
+  const k = fitted.freeIndex.length;
+  const coverage = fitted.coverageFactor;
+  if (fitted.covariance === null || coverage === null || k === 0) return 'Free the parameters in the fit so that it reports intervals.';
+  const covariance = Float64Array.from(fitted.covariance);
+  const u = fitted.freeIndex.map((j) => target.gradient[j]!);
+  const farthest = Math.max(...fitted.fit.points.map((p) => p.distance), 1e-3);
+  const candidates = Array.from({ length: candidateCount }, (_, i) => ({ distance: (1.5 * farthest * i) / (candidateCount - 1), radial: 0 }));
+  const rows = sensitivityRows({ model: fitted.point.model, values: fitted.values, free: fitted.freeIndex, noise: noiseFromFit(fitted.fit) }, candidates);
+  const budget = Math.max(10, 4 * fitted.fit.stats.n);
+  const halfWidth = () => coverage * Math.sqrt(Math.max(0, quadratic(covariance, u, u, k)));
+  const chosen: number[] = [];
+  const cg = new Float64Array(k);
+  while (halfWidth() > target.neededHalfWidth && chosen.length < budget) {
+    let best = -1;
+    let bestGain = 0;
+    for (let c = 0; c < candidateCount; c += 1) {
+      const g = rows.subarray(c * k, c * k + k);
+      const gain = quadratic(covariance, u, g, k) ** 2 / (1 + quadratic(covariance, g, g, k));
+      if (gain > bestGain) {
+        bestGain = gain;
+        best = c;
+      }
+    }
+    if (best < 0) break;
+    const g = rows.subarray(best * k, best * k + k);
+    for (let a = 0; a < k; a += 1) {
+      let sum = 0;
+      for (let b = 0; b < k; b += 1) sum += covariance[a * k + b]! * g[b]!;
+      cg[a] = sum;
+    }
+    const denominator = 1 + quadratic(covariance, g, g, k);
+    for (let a = 0; a < k; a += 1) for (let b = 0; b < k; b += 1) covariance[a * k + b] = covariance[a * k + b]! - (cg[a]! * cg[b]!) / denominator;
+    chosen.push(best);
+  }
+  const reached = halfWidth();
+  const needed = `±${describeValue(target.neededHalfWidth, target.kind)}`;
+  if (reached > target.neededHalfWidth) {
+    return `Even ${chosen.length} more readings as precise as these would only shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} needed): reduce the reading uncertainty — a positioning jig near the steep part of the curve, a better meter — rather than add points.`;
+  }
+  const distances = chosen.map((c) => candidates[c]!.distance);
+  const low = Math.min(...distances);
+  const high = Math.max(...distances);
+  const where = high - low < 0.1 * high ? `near ${formatQuantity((low + high) / 2, 'length', { significant: 2 })}` : `between ${formatQuantity(low, 'length', { significant: 2 })} and ${formatQuantity(high, 'length', { significant: 2 })}`;
+  return `About ${chosen.length} more on-axis readings ${where}, as precise as these, would shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} decides it).`;
+}
+
+function quadratic(matrix: Float64Array, x: ArrayLike<number>, y: ArrayLike<number>, k: number): number {
+  let sum = 0;
+  for (let a = 0; a < k; a += 1) {
+    if (x[a] === 0) continue;
+    for (let b = 0; b < k; b += 1) sum += x[a]! * matrix[a * k + b]! * y[b]!;
+  }
+  return sum;
+}

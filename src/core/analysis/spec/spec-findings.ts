@@ -1,0 +1,75 @@
+import { describeValue, kindOfUnit, parameterWords } from '../describe-value';
+import type { CheckOutcome } from './check-parameter';
+
+/** Findings (CONTRACT.md verdict.findings) with one sentence of evidence each. */
+export interface SpecFindings {
+  readonly findings: readonly string[];
+  readonly explanations: readonly string[];
+}
+
+/**
+ * Read the failure signatures of DOMAIN.md §5 off the checks: geometry outside its
+ * tolerance means the curve's *shape* disagrees with the label → **mislabeled** (whatever
+ * the amplitude does); ampere-turns low with the geometry as labeled means the curve is
+ * the label's curve scaled down → **degraded** (shorted turns, low drive current);
+ * ampere-turns high → **amplitude-high**. When only the far-field moment could be
+ * checked, **moment-low/high** says amplitude and size cannot be told apart. A failing
+ * claim that a fitted inverse-square or power-law curve reproduces is flagged
+ * **power-law-extrapolation**; values not comparable across detector types give
+ * **reading-type-mismatch**.
+ */
+export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
+  const findings: string[] = [];
+  const explanations: string[] = [];
+  const params = outcomes.filter((o) => o.check.kind === 'parameter');
+  const amplitude = params.filter((o) => o.role === 'amplitude');
+  const geometry = params.filter((o) => o.role === 'geometry');
+  const failedGeometry = geometry.filter((o) => o.check.status === 'fail');
+  const failedAmplitude = amplitude.filter((o) => o.check.status === 'fail');
+  if (failedGeometry.length > 0) {
+    findings.push('mislabeled');
+    const amplitudeNote = failedAmplitude.length > 0 ? `; the ${failedAmplitude.map((o) => against(o)).join(', ')} may follow from the different geometry` : '';
+    explanations.push(`${failedGeometry.map(against).join('; ')} → the curve's shape differs from the labeled geometry: a different, swapped or mislabeled coil${amplitudeNote}.`);
+  } else if (failedAmplitude.length > 0) {
+    const low = failedAmplitude.every((o) => o.side === 'low');
+    findings.push(low ? 'degraded' : 'amplitude-high');
+    const shape = geometry.length === 0
+      ? 'no geometry on the label, so a smaller coil cannot be ruled out'
+      : geometry.map((o) => (o.check.status === 'pass' ? `${words(o)} ${measured(o)} as labeled` : `${words(o)} ${measured(o)} not decided`)).join('; ');
+    explanations.push(
+      `${failedAmplitude.map(against).join('; ')}; ${shape} → ` +
+        (low
+          ? 'amplitude loss: shorted turns or lower drive current (a wrong turn count or current on the label looks the same; measure the coil current to tell).'
+          : 'more ampere-turns than labeled: a higher drive current or more turns than stated.'),
+    );
+  }
+  const moment = outcomes.find((o) => o.role === 'moment' && o.check.status === 'fail');
+  if (moment) {
+    findings.push(moment.side === 'low' ? 'moment-low' : 'moment-high');
+    explanations.push(`${moment.check.evidence} Far-field readings fix only the moment, so amplitude loss and a ${moment.side === 'low' ? 'smaller' : 'larger'} coil cannot be told apart; add readings within about one radius.`);
+  }
+  const claims = outcomes.filter((o) => o.check.kind === 'claim');
+  const overstated = claims.filter((o) => o.check.status === 'fail' && o.side === 'low');
+  if (overstated.length > 0) findings.push('claim-overstated');
+  for (const claim of claims.filter((o) => o.matchesNaive && o.check.status !== 'pass')) {
+    if (!findings.includes('power-law-extrapolation')) findings.push('power-law-extrapolation');
+    explanations.push(`The claimed ${describeValue(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${describeValue(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law (DOMAIN.md §1.9).`);
+  }
+  if (outcomes.some((o) => o.blocked === 'reading-type')) findings.push('reading-type-mismatch');
+  for (const outcome of outcomes) {
+    if (outcome.check.status === 'inconclusive' && outcome.check.toDecide) explanations.push(`To decide ${outcome.check.what}: ${outcome.check.toDecide}`);
+  }
+  return { findings, explanations: [...new Set(explanations)] };
+}
+
+function words(outcome: CheckOutcome): string {
+  return parameterWords(outcome.check.what);
+}
+
+function measured(outcome: CheckOutcome): string {
+  return describeValue(outcome.check.measured.value, kindOfUnit(outcome.check.measured.unit as 'A'), outcome.check.measured.ci95);
+}
+
+function against(outcome: CheckOutcome): string {
+  return `${words(outcome)} ${measured(outcome)} vs ${describeValue(outcome.check.expected.value, kindOfUnit(outcome.check.expected.unit as 'A'))} on the label`;
+}
