@@ -10,3 +10,6 @@ export { regularizedIncompleteBeta } from './regularized-incomplete-beta';
 export { singularValues, type SingularValues } from './singular-value-decomposition';
 export { studentTCdf, studentTDensity } from './student-t-cdf';
 export { studentTQuantile } from './student-t-quantile';
+export { chiSquareSurvival } from './chi-square-survival';
+export { normalQuantile, normalUpperTail } from './normal-quantile';
+export { regularizedUpperGamma } from './regularized-incomplete-gamma';

@@ -12,10 +12,11 @@ export interface ParameterIntervals {
 
 /**
  * Linearised confidence intervals θ̂ⱼ ± t_{(1+level)/2, ν}·√Cⱼⱼ with ν = n − k degrees
- * of freedom (DOMAIN.md §7.5; NIST/SEMATECH e-Handbook of Statistical Methods §4.4).
+ * of freedom when the scale was estimated, ν = ∞ (normal quantile) when σ were stated
+ * (DOMAIN.md §7.5; NIST/SEMATECH e-Handbook of Statistical Methods §4.4).
  * Asymmetric uncertainty of strongly nonlinear models is not captured.
  *
- * @param values θ̂ (k); covariance row-major k×k; degreesOfFreedom ν > 0; level in (0, 1).
+ * @param values θ̂ (k); covariance row-major k×k; degreesOfFreedom ν > 0 or Infinity; level in (0, 1).
  * @example
  * // θ̂ = 10, Var = 4, ν = 8: 10 ± 2.306004·2 = [5.388, 14.612]
  * parameterIntervals([10], Float64Array.of(4), 8).intervals[0]; // [5.387992, 14.612008]

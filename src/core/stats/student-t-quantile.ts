@@ -1,9 +1,11 @@
+import { normalQuantile } from './normal-quantile';
 import { regularizedIncompleteBeta } from './regularized-incomplete-beta';
 import { studentTDensity } from './student-t-cdf';
 
 /**
  * Quantile of Student's t with ν degrees of freedom: the t with P(T ≤ t) = p.
- * Closed forms for ν = 1 (tan π(p − ½)) and ν = 2 ((2p − 1)/√(2p(1 − p))); otherwise
+ * ν = ∞ is the normal quantile. Closed forms for ν = 1 (tan π(p − ½)) and ν = 2
+ * ((2p − 1)/√(2p(1 − p))); otherwise
  * the Cornish–Fisher expansion about the normal quantile (A&S 26.7.5, normal start by
  * A&S 26.2.23) refined by safeguarded Newton steps on the upper tail
  * ½·I_{ν/(ν+t²)}(ν/2, ½) (A&S 26.7.1). Relative accuracy ≈ 1e-13 for ν ≤ 10⁴; beyond,
@@ -21,6 +23,7 @@ export function studentTQuantile(probability: number, degreesOfFreedom: number):
   if (p === 0) return -Infinity;
   if (p === 1) return Infinity;
   if (p === 0.5) return 0;
+  if (nu === Infinity) return normalQuantile(p);
   if (nu === 1) return Math.tan(Math.PI * (p - 0.5));
   if (nu === 2) return (2 * p - 1) / Math.sqrt(2 * p * (1 - p));
   const tail = Math.min(p, 1 - p);
