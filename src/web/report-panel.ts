@@ -22,6 +22,7 @@ export function reportPanel(lookup: ModelLookup): {
 } {
   let report: Report = { surveys: [] };
   let shown = 0;
+  let reportsShown = 0;
   const status = h('p', { id: 'run-status', class: 'muted', role: 'status', 'aria-live': 'polite' }, 'No survey yet.');
   const progress = h('progress', { id: 'run-progress', max: 1, value: 0, hidden: true, 'aria-label': 'Reading and fitting progress' });
   const body = h('div', { id: 'report-body', 'data-state': 'idle' });
@@ -91,6 +92,8 @@ export function reportPanel(lookup: ModelLookup): {
       for (const b of exports) b.disabled = next.surveys.length === 0;
       render();
       body.dataset['state'] = next.surveys.length === 0 ? 'empty' : 'ready';
+      // end-to-end tests and the benchmark wait for this count to change
+      body.dataset['reportCount'] = String(++reportsShown);
     },
     showMessage: (message, state) => {
       progress.hidden = true;

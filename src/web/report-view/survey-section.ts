@@ -56,13 +56,13 @@ export function parameterBlock(fit: FitResult, lookup: ModelLookup, title: strin
   const model = lookup(fit.model);
   const describe = (name: string) => model?.parameters.find((p) => p.name === name)?.description ?? '';
   const weight = fit.stats.akaikeWeight;
-  return html`<section class="rf-block rf-params"><h3>${title}: ${model?.label ?? fit.model}</h3>
+  return html`<section class="rf-block rf-params" data-model="${fit.model}"><h3>${title}: ${model?.label ?? fit.model}</h3>
 <p class="rf-sub">${fit.converged ? 'converged' : 'did not converge'} (${fit.stopReason}) after ${fit.iterations} iterations${weight === null ? '' : `; Akaike weight ${formatNumber(weight, 3)}`}.
 ${fit.uncertaintyScale === 'estimated' ? ' Intervals use the scatter of the readings (no instrument uncertainty was given).' : ' Intervals use the stated reading uncertainties.'}</p>
 <table class="rf-table"><thead><tr><th scope="col">parameter</th><th scope="col">value</th><th scope="col">95% interval</th><th scope="col">meaning</th></tr></thead>
 <tbody>${Object.values(fit.params).map((estimate) => {
     const shown = formatEstimate(estimate);
-    return html`<tr data-param="${estimate.name}"><th scope="row">${estimate.name}</th><td class="rf-num">${shown.value}</td><td class="${estimate.determined || estimate.fixed ? 'rf-num' : 'rf-num rf-undetermined'}">${shown.interval}</td><td>${describe(estimate.name)}</td></tr>`;
+    return html`<tr data-param="${estimate.name}" data-value="${String(estimate.value)}"><th scope="row">${estimate.name}</th><td class="rf-num">${shown.value}</td><td class="${estimate.determined || estimate.fixed ? 'rf-num' : 'rf-num rf-undetermined'}">${shown.interval}</td><td>${describe(estimate.name)}</td></tr>`;
   })}</tbody></table></section>`;
 }
 

@@ -1,0 +1,163 @@
+/**
+ * The web page in real Chromium (Debian's, through playwright-core): loads the built
+ * page, uploads surveys, waits for the report, and checks what a user sees — the fitted
+ * ampere-turns against the CLI's JSON, a broken file's message next to its name, a coil
+ * id of markup shown as text with no dialog, the hand column mapping, the exported HTML
+ * report, and that no request leaves the machine. Screenshots go to test-artifacts/.
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { expectClose } from '../support/expect-close';
+import { artifactsDir, launchBrowser, outsideRequests, repoRoot, startWebServer, type BrowserSession, type WebServer } from './support/browser';
+
+const attack = '<img src=x onerror=alert(1)>';
+let server: WebServer;
+let browser: BrowserSession;
+let page: Page;
+const dialogs: string[] = [];
+const scratch = mkdtempSync(join(tmpdir(), 'ringfall-web-e2e-'));
+
+/** A sample survey from sample-data/ (the healthy loop applicator when present). */
+function sampleSurvey(): string {
+  const dir = join(repoRoot, 'sample-data');
+  const names = readdirSync(dir, { recursive: true }).map(String).filter((n) => n.endsWith('.csv')).sort();
+  const name = names.find((n) => /healthy|applicator/i.test(n)) ?? names[0];
+  if (!name) throw new Error('sample-data/ holds no CSV survey');
+  return join(dir, name);
+}
+
+/** μ0·NI·R²/(2(R² + z²)^1.5) readings of a 120 A, 45 mm loop, probe 3 mm recessed, ±1 % wiggle (DOMAIN.md §1.1). */
+function loopSurveyText(coil: string): string {
+  const mu0 = 1.25663706212e-6;
+  const rows = [0, 2, 5, 10, 15, 20, 25, 30, 40, 50, 60, 80, 100, 120, 150].map((mm, i) => {
+    const z = (mm + 3) / 1000;
+    const b = (mu0 * 120 * 0.045 ** 2) / (2 * (0.045 ** 2 + z * z) ** 1.5) * (1 + 0.01 * Math.sin(2.1 * i));
+    return `${mm},${(b * 1e3).toFixed(5)}`;
+  });
+  return [`# coil: ${coil}`, '# date: 2026-03-14', '# reading: dc', 'distance (mm),B (mT)', ...rows].join('\n') + '\n';
+}
+
+function scratchFile(name: string, text: string): string {
+  const path = join(scratch, name);
+  writeFileSync(path, text);
+  return path;
+}
+
+/** Upload files through the picker and wait for the next report. */
+async function upload(paths: string[]): Promise<void> {
+  const before = await page.locator('#report-body').getAttribute('data-report-count');
+  await page.setInputFiles('#survey-files', paths);
+  await page.waitForFunction((count) => {
+    const body = document.querySelector('#report-body');
+    return body && body.getAttribute('data-report-count') !== count && body.getAttribute('data-state') !== 'running';
+  }, before, { timeout: 60_000 });
+}
+
+async function removeAllFiles(): Promise<void> {
+  const button = page.getByRole('button', { name: 'Remove all files' });
+  if (await button.isVisible()) await button.click();
+}
+
+beforeAll(async () => {
+  mkdirSync(artifactsDir, { recursive: true });
+  server = await startWebServer('preview');
+  browser = await launchBrowser();
+  page = await browser.newPage();
+  page.on('dialog', (dialog) => { dialogs.push(dialog.message()); void dialog.dismiss(); });
+  await page.goto(server.url);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('web page', () => {
+  it('opens with the bundled sample survey fitted and its report drawn', async () => {
+    await page.waitForSelector('#report-body[data-state=ready]', { timeout: 60_000 });
+    expect(await page.locator('.rf-params tr[data-param=ampereTurns]').count()).toBeGreaterThan(0);
+    expect(await page.locator('#report-body canvas').count()).toBeGreaterThanOrEqual(2);
+  });
+
+  it('shows the same fitted ampere-turns as `ringfall fit --json` for the same file', async () => {
+    const file = sampleSurvey();
+    await removeAllFiles();
+    await upload([file]);
+    const section = page.locator('.rf-survey').first();
+    const best = section.locator('.rf-params').first();
+    const model = await best.getAttribute('data-model');
+    const shownValue = Number(await best.locator('tr[data-param=ampereTurns]').getAttribute('data-value'));
+    const shownText = await best.locator('tr[data-param=ampereTurns] td').first().innerText();
+    const cli = JSON.parse(execFileSync(process.execPath, [join(repoRoot, 'bin', 'ringfall.mjs'), 'fit', file, '--json'], { cwd: repoRoot, encoding: 'utf8' }));
+    const survey = cli.surveys[0];
+    expect(model).toBe(survey.best);
+    const expected = survey.fits.find((f: { model: string }) => f.model === survey.best).params.ampereTurns.value as number;
+    // same code on the same text: the page and the CLI must agree to rounding
+    expectClose(shownValue, expected, { rel: 1e-9 });
+    expect(shownText).toContain(String(Math.round(expected)).slice(0, 2));
+    await page.screenshot({ path: join(artifactsDir, 'web-report.png'), fullPage: true });
+    await section.locator('.rf-map').screenshot({ path: join(artifactsDir, 'web-field-map.png') });
+  });
+
+  it('shows a broken file’s message next to its name and keeps the other file working', async () => {
+    await removeAllFiles();
+    const broken = scratchFile('no-field-unit.csv', 'distance (mm),B\n1,2\n3,4\n5,6\n');
+    const good = scratchFile('good-loop.csv', loopSurveyText('GOOD-1'));
+    await upload([broken, good]);
+    const brokenItem = page.locator('#file-list li', { hasText: 'no-field-unit.csv' });
+    await expect(brokenItem.locator('.file-message').innerText()).resolves.toMatch(/IMPORT_FIELD_UNIT_MISSING.*"B".*Write the unit in the header/s);
+    expect(await page.locator('#file-list li', { hasText: 'good-loop.csv' }).locator('.file-message').count()).toBe(0);
+    await expect(page.locator('.rf-survey h2').first().innerText()).resolves.toContain('GOOD-1');
+  });
+
+  it('lets the user set a missing field unit by hand and refit', async () => {
+    const card = page.locator('details.file-columns', { hasText: 'no-field-unit.csv' });
+    await card.getByLabel('Unit of column 2 "B"').selectOption('mT');
+    const before = await page.locator('#report-body').getAttribute('data-report-count');
+    await card.getByRole('button', { name: 'Use this reading and refit' }).click();
+    await page.waitForFunction((count) => document.querySelector('#report-body')?.getAttribute('data-report-count') !== count, before);
+    expect(await page.locator('#file-list li', { hasText: 'no-field-unit.csv' }).locator('.file-message').count()).toBe(0);
+  });
+
+  it('shows a coil id of markup as text and runs none of it', async () => {
+    await removeAllFiles();
+    await upload([scratchFile('attack.csv', loopSurveyText(attack))]);
+    await expect(page.locator('.rf-survey .rf-coil-id').first().innerText()).resolves.toBe(attack);
+    expect(await page.locator('#report-body img').count()).toBe(0);
+    expect(await page.locator('.controls img').count()).toBe(0);
+    await page.waitForTimeout(300);
+    expect(dialogs).toEqual([]);
+  });
+
+  it('saves a self-contained HTML report that draws its charts offline', async () => {
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save report (HTML)' }).click()]);
+    const saved = join(scratch, 'report.html');
+    await download.saveAs(saved);
+    const text = readFileSync(saved, 'utf8');
+    expect(text).toContain(`default-src 'none'`);
+    expect(text).not.toContain(attack);
+    const view = await browser.newPage();
+    await view.goto(`file://${saved}`);
+    await view.waitForFunction(() => document.querySelectorAll('canvas').length >= 2 && [...document.querySelectorAll('canvas')].every((c) => (window as unknown as { Chart: { getChart(c: HTMLCanvasElement): unknown } }).Chart.getChart(c)));
+    await expect(view.locator('.rf-coil-id').first().innerText()).resolves.toBe(attack);
+    await view.close();
+  });
+
+  it('reads well on a narrow screen', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.screenshot({ path: join(artifactsDir, 'web-narrow.png'), fullPage: false });
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await page.setViewportSize({ width: 1280, height: 800 });
+  });
+
+  it('made no request that left the machine', () => {
+    expect(browser.requests.length).toBeGreaterThan(0);
+    expect(outsideRequests(browser.requests)).toEqual([]);
+    expect(browser.errors).toEqual([]);
+  });
+});
