@@ -1,0 +1,45 @@
+/**
+ * Spec files for the sample coils (CONTRACT.md "Spec file"): what each coil's label or
+ * datasheet claims. Claimed fields are the label's own model at the stated distance
+ * (measured like the bench does, probe offset included), rounded to two digits as a
+ * datasheet prints them. QA-214 carries the QA applicator label although it was wound on
+ * a larger former; that disagreement is the point of its sample.
+ */
+import { applicatorLabel, applicatorProbeOffset } from './scenario';
+import { loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from './true-field';
+
+/** A claim as a datasheet prints it: two significant digits, in mT. */
+function claim(distanceMm: number, tesla: number, tolerance: string): { distance: string; field: string; tolerance: string } {
+  return { distance: `${distanceMm} mm`, field: `${Number((tesla * 1000).toPrecision(2))} mT`, tolerance };
+}
+
+export function buildSpecFiles(): Map<string, string> {
+  const loopClaim = (ampereTurns: number, radius: number, mm: number) => claim(mm, loopOnAxis(ampereTurns, radius, mm / 1000 + applicatorProbeOffset), '15%');
+  const loopSpec = (coil: string, ampereTurns: number, radius: number, claimsMm: readonly number[]) => ({
+    coil,
+    model: 'loop',
+    params: { ampereTurns: `${ampereTurns} A`, radius: `${radius * 1000} mm` },
+    tolerance: '10%',
+    claims: claimsMm.map((mm) => loopClaim(ampereTurns, radius, mm)),
+    readingType: 'dc',
+  });
+  const specs = [
+    loopSpec('QA-107', applicatorLabel.ampereTurns, applicatorLabel.radius, [0, 50]),
+    loopSpec('QA-214', applicatorLabel.ampereTurns, applicatorLabel.radius, [0, 50]),
+    loopSpec('QA-330', 400, 0.05, [0, 50]),
+    loopSpec('QA-412', 420, 0.05, [0, 50]),
+    {
+      coil: 'QM-03', model: 'rectangle', params: { ampereTurns: '150 A', width: '300 mm', height: '200 mm' }, tolerance: '10%',
+      claims: [0, 100].map((mm) => claim(mm, rectangleOnAxis(150, 0.3, 0.2, mm / 1000 + 0.006), '20%')), readingType: 'rms',
+    },
+    {
+      coil: 'QT-9', model: 'thick-coil',
+      params: { ampereTurns: '1500 A', innerRadius: '20 mm', outerRadius: '40 mm', length: '30 mm' }, tolerance: '5%',
+      claims: [0, 50].map((mm) => claim(mm, thickCoilOnAxis(1500, 0.02, 0.04, 0.03, mm / 1000 + 0.0015 + 0.015), '10%')), readingType: 'dc',
+    },
+  ];
+  const files = new Map<string, string>();
+  for (const spec of specs) files.set(`specs/${spec.coil.toLowerCase()}.spec.json`, `${JSON.stringify(spec, null, 2)}\n`);
+  files.set('specs/all-coils.spec.json', `${JSON.stringify(specs, null, 2)}\n`);
+  return files;
+}
