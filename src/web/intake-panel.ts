@@ -30,7 +30,7 @@ export function intakePanel(context: IntakeContext): { element: HTMLElement; sho
   });
   const zone = h('div', { class: 'drop-zone', id: 'drop-zone' },
     h('p', {}, 'Drop gaussmeter survey CSV files here'),
-    h('label', { for: 'survey-files', class: 'button primary' }, 'Choose survey files…'), input,
+    input, h('label', { for: 'survey-files', class: 'button primary' }, 'Choose survey files…'),
     context.openSampleFleet ? (() => {
       const sample = h('button', { type: 'button', id: 'open-sample-fleet' }, 'Open the sample fleet');
       sample.addEventListener('click', context.openSampleFleet);

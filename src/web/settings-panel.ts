@@ -109,7 +109,7 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
   })();
   const spec = h('div', { class: 'field' },
     h('label', { for: specId }, 'Spec to check against (JSON)'), specText,
-    h('div', { class: 'row' }, h('label', { for: specFileId, class: 'button' }, 'Load spec file…'), specFile, sampleSpec), specError);
+    h('div', { class: 'row' }, specFile, h('label', { for: specFileId, class: 'button' }, 'Load spec file…'), sampleSpec), specError);
 
   const element = h('section', { class: 'panel', 'aria-labelledby': 'settings-heading' },
     h('h2', { id: 'settings-heading' }, 'How to fit'),

@@ -6,6 +6,7 @@ import {
   baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
 } from './chart-spec';
+import { niceLogBound } from './nice-ticks';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
 import { rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
@@ -35,11 +36,10 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
       if (d !== undefined && d > 0 && d < xMax * 20) xMax = Math.max(xMax, d);
     }
   }
-  xMin /= 1.15;
-  xMax *= 1.15;
-  let yMin = Math.min(...positive.map((p) => p.field), ...survey.thresholds.map((t) => t.level.value)) / 2;
-  const yMax = Math.max(...positive.map((p) => p.field)) * 1.6;
-  yMin = Math.max(yMin, yMax * 1e-6);
+  xMin = niceLogBound(xMin / 1.05, -1);
+  xMax = niceLogBound(xMax * 1.05, 1);
+  const yMax = niceLogBound(Math.max(...positive.map((p) => p.field)) * 1.3, 1);
+  const yMin = niceLogBound(Math.max(Math.min(...positive.map((p) => p.field), ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
   const X = (d: number) => d / length.factor;
   const Y = (b: number): number | null => (b > 0 ? b / field.factor : null);
 

@@ -14,3 +14,18 @@ export function niceTicks(min: number, max: number, count: number): number[] {
   for (let i = Math.ceil(min / step - 1e-9); i * step <= max + step * 1e-9; i++) ticks.push(Math.abs(i * step) < step * 1e-9 ? 0 : i * step);
   return ticks;
 }
+
+/**
+ * The largest of 1, 2, 5 × 10ⁿ at or below `value` (`direction` −1) or the smallest at or
+ * above it (+1): round ends for a log axis. `value` > 0.
+ * @example niceLogBound(0.0017, -1) // 0.001; niceLogBound(172, 1) // 200
+ */
+export function niceLogBound(value: number, direction: -1 | 1): number {
+  const power = 10 ** Math.floor(Math.log10(value));
+  const steps = direction < 0 ? [5, 2, 1] : [1, 2, 5, 10];
+  for (const step of steps) {
+    const candidate = step * power;
+    if (direction < 0 ? candidate <= value * (1 + 1e-12) : candidate >= value * (1 - 1e-12)) return candidate;
+  }
+  return direction < 0 ? power : 10 * power;
+}

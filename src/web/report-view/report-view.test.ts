@@ -3,7 +3,7 @@ import { escapeHtml, html, inlineJson } from './html';
 import { renderReportDocument, renderSurveySection } from './index';
 import { fabricatedReport, standInLookup } from './testing-fixture';
 import { decimalYear } from './fleet-section';
-import { niceTicks } from './nice-ticks';
+import { niceLogBound, niceTicks } from './nice-ticks';
 
 const attack = '<img src=x onerror=alert(1)>';
 
@@ -33,7 +33,7 @@ describe('report view', () => {
   it('renderSurveySection() shows the fitted ampere-turns with their interval', () => {
     const markup = renderSurveySection(fabricatedReport('HX-2'), standInLookup, 'rf-survey-1').value;
     // fixture: 120 A ± 2 × 1.2 A
-    expect(markup).toMatch(/data-param="ampereTurns"><th scope="row">ampereTurns<\/th><td class="rf-num">120.0 A<\/td><td class="rf-num">117.6 to 122.4 A/);
+    expect(markup).toMatch(/data-param="ampereTurns" data-value="120"><th scope="row">ampereTurns<\/th><td class="rf-num">120.0 A<\/td><td class="rf-num">117.6 to 122.4 A/);
   });
 
   it('renderReportDocument() is self-contained: inline library, CSP forbidding outside requests, no src/href to elsewhere', () => {
@@ -56,5 +56,13 @@ describe('report view', () => {
     // Heckbert's nice numbers: rough step 20 → 2×10¹
     expect(niceTicks(0, 100, 5)).toEqual([0, 20, 40, 60, 80, 100]);
     expect(niceTicks(-0.05, 0.05, 4)).toEqual([-0.04, -0.02, 0, 0.02, 0.04]);
+  });
+
+  it('niceLogBound() rounds out to 1, 2 or 5 × 10ⁿ', () => {
+    // the 1-2-5 series of round values per decade (common practice for log axes)
+    expect(niceLogBound(0.0017, -1)).toBeCloseTo(0.001, 15);
+    expect(niceLogBound(172, 1)).toBe(200);
+    expect(niceLogBound(4.9, -1)).toBe(2);
+    expect(niceLogBound(5.1, 1)).toBe(10);
   });
 });
