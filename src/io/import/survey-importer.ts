@@ -23,9 +23,10 @@ const stalledQuoteLength = 1 << 16;
  * Algorithm: the beginning is buffered until readLayout can see the metadata, header and
  * ten sample lines; then rows go through papaparse's Parser with `ignoreLastRow` (the
  * partial last row waits for the next chunk, as papaparse's own chunk streamers do).
- * Quote-free text takes papaparse's fast mode, where each row is one physical line; text
- * with quotes goes row by row (step mode) and line numbers come from counting the line
- * breaks between row cursors, so quoted fields with line breaks keep later numbers right.
+ * Rows are one per physical line when the text has no quotes (papaparse's fast mode) or
+ * when the rows parsed equal the line breaks they span; otherwise (a quoted field holds
+ * a line break) the text is parsed again row by row (step mode) and line numbers come
+ * from counting the line breaks between row cursors, so later numbers stay right.
  *
  * @example const importer = new SurveyImporter({ source: 'a.csv' }); importer.push(text); importer.finish().surveys
  */
@@ -127,20 +128,24 @@ export class SurveyImporter {
 
   /** Parse complete rows (all rows when `ignoreLastRow` is false); returns the cursor after the last one. */
   private parse(text: string, ignoreLastRow: boolean): number {
-    if (text.indexOf('"') !== -1) {
-      this.chunkText = text;
-      this.chunkCursor = 0;
-      const cursor = (this.stepParser as Papa.Parser).parse(text, 0, ignoreLastRow).meta.cursor as number;
-      this.chunkText = '';
-      return cursor;
+    const quoted = text.indexOf('"') !== -1;
+    if (!quoted || ignoreLastRow) {
+      const result = (this.bulkParser as Papa.Parser).parse(text, 0, ignoreLastRow) as { data: string[][]; meta: { cursor: number } };
+      // Without quotes papaparse's fast mode splits on line breaks; with quotes, rows are still
+      // one per line when the rows and the line breaks they span are equal in number.
+      if (!quoted || countBreaks(text, (this.layout as FileLayout).preamble.newline, result.meta.cursor) === result.data.length) {
+        for (const cells of result.data) {
+          this.take(cells, this.line, false, this.line);
+          this.line += 1;
+        }
+        return result.meta.cursor;
+      }
     }
-    // No quotes: papaparse's fast mode splits on line breaks, so each row is one physical line.
-    const result = (this.bulkParser as Papa.Parser).parse(text, 0, ignoreLastRow) as { data: string[][]; meta: { cursor: number } };
-    for (const cells of result.data) {
-      this.take(cells, this.line, false, this.line);
-      this.line += 1;
-    }
-    return result.meta.cursor;
+    this.chunkText = text;
+    this.chunkCursor = 0;
+    const cursor = (this.stepParser as Papa.Parser).parse(text, 0, ignoreLastRow).meta.cursor as number;
+    this.chunkText = '';
+    return cursor;
   }
 
   /** A row from the step parser: count the line breaks it spans to keep physical line numbers. */
@@ -190,6 +195,13 @@ function isBlank(cells: readonly string[]): boolean {
 function isCommented(firstCell: string): boolean {
   const code = firstCell.charCodeAt(0);
   return code === 35 || (code <= 32 && firstCell.trimStart().startsWith('#'));
+}
+
+/** Number of line breaks in text[0, end). */
+function countBreaks(text: string, newline: string, end: number): number {
+  let breaks = 0;
+  for (let at = text.indexOf(newline); at !== -1 && at < end; at = text.indexOf(newline, at + 1)) breaks += 1;
+  return breaks;
 }
 
 function hasUnclosedQuote(errors: StepResults['errors']): boolean {
