@@ -12,7 +12,7 @@ import { intakePanel, type FileEntry } from './intake-panel';
 import type { ColumnMapping } from '../io';
 import { reportPanel } from './report-panel';
 import { reportStyles } from './report-view';
-import { firstSample, sampleSpecs, sampleSurveys } from './sample-files';
+import { firstSample, fleetSpec, sampleSpecs, sampleSurveys } from './sample-files';
 import { settingsPanel } from './settings-panel';
 import { thresholdsPanel } from './thresholds-panel';
 import { PipelineWorker } from './worker-client';
@@ -61,8 +61,11 @@ async function addFiles(list: readonly File[]): Promise<void> {
   refit();
 }
 
+/** Load bundled samples in place of the current files; with no spec typed yet, the samples' spec comes too. */
 function openSamples(samples: readonly { name: string; text: string }[]): void {
   files = samples.map((s) => ({ id: `f${nextId++}`, name: s.name, text: s.text, outcome: null, mapping: null }));
+  const spec = fleetSpec();
+  if (spec && settings.spec.trim() === '') settingsUi.setSpec(spec.text);
   refit();
 }
 

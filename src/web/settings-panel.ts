@@ -19,7 +19,7 @@ export interface SettingsPanelContext {
  * instrument and position uncertainties, and a spec typed or loaded from a file.
  * Mistakes appear under their input (`showErrors`).
  */
-export function settingsPanel(context: SettingsPanelContext): { element: HTMLElement; showErrors: (errors: readonly SettingError[]) => void } {
+export function settingsPanel(context: SettingsPanelContext): { element: HTMLElement; showErrors: (errors: readonly SettingError[]) => void; setSpec: (text: string) => void } {
   const errorSlots = new Map<string, HTMLElement>();
   const slot = (field: string) => {
     const element = h('p', { class: 'field-error', id: uniqueId('err'), role: 'alert' });
@@ -126,5 +126,6 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
     }
   };
   showErrors([]);
-  return { element, showErrors };
+  const setSpec = (text: string) => { specText.value = text; context.update({ spec: text }); };
+  return { element, showErrors, setSpec };
 }

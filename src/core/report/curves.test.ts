@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { FitResult } from '../fit/fit-result';
 import type { FieldModel, SurveyPoints } from '../models/field-model';
 import { expectClose } from '../../../test/support/expect-close';
-import { confidenceBand, fieldMapGrid, fittedCurve, intervalFactor, logSpacedDistances } from './curves';
+import { confidenceBand, fieldMapGrid, fittedCurve, logSpacedDistances } from './curves';
 
 // CODATA 2018 μ0 (DOMAIN.md §6)
 const mu0 = 1.25663706212e-6;
@@ -60,12 +60,6 @@ describe('report curves', () => {
     expectClose(d[0]!, 0.001, { rel: 1e-15 });
     expectClose(d[1]!, 0.01, { rel: 1e-14 });
     expect(d[2]).toBe(0.1);
-  });
-
-  it('intervalFactor() reads the engine’s t back from a parameter’s interval', () => {
-    // t(0.975, 8) = 2.306004 (Student t table, e.g. NIST/SEMATECH e-Handbook §1.3.6.7.2)
-    const fit = fitOf(inverseSquare, { amplitude: 1e-6, background: 0 }, { amplitude: 1e-8 }, 2.306004);
-    expectClose(intervalFactor(fit)!, 2.306004, { rel: 1e-9 });
   });
 
   it('confidenceBand() of A/d² with A free is ±t·σ_A/d² (law of propagation, exact for a linear model)', () => {

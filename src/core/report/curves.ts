@@ -1,4 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
+import { deltaVariance, fittedModel } from '../analysis/fitted-model';
 import type { FieldModel, SurveyPoints } from '../models/field-model';
 
 /**
@@ -10,11 +11,7 @@ import type { FieldModel, SurveyPoints } from '../models/field-model';
 
 /** Parameter vector of a fit in the model's parameter order (SI). */
 export function fittedParameters(model: FieldModel, fit: FitResult): Float64Array {
-  return Float64Array.from(model.parameters, (spec) => {
-    const estimate = fit.params[spec.name];
-    if (!estimate) throw new RangeError(`fittedParameters: fit of ${fit.model} has no parameter "${spec.name}"`);
-    return estimate.value;
-  });
+  return fittedModel(fit, model).values;
 }
 
 /**
@@ -45,69 +42,30 @@ export function fittedCurve(model: FieldModel, fit: FitResult, distances: Float6
 }
 
 /**
- * Student-t factor of the fit's 95 % intervals, read back from any free parameter as
- * (ci95_upper − value)/stderr, so the band uses exactly the engine's t(0.975, n − k).
- * Null when no free parameter has an interval.
- */
-export function intervalFactor(fit: FitResult): number | null {
-  for (const name of fit.freeParameters) {
-    const estimate = fit.params[name];
-    if (estimate?.ci95 && estimate.stderr !== null && estimate.stderr > 0) {
-      const factor = (estimate.ci95[1] - estimate.value) / estimate.stderr;
-      if (Number.isFinite(factor) && factor > 0) return factor;
-    }
-  }
-  return null;
-}
-
-/**
  * 95 % confidence band of the fitted on-axis curve by the delta method:
  * f(d) ± t·√(gᵀ C g), g_j = ∂f(d)/∂θ_j over the free parameters, C their covariance
- * (GUM, JCGM 100:2008 §5.1.2, law of propagation of uncertainty). Derivatives by
- * central differences with a step of 10⁻³ standard errors. Null when the fit has no
- * covariance or no intervals. Values in T.
+ * (JCGM 100:2008 §5.1.2, law of propagation of uncertainty), t read back from the
+ * fit's own parameter intervals so the band matches the parameter table. Null when the
+ * fit has no covariance or no intervals. Values in T.
  */
 export function confidenceBand(
   model: FieldModel,
   fit: FitResult,
   distances: Float64Array,
 ): { lower: Float64Array; upper: Float64Array } | null {
-  const factor = intervalFactor(fit);
-  const covariance = fit.covariance;
-  const k = fit.freeParameters.length;
-  if (factor === null || covariance === null || covariance.length !== k * k || k === 0) return null;
-  const n = distances.length;
-  const base = fittedParameters(model, fit);
-  const points = pointsAt(distances, new Float64Array(n));
-  const centre = new Float64Array(n);
-  model.evaluate(base, points, centre);
-  const gradient = new Float64Array(n * k);
-  const plus = new Float64Array(n);
-  const minus = new Float64Array(n);
-  for (let j = 0; j < k; j++) {
-    const name = fit.freeParameters[j]!;
-    const index = model.parameters.findIndex((spec) => spec.name === name);
-    const stderr = Math.sqrt(Math.max(covariance[j * k + j]!, 0));
-    const step = stderr > 0 ? 1e-3 * stderr : 1e-8 * Math.max(Math.abs(base[index]!), 1e-12);
-    const shifted = Float64Array.from(base);
-    shifted[index] = base[index]! + step;
-    model.evaluate(shifted, points, plus);
-    shifted[index] = base[index]! - step;
-    model.evaluate(shifted, points, minus);
-    for (let i = 0; i < n; i++) gradient[i * k + j] = (plus[i]! - minus[i]!) / (2 * step);
-  }
-  const lower = new Float64Array(n);
-  const upper = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    let variance = 0;
-    for (let a = 0; a < k; a++) {
-      const ga = gradient[i * k + a]!;
-      for (let b = 0; b < k; b++) variance += ga * covariance[a * k + b]! * gradient[i * k + b]!;
-    }
-    const half = factor * Math.sqrt(Math.max(variance, 0));
-    lower[i] = centre[i]! - half;
-    upper[i] = centre[i]! + half;
-  }
+  const fitted = fittedModel(fit, model);
+  const factor = fitted.coverageFactor;
+  if (factor === null || fitted.covariance === null || fit.freeParameters.length === 0) return null;
+  const gradient = new Float64Array(model.parameters.length);
+  const lower = new Float64Array(distances.length);
+  const upper = new Float64Array(distances.length);
+  distances.forEach((distance, i) => {
+    const centre = fitted.point.field(fitted.values, distance, 0);
+    fitted.point.gradient(fitted.values, distance, 0, gradient);
+    const half = factor * Math.sqrt(deltaVariance(fitted, gradient) ?? 0);
+    lower[i] = centre - half;
+    upper[i] = centre + half;
+  });
   return { lower, upper };
 }
 
