@@ -44,15 +44,17 @@ export function recognizeHeader(header: string): HeaderReading {
     const unit = lookupUnit(unitText);
     if (knownUnitOnly && !unit) continue;
     const role = roleForName(name);
-    if (role && (role === 'reading' && unit?.kind === 'field')) {
+    // "Reading (mT)" or "value [G]": a field unit makes a value name a field column.
+    if ((role === 'reading' || (!role && isValueName(name))) && unit?.kind === 'field') {
       return { role: 'field', unitText, reason: `name "${match[1]}" with field unit "${unitText}" ${form}: field values` };
     }
     if (role) {
-      const unitNote = unitKindOf(role) === null ? ` ("${unitText}" ${form} is not used)` : ` with unit "${unitText}" ${form}`;
-      return { role, unitText: unitKindOf(role) === null ? null : unitText, reason: `name "${match[1]}"${unitNote}` };
-    }
-    if (isValueName(name) && unit?.kind === 'field') {
-      return { role: 'field', unitText, reason: `name "${match[1]}" with field unit "${unitText}" ${form}: field values` };
+      const numeric = unitKindOf(role) !== null;
+      return {
+        role,
+        unitText: numeric ? unitText : null,
+        reason: `name "${match[1]}"${numeric ? ` with unit "${unitText}" ${form}` : ` ("${unitText}" ${form} is not used)`}`,
+      };
     }
   }
   return { role: null, unitText: null, reason: `"${header}" is not a column name ringfall knows; ignored` };
