@@ -4,7 +4,7 @@ import { fieldMapGrid } from '../../core/report/curves';
 import type { SurveyReport } from '../../core/report/report';
 import { formatNumber, formatQuantity } from '../../core/units';
 import { distanceUnitFor, fieldUnitFor } from './chart-spec';
-import { html, trusted, type SafeHtml } from './html';
+import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
 import { fieldRamp, palette } from './palette';
 import { isAxisymmetric, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
@@ -92,6 +92,12 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
       continue;
     }
     parts.push(`<path d="${pathOf(shape.coordinates)}" fill="none" stroke="${palette.threshold}" stroke-width="2"/>`);
+    const onAxis = t.model === fit.model && t.distance && t.distance.value <= maxDistance ? t.distance.value : null;
+    if (onAxis !== null) {
+      const label = escapeHtml(formatQuantity(t.level.value, 'field', { significant: 3 }));
+      parts.push(`<circle cx="${x(onAxis).toFixed(1)}" cy="${y(0).toFixed(1)}" r="3.5" fill="${palette.threshold}"/>`);
+      parts.push(`<text x="${(x(onAxis) + 5).toFixed(1)}" y="${(y(0) - 6).toFixed(1)}" font-size="11" font-weight="600" fill="${palette.ink}" stroke="#ffffff" stroke-width="3" paint-order="stroke">${label}</text>`);
+    }
   }
   parts.push(`<line x1="${margin.left}" y1="${y(0)}" x2="${margin.left + innerWidth}" y2="${y(0)}" stroke="${palette.ink}" stroke-dasharray="4 4" stroke-width="0.8"/>`);
   const shown = readings.length > 400 ? readings.filter((_, i) => i % Math.ceil(readings.length / 400) === 0) : readings;

@@ -2,6 +2,7 @@ import type { ChartDataset } from 'chart.js';
 import type { FitResult } from '../../core/fit/fit-result';
 import type { SurveyReport } from '../../core/report/report';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
+import { niceLogBound } from './nice-ticks';
 import { modelColour, palette } from './palette';
 import { bestFit, bestPowerLaw } from './survey-facts';
 
@@ -39,8 +40,8 @@ export function residualsChart(survey: SurveyReport): ChartSpec | null {
     legend.push({ label: `${fit.model}${fit === best ? ' (best)' : ' (best power law)'}`, colour, shape: 'point' });
   }
   const xs = datasets.flatMap((d) => d.data.map((p) => p.x));
-  const xMin = Math.min(...xs) / (logAxis ? 1.15 : 1);
-  const xMax = Math.max(...xs) * 1.05;
+  const xMin = logAxis ? niceLogBound(Math.min(...xs) / 1.05, -1) : Math.min(0, ...xs);
+  const xMax = logAxis ? niceLogBound(Math.max(...xs) * 1.05, 1) : Math.max(...xs) * 1.05;
   const guide = (y: number, dash: number[]): ChartDataset<'scatter', { x: number; y: number }[]> => ({
     label: y === 0 ? 'zero' : `${y > 0 ? '+' : '−'}2`, data: [{ x: xMin, y }, { x: xMax, y }], showLine: true, pointRadius: 0,
     borderColor: palette.zero, borderWidth: 1, borderDash: dash,
