@@ -43,7 +43,8 @@ export function readRow(cells: readonly string[], line: number, context: RowCont
   }
   if (outcome.radial < 0) {
     group.negativeRadial += 1;
-    outcome.radial = -outcome.radial;
+    group.readings.push({ ...outcome, radial: -outcome.radial });
+    return;
   }
   group.readings.push(outcome);
 }
@@ -74,9 +75,7 @@ function checkWidth(cells: readonly string[], context: RowContext): Problem | nu
   };
 }
 
-type MutableReading = { -readonly [K in keyof Reading]: Reading[K] };
-
-function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): MutableReading | Problem {
+function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): Reading | Problem {
   const distance = readColumn(cells, layout.distance, decimalComma);
   if (typeof distance !== 'number') return distance;
   if (distance < 0) {
@@ -91,7 +90,8 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     if (Math.abs(value) > maximumDistance) return problem(cells, layout.radial, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
     radial = value;
   }
-  const reading: MutableReading = { line, distance, radial, field: 0 };
+  let field = 0;
+  let components: Reading['components'];
   if (layout.components) {
     const [columnX, columnY, columnZ] = layout.components;
     const x = readComponent(cells, columnX, decimalComma);
@@ -100,27 +100,30 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     if (typeof y !== 'number') return y;
     const z = readComponent(cells, columnZ, decimalComma);
     if (typeof z !== 'number') return z;
-    reading.components = { x, y, z };
-    reading.field = Math.hypot(x, y, z);
+    components = { x, y, z };
+    field = Math.hypot(x, y, z);
   } else if (layout.field) {
-    const field = readColumn(cells, layout.field, decimalComma);
-    if (typeof field !== 'number') return field;
-    if (field < 0 && layout.fieldKind === 'magnitude') {
+    const value = readColumn(cells, layout.field, decimalComma);
+    if (typeof value !== 'number') return value;
+    if (value < 0 && layout.fieldKind === 'magnitude') {
       return problem(cells, layout.field, 'ROW_NEGATIVE_MAGNITUDE', 'is negative in a magnitude (|B|) column. Correct the reading, or write the column as "B" if it is a signed single-axis reading.');
     }
-    if (Math.abs(field) > maximumField) return problem(cells, layout.field, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
-    reading.field = field;
+    if (Math.abs(value) > maximumField) return problem(cells, layout.field, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+    field = value;
   }
+  let standardUncertainty: number | undefined;
   if (layout.uncertainty && (cells[layout.uncertainty.index] ?? '').trim() !== '') {
-    const uncertainty = readColumn(cells, layout.uncertainty, decimalComma);
-    if (typeof uncertainty !== 'number') return uncertainty;
-    if (!(uncertainty > 0)) {
+    const value = readColumn(cells, layout.uncertainty, decimalComma);
+    if (typeof value !== 'number') return value;
+    if (!(value > 0)) {
       return problem(cells, layout.uncertainty, 'ROW_NEGATIVE_UNCERTAINTY', 'is not a positive uncertainty. Give a standard uncertainty above zero, or leave the cell empty.');
     }
-    if (uncertainty > maximumField) return problem(cells, layout.uncertainty, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
-    reading.standardUncertainty = uncertainty;
+    if (value > maximumField) return problem(cells, layout.uncertainty, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
+    standardUncertainty = value;
   }
-  return reading;
+  // One object literal per shape, so readings are built without later property additions.
+  if (components) return standardUncertainty === undefined ? { line, distance, radial, field, components } : { line, distance, radial, field, components, standardUncertainty };
+  return standardUncertainty === undefined ? { line, distance, radial, field } : { line, distance, radial, field, standardUncertainty };
 }
 
 function readComponent(cells: readonly string[], column: NumericColumn, decimalComma: boolean): number | Problem {
