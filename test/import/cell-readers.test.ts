@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { detectDelimiter } from '../../src/io/import/detect-delimiter';
 import { looksBinary } from '../../src/io/import/looks-binary';
@@ -68,5 +69,21 @@ describe('looksBinary()', () => {
     expect(looksBinary('a\u0000b')).toContain('NUL');
     expect(looksBinary('PK\u0003\u0004rest')).toContain('workbook');
     expect(looksBinary('\uFFFD'.repeat(10) + 'abc')).toContain('unreadable characters');
+  });
+});
+
+describe('readNumber() against the decimal grammar', () => {
+  it('readNumber() accepts exactly the strings of /^[+-]?(\\d+(\\.\\d*)?|\\.\\d+)([eE][+-]?\\d+)?$/ (property)', () => {
+    // the plain decimal grammar written as a regular expression, an independent statement of what a meter writes
+    const grammar = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/u;
+    const alphabet = fc.constantFrom(...'0123456789+-.eExXbBoOInfity,'.split(''));
+    fc.assert(
+      fc.property(fc.array(alphabet, { maxLength: 10 }).map((chars) => chars.join('')), (text) => {
+        const value = readNumber(text, false);
+        if (grammar.test(text)) expect(value).toBe(Number(text));
+        else expect(value).toBeNaN();
+      }),
+      { numRuns: 3000 },
+    );
   });
 });

@@ -1,19 +1,23 @@
-const numberPattern = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-
 /**
  * Read a numeric cell: optional sign, digits with one decimal point, optional exponent
  * ("12", "-0.5", ".25", "1e-3"). With `decimalComma` a single comma is the decimal mark
  * ("12,5" → 12.5); a cell with both marks is not read, since "1.234,5" would need a
  * guess about thousands separators. A leading U+2212 minus sign is read as "-".
- * Hex, binary, "Infinity" and the empty cell, all of which JavaScript's Number() accepts,
- * are refused here.
+ * JavaScript's Number() does the conversion (correctly rounded, ECMA-262 StringToNumber);
+ * the forms it accepts that a meter never writes (the empty cell, "Infinity", 0x/0b/0o
+ * prefixes) are refused here.
  *
  * @returns the number (possibly ±Infinity for "1e999"), or NaN when the cell is not a number
  * @example readNumber(' 12,5 ', true) // 12.5
  */
 export function readNumber(cell: string, decimalComma: boolean): number {
   let text = cell.length > 0 && cell.charCodeAt(0) > 32 && cell.charCodeAt(cell.length - 1) > 32 ? cell : cell.trim();
-  if (text.charCodeAt(0) === 0x2212) text = `-${text.slice(1)}`;
+  if (text === '') return Number.NaN;
+  let first = text.charCodeAt(0);
+  if (first === 0x2212) {
+    text = `-${text.slice(1)}`;
+    first = 45;
+  }
   if (decimalComma) {
     const comma = text.indexOf(',');
     if (comma !== -1) {
@@ -21,7 +25,14 @@ export function readNumber(cell: string, decimalComma: boolean): number {
       text = `${text.slice(0, comma)}.${text.slice(comma + 1)}`;
     }
   }
-  return numberPattern.test(text) ? Number(text) : Number.NaN;
+  const value = Number(text);
+  if (value !== value) return Number.NaN;
+  if (first === 48 && text.length > 1) {
+    const prefix = text.charCodeAt(1) | 32;
+    if (prefix === 120 || prefix === 98 || prefix === 111) return Number.NaN;
+  }
+  if ((value === Infinity || value === -Infinity) && text.charCodeAt(first === 43 || first === 45 ? 1 : 0) === 73) return Number.NaN;
+  return value;
 }
 
 /**
