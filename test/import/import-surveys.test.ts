@@ -138,8 +138,8 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
     expect(oneByOne).toEqual(whole);
   });
 
-  it(`MIN_USABLE_READINGS is 3, the fewest a 2-parameter dipole fit needs for one degree of freedom`, () => {
-    // DESIGN.md catalog: dipole(moment, probeOffset, background); with the offset fixed, 2 free parameters
+  it('MIN_USABLE_READINGS is 3, the fewest readings that determine the 3-parameter dipole', () => {
+    // DESIGN.md catalog: dipole(moment, probeOffset, background), the smallest model
     expect(MIN_USABLE_READINGS).toBe(3);
   });
 });

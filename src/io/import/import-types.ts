@@ -115,8 +115,9 @@ export interface ImportResult {
 }
 
 /**
- * Fewest usable readings a survey needs: the smallest model in the catalog, the dipole
- * with background and probe offset fixed, has 2 free parameters (moment, background), and
- * a fit needs at least one degree of freedom beyond them to estimate its residual scale.
+ * Fewest usable readings a survey needs to be returned as a Survey: the smallest model in
+ * the catalog (DESIGN.md), the dipole, has 2–3 parameters (moment, background, and the
+ * probe offset unless it is fixed), so 3 readings are the fewest that can determine it.
+ * An honest uncertainty needs more (residual degrees of freedom); the fit layer says so.
  */
 export const MIN_USABLE_READINGS = 3;
