@@ -138,8 +138,10 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
     expect(oneByOne).toEqual(whole);
   });
 
-  it('MIN_USABLE_READINGS is 3, the fewest readings that determine the 3-parameter dipole', () => {
-    // DESIGN.md catalog: dipole(moment, probeOffset, background), the smallest model
+  it('importSurveys() returns a survey of MIN_USABLE_READINGS = 3 readings and refuses one of 2', () => {
+    // DESIGN.md catalog: the smallest model, dipole(moment, probeOffset, background), has 3 parameters
     expect(MIN_USABLE_READINGS).toBe(3);
+    expect(importSurveys('distance (mm),B (mT)\n10,1\n20,0.5\n30,0.2\n', { source }).surveys[0]?.readings).toHaveLength(3);
+    expect(() => importSurveys('distance (mm),B (mT)\n10,1\n20,0.5\n', { source })).toThrow(/Too few usable readings/);
   });
 });
