@@ -117,7 +117,7 @@ export function integrate(f: (x: number) => number, a: number, b: number, tol = 
 export function polygonByBiotSavart(
   current: number, vertices: readonly (readonly [number, number])[], x: number, y: number, z: number,
 ): [number, number, number] {
-  const total: [number, number, number] = [0, 0, 0];
+  const total = [0, 0, 0];
   for (let i = 0; i < vertices.length; i++) {
     const [ax, ay] = vertices[i]!;
     const [bx, by] = vertices[(i + 1) % vertices.length]!;
@@ -133,8 +133,8 @@ export function polygonByBiotSavart(
         const cross = component === 0 ? ly * rz : component === 1 ? -lx * rz : lx * ry - ly * rx;
         return cross * inverseCube;
       };
-      total[component] += ((mu0 * current) / (4 * Math.PI)) * integrate(integrand, 0, 1, 1e-14);
+      total[component] = total[component]! + ((mu0 * current) / (4 * Math.PI)) * integrate(integrand, 0, 1, 1e-14);
     }
   }
-  return total;
+  return [total[0]!, total[1]!, total[2]!];
 }
