@@ -53,19 +53,19 @@ export function thresholdsPanel(settings: () => FitSettings, update: (change: Pa
   const presetId = uniqueId('preset');
   const preset = h('select', { id: presetId },
     Object.entries(thresholdPresets).map(([id, level]) => h('option', { value: id }, `${formatQuantity(level.value, 'field', { significant: 3 })} — ${level.label ?? id}`)));
-  const addPreset = h('button', { type: 'button' }, 'Add');
+  const addPreset = h('button', { type: 'button', 'aria-label': 'Add the preset level' }, 'Add');
   addPreset.addEventListener('click', () => tryAdd(preset.value));
 
   const groupId = uniqueId('group');
   const group = h('select', { id: groupId }, h('option', { value: 'public' }, 'general public'), h('option', { value: 'occupational' }, 'occupational'));
   const frequencyId = uniqueId('frequency');
   const frequency = h('input', { id: frequencyId, type: 'text', value: '50 Hz', size: 8, autocomplete: 'off' });
-  const addIcnirp = h('button', { type: 'button' }, 'Add');
+  const addIcnirp = h('button', { type: 'button', 'aria-label': 'Add the ICNIRP 2010 reference level' }, 'Add');
   addIcnirp.addEventListener('click', () => tryAdd(`icnirp-${group.value}@${frequency.value.replace(/\s+/g, '')}`));
 
   const customId = uniqueId('custom-level');
   const custom = h('input', { id: customId, type: 'text', placeholder: 'e.g. 0.2 mT', size: 10, autocomplete: 'off', 'aria-describedby': addError.id });
-  const addCustom = h('button', { type: 'button' }, 'Add');
+  const addCustom = h('button', { type: 'button', 'aria-label': 'Add your level' }, 'Add');
   addCustom.addEventListener('click', () => { if (tryAdd(custom.value.trim())) custom.value = ''; });
   custom.addEventListener('keydown', (event) => { if (event.key === 'Enter') { event.preventDefault(); addCustom.click(); } });
 
