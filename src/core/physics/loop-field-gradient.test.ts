@@ -6,7 +6,7 @@ import { centralDifference } from '../../../test/support/central-difference';
 
 const gradient = new Float64Array(7);
 const out = new Float64Array(2);
-const at = (radius: number, z: number, rho: number) => {
+const at = (radius: number, z: number, rho: number): [number, number] => {
   loopField(1, radius, z, rho, out);
   return [out[0]!, out[1]!];
 };
