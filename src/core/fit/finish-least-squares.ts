@@ -3,15 +3,10 @@ import type { LeastSquaresProblem, LeastSquaresSolution, StopCode } from './leas
 import type { PreparedLeastSquares } from './prepare-least-squares';
 import { weightedJacobian } from './weighted-jacobian';
 
-const CONVERGED: ReadonlySet<StopCode> = new Set<StopCode>([
-  'cost-tolerance',
-  'step-tolerance',
-  'cost-and-step-tolerance',
-  'gradient-tolerance',
-  'exact-fit',
-  'machine-precision',
-  'no-free-parameters',
-]);
+/** Stop codes that mean a tolerance test (or nothing to do) ended the search. */
+function isConverged(code: StopCode): boolean {
+  return code !== 'max-evaluations' && code !== 'max-iterations' && code !== 'aborted' && code !== 'non-finite-start';
+}
 
 /**
  * Package the state of a finished {@link fitLeastSquares} run: copy θ̂, predictions and
@@ -28,41 +23,47 @@ export function finishLeastSquares(
   const { ws, map, settings } = setup;
   const { m, p } = ws;
   const k = map.count;
-  const warnings = [...setup.warnings];
+  const warnings = setup.warnings;
   let spent = evaluations;
-  let jacobian = new Float64Array(0);
+  // Plain arrays filled by index: far cheaper than off-heap typed arrays for a per-fit result.
+  let jacobian: number[] = [];
   if (stopCode !== 'non-finite-start' && k > 0) {
     spent += weightedJacobian(problem, map, ws, settings.differenceStep, ws.jacobian);
-    jacobian = new Float64Array(m * k);
-    for (let j = 0; j < k; j++) for (let i = 0; i < m; i++) jacobian[i * k + j] = ws.jacobian[i + j * m]!;
+    jacobian = new Array<number>(m * k);
+    for (let i = 0; i < m; i++) for (let j = 0; j < k; j++) jacobian[i * k + j] = ws.jacobian[i + j * m]!;
   }
-  const atBound = new Array<boolean>(p).fill(false);
-  for (let j = 0; j < k; j++) {
+  const atBound = new Array<boolean>(p);
+  for (let j = 0; j < p; j++) atBound[j] = false;
+  const freeIndices = new Array<number>(k);
+  for (let j = 0; j < k; j++) freeIndices[j] = map.index[j]!;
+  for (let j = 0; map.bounded && j < k; j++) {
     const at = map.index[j]!;
     if (onBound(map, j, ws.params[at]!)) {
       atBound[at] = true;
       warnings.push(`parameter ${at} ended on its bound (${ws.params[at]})`);
     }
   }
-  const predicted = ws.predicted.slice();
-  const residuals = new Float64Array(m);
+  const predicted = new Array<number>(m);
+  const residuals = new Array<number>(m);
   let chiSquare = 0;
   let rss = 0;
   for (let i = 0; i < m; i++) {
-    const r = problem.observed[i]! - predicted[i]!;
+    const f = ws.predicted[i]!;
+    const r = problem.observed[i]! - f;
+    predicted[i] = f;
     residuals[i] = r;
     rss += r * r;
     const z = r * ws.inverseUncertainty[i]!;
     chiSquare += z * z;
   }
   return {
-    converged: CONVERGED.has(stopCode),
+    converged: isConverged(stopCode),
     stopCode,
     stopReason: describeStop(stopCode, setup),
     iterations,
     evaluations: spent,
     params: ws.params.slice(),
-    freeIndices: Array.from(map.index),
+    freeIndices,
     chiSquare,
     rss,
     predicted,

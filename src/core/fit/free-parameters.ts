@@ -17,24 +17,29 @@ import {
  */
 export interface FreeParameters {
   readonly count: number;
-  /** index[j] = position in θ of free parameter j. */
+  /** True when any free parameter has a bound (the chain rule through dθ/du is needed). */
+  readonly bounded: boolean;
+  /** index[j] = position in θ of free parameter j (entries beyond `count` are stale). */
   readonly index: Int32Array;
   readonly kind: Uint8Array;
   readonly lower: Float64Array;
   readonly upper: Float64Array;
   /** Length scale of the one-sided transforms. */
   readonly scale: Float64Array;
-  /** Floor of the finite-difference step base. */
+  /** Base of the finite-difference step when θⱼ = 0. */
   readonly typicalSize: Float64Array;
 }
+
+/** Buffers of length p that a FreeParameters map is written into (see the workspace). */
+export type FreeParameterBuffers = Omit<FreeParameters, 'count' | 'bounded'>;
 
 /** Where a start on or outside a bound is moved: this fraction of the range (or scale) inside. */
 const INSET = 1e-3;
 
 /**
- * Build the free-parameter map from the options and move any start that sits on or
- * outside its bounds just inside them (a transform has zero slope on the bound), with
- * a warning. `params` holds θ₀ on entry and the possibly moved start on return.
+ * Build the free-parameter map from the options into `buffers` and move any start that
+ * sits on or outside its bounds just inside them (a transform has zero slope on the
+ * bound), with a warning. `params` holds θ₀ on entry and the possibly moved start on return.
  * @throws RangeError when option lengths do not match p or a lower bound exceeds its upper.
  */
 export function freeParameters(
@@ -44,46 +49,27 @@ export function freeParameters(
   upper: ArrayLike<number> | undefined,
   typicalSize: ArrayLike<number> | undefined,
   warnings: string[],
+  buffers: FreeParameterBuffers,
 ): FreeParameters {
   const p = params.length;
-  for (const [name, array] of [['fixed', fixed], ['lower', lower], ['upper', upper], ['typicalSize', typicalSize]] as const) {
-    if (array !== undefined && array.length !== p) {
-      throw new RangeError(`least squares: ${name} has length ${array.length}, expected ${p}`);
-    }
-  }
-  const chosen: number[] = [];
-  for (let j = 0; j < p; j++) {
-    const lo = lower?.[j] ?? -Infinity;
-    const hi = upper?.[j] ?? Infinity;
-    if (!(lo <= hi)) throw new RangeError(`least squares: parameter ${j} has lower bound ${lo} above upper bound ${hi}`);
-    if (fixed?.[j] === true) continue;
+  checkLength('fixed', fixed, p);
+  checkLength('lower', lower, p);
+  checkLength('upper', upper, p);
+  checkLength('typicalSize', typicalSize, p);
+  let k = 0;
+  let bounded = false;
+  for (let at = 0; at < p; at++) {
+    const lo = lower === undefined ? -Infinity : lower[at]!;
+    const hi = upper === undefined ? Infinity : upper[at]!;
+    if (!(lo <= hi)) throw new RangeError(`least squares: parameter ${at} has lower bound ${lo} above upper bound ${hi}`);
+    if (fixed !== undefined && fixed[at] === true) continue;
     if (lo === hi) {
-      params[j] = lo;
-      warnings.push(`parameter ${j} has equal bounds and is held at ${lo}`);
+      params[at] = lo;
+      warnings.push(`parameter ${at} has equal bounds and is held at ${lo}`);
       continue;
     }
-    chosen.push(j);
-  }
-  const k = chosen.length;
-  const map: FreeParameters = {
-    count: k,
-    index: Int32Array.from(chosen),
-    kind: new Uint8Array(k),
-    lower: new Float64Array(k),
-    upper: new Float64Array(k),
-    scale: new Float64Array(k),
-    typicalSize: new Float64Array(k),
-  };
-  for (let j = 0; j < k; j++) {
-    const at = chosen[j]!;
-    const lo = lower?.[at] ?? -Infinity;
-    const hi = upper?.[at] ?? Infinity;
     const kind = boundKind(lo, hi);
-    const typical = Math.abs(typicalSize?.[at] ?? 1) || 1;
-    map.kind[j] = kind;
-    map.lower[j] = lo;
-    map.upper[j] = hi;
-    map.typicalSize[j] = typical;
+    const typical = Math.abs(typicalSize === undefined ? 1 : typicalSize[at]!) || 1;
     const x = params[at]!;
     let moved = x;
     if (kind === TWO_SIDED && !(x > lo && x < hi)) moved = x >= hi ? hi - INSET * (hi - lo) : lo + INSET * (hi - lo);
@@ -93,9 +79,22 @@ export function freeParameters(
       warnings.push(`start of parameter ${at} (${x}) was on or outside its bounds [${lo}, ${hi}]; moved to ${moved}`);
       params[at] = moved;
     }
-    map.scale[j] = kind === LOWER_ONLY ? moved - lo : kind === UPPER_ONLY ? hi - moved : 1;
+    buffers.index[k] = at;
+    buffers.kind[k] = kind;
+    buffers.lower[k] = lo;
+    buffers.upper[k] = hi;
+    buffers.typicalSize[k] = typical;
+    buffers.scale[k] = kind === LOWER_ONLY ? moved - lo : kind === UPPER_ONLY ? hi - moved : 1;
+    if (kind !== UNBOUNDED) bounded = true;
+    k += 1;
   }
-  return map;
+  return { count: k, bounded, ...buffers };
+}
+
+function checkLength(name: string, array: ArrayLike<unknown> | undefined, p: number): void {
+  if (array !== undefined && array.length !== p) {
+    throw new RangeError(`least squares: ${name} has length ${array.length}, expected ${p}`);
+  }
 }
 
 /** Internal variables u from θ (length k from length p). */

@@ -89,15 +89,15 @@ export interface LeastSquaresSolution {
   readonly chiSquare: number;
   /** Σ (yᵢ − fᵢ)², unweighted. */
   readonly rss: number;
-  /** fᵢ(θ̂), length m. */
-  readonly predicted: Float64Array;
+  /** fᵢ(θ̂), length m. (Plain arrays: V8 allocates small typed arrays off-heap, ~10× slower.) */
+  readonly predicted: readonly number[];
   /** yᵢ − fᵢ(θ̂), length m. */
-  readonly residuals: Float64Array;
+  readonly residuals: readonly number[];
   /**
    * Weighted Jacobian (∂fᵢ/∂θⱼ)/σᵢ at θ̂ in the ORIGINAL parameters, free columns only,
    * row-major m×k — the input of the covariance (stats/least-squares-covariance.ts).
    */
-  readonly jacobian: Float64Array;
+  readonly jacobian: readonly number[];
   /** Per parameter (length p): true when a free θⱼ ended on one of its bounds. */
   readonly atBound: readonly boolean[];
   /** Things the caller should pass on (start moved inside its bounds, …). */

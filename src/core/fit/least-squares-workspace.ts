@@ -1,4 +1,5 @@
 import type { DampingScratch } from './damping-parameter';
+import type { FreeParameterBuffers } from './free-parameters';
 
 /**
  * Preallocated buffers for {@link fitLeastSquares} with m observations and p parameters,
@@ -34,9 +35,13 @@ export interface LeastSquaresWorkspace {
   readonly rdiag: Float64Array;
   readonly columnNorms: Float64Array;
   readonly work: Float64Array;
+  /** k×k scratch for the normal equations. */
+  readonly gram: Float64Array;
   readonly derivative: Float64Array;
   readonly pivot: Int32Array;
   readonly damping: DampingScratch;
+  /** Free-parameter map storage. */
+  readonly free: FreeParameterBuffers;
 }
 
 /** Allocate a workspace for m observations and p parameters. */
@@ -65,8 +70,10 @@ export function createLeastSquaresWorkspace(m: number, p: number): LeastSquaresW
     rdiag: vp(),
     columnNorms: vp(),
     work: vp(),
+    gram: new Float64Array(p * p),
     derivative: vp(),
     pivot: new Int32Array(p),
     damping: { sdiag: vp(), work1: vp(), work2: vp(), work3: vp() },
+    free: { index: new Int32Array(p), kind: new Uint8Array(p), lower: vp(), upper: vp(), scale: vp(), typicalSize: vp() },
   };
 }

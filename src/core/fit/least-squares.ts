@@ -1,3 +1,4 @@
+import { choleskyFactorize } from './cholesky-factorize';
 import { dampingParameter } from './damping-parameter';
 import { finishLeastSquares } from './finish-least-squares';
 import { internalDerivatives, paramsFromInternal } from './free-parameters';
@@ -15,8 +16,9 @@ const EPSILON = 2.220446049250313e-16;
  * Notes in Mathematics 630, 1978; Moré, Garbow & Hillstrom, ANL-80-74, 1980):
  * minimises χ²(θ) = Σ ((yᵢ − fᵢ(θ))/σᵢ)² over the free parameters.
  *
- * Each iteration factors the weighted Jacobian by Householder QR with column pivoting,
- * chooses the damping so the step fits a trust region measured in Marquardt's scaled
+ * Each iteration factors the weighted Jacobian — pivoted Cholesky of the normal
+ * equations when they are well conditioned, Householder QR with column pivoting
+ * otherwise (both give the same R) — chooses the damping so the step fits a trust region measured in Marquardt's scaled
  * norm ‖D·δ‖ (D = running maximum of Jacobian column norms), and takes the step only if
  * it lowers χ² (ratio of actual to predicted reduction ≥ 10⁻⁴); the radius grows or
  * shrinks with that ratio. Stops on relative tolerances (cost, step, gradient),
@@ -55,20 +57,25 @@ export function fitLeastSquares(
     if (aborted(settings.signal)) { stop = 'aborted'; break; }
     if (iterations >= settings.maxIterations) { stop = 'max-iterations'; break; }
     evaluations += weightedJacobian(problem, map, ws, settings.differenceStep, J);
-    // Chain rule into the internal variables: ∂f/∂u = ∂f/∂θ · dθ/du.
-    internalDerivatives(map, internal, ws.derivative);
-    for (let j = 0; j < k; j++) {
-      const d = ws.derivative[j]!;
-      for (let i = j * m, end = i + m; i < end; i++) J[i]! *= d;
+    if (map.bounded) {
+      // Chain rule into the internal variables: ∂f/∂u = ∂f/∂θ · dθ/du.
+      internalDerivatives(map, internal, ws.derivative);
+      for (let j = 0; j < k; j++) {
+        const d = ws.derivative[j]!;
+        for (let i = j * m, end = i + m; i < end; i++) J[i]! *= d;
+      }
     }
-    qrFactorize(m, k, J, pivot, ws.rdiag, ws.columnNorms, work);
+    // Normal equations when they are well conditioned (cheap for small k), else Householder QR.
+    if (!choleskyFactorize(m, k, J, ws.residuals, pivot, ws.columnNorms, qtf, ws.gram, work)) {
+      qrFactorize(m, k, J, pivot, ws.rdiag, ws.columnNorms, work);
+      ws.trialResiduals.set(ws.residuals);
+      applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
+    }
     if (first) {
       for (let j = 0; j < k; j++) scale[j] = ws.columnNorms[j] === 0 ? 1 : ws.columnNorms[j]!;
       xnorm = scaledNorm(scale, internal, k);
       trustRadius = xnorm === 0 ? settings.initialStepFactor : settings.initialStepFactor * xnorm;
     }
-    ws.trialResiduals.set(ws.residuals);
-    applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
     // Largest cosine between the residual vector and a Jacobian column.
     let gnorm = 0;
     if (fnorm !== 0) {
@@ -118,7 +125,7 @@ export function fitLeastSquares(
         damping *= 0.5;
       }
       if (ratio >= 1e-4) {
-        internal.set(trialInternal.subarray(0, k));
+        for (let j = 0; j < k; j++) internal[j] = trialInternal[j]!;
         ws.params.set(ws.trialParams);
         ws.predicted.set(ws.trialPredicted);
         ws.residuals.set(ws.trialResiduals);

@@ -62,7 +62,7 @@ export function prepareLeastSquares(
     ws.inverseUncertainty[i] = 1 / s;
   }
   const warnings: string[] = [];
-  const map = freeParameters(ws.params, options.fixed, options.lower, options.upper, options.typicalSize, warnings);
+  const map = freeParameters(ws.params, options.fixed, options.lower, options.upper, options.typicalSize, warnings, ws.free);
   if (m < map.count) {
     throw new RingfallError(
       'FIT_UNDERDETERMINED',

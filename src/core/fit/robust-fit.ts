@@ -84,7 +84,7 @@ export function fitRobust(
 }
 
 /** Write uᵢ = rᵢ/(σᵢ·s) and return s (1 when stated, else 1.4826·median|r/σ|). */
-function standardize(residuals: Float64Array, sigma: Float64Array, stated: boolean, out: Float64Array): number {
+function standardize(residuals: ArrayLike<number>, sigma: Float64Array, stated: boolean, out: Float64Array): number {
   for (let i = 0; i < out.length; i++) out[i] = residuals[i]! / sigma[i]!;
   let scale = 1;
   if (!stated) {

@@ -13,3 +13,4 @@ export { studentTQuantile } from './student-t-quantile';
 export { chiSquareSurvival } from './chi-square-survival';
 export { normalQuantile, normalUpperTail } from './normal-quantile';
 export { regularizedUpperGamma } from './regularized-incomplete-gamma';
+export { triangularFactor } from './triangular-factor';

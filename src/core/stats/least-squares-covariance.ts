@@ -1,4 +1,5 @@
 import { singularValues } from './singular-value-decomposition';
+import { triangularFactor } from './triangular-factor';
 
 /** What {@link leastSquaresCovariance} finds out about the linearised problem. */
 export interface CovarianceResult {
@@ -15,8 +16,8 @@ export interface CovarianceResult {
    * unit vector in the equilibrated coordinates θⱼ·‖Jⱼ‖; empty at full rank. With full
    * rank, `weakestDirection` is the least constrained direction in the same coordinates.
    */
-  readonly flatDirections: readonly Float64Array[];
-  readonly weakestDirection: Float64Array;
+  readonly flatDirections: readonly (readonly number[])[];
+  readonly weakestDirection: readonly number[];
   /** Euclidean norms ‖Jⱼ‖ of the weighted Jacobian's columns (the equilibration D). */
   readonly columnNorms: Float64Array;
 }
@@ -26,7 +27,8 @@ export interface CovarianceResult {
  * Jacobian (rows (∂f/∂θ)/σᵢ): c = 1 when the σᵢ are stated standard uncertainties,
  * c = s² = χ²/(n − k) when they are only relative weights (DOMAIN.md §7.4; Bevington &
  * Robinson, 3rd ed., §8.5). No inverse of JᵀWJ is formed: with D the column norms of J
- * and D⁻¹-scaled J = U·Σ·Vᵀ (one-sided Jacobi SVD), Cov = c·D⁻¹·V·Σ⁻²·Vᵀ·D⁻¹. Rank is
+ * and D⁻¹-scaled J = Q·R, R = U·Σ·Vᵀ (Householder QR, then one-sided Jacobi SVD of R),
+ * Cov = c·D⁻¹·V·Σ⁻²·Vᵀ·D⁻¹. Rank is
  * decided on the equilibrated J with a relative tolerance, so units do not matter.
  *
  * @param jacobian weighted Jacobian, row-major n×k (LeastSquaresSolution.jacobian).
@@ -36,7 +38,7 @@ export interface CovarianceResult {
  * // straight line through x = 0, 1, 2 with σ = 1: Var(slope) = 1/Σ(x − x̄)² = 0.5
  */
 export function leastSquaresCovariance(
-  jacobian: Float64Array,
+  jacobian: ArrayLike<number>,
   n: number,
   k: number,
   options: { readonly scale: 'stated' | 'estimated'; readonly chiSquare: number; readonly rankTolerance?: number },
@@ -48,17 +50,23 @@ export function leastSquaresCovariance(
     for (let i = 0; i < n; i++) sum += jacobian[i * k + j]! ** 2;
     norms[j] = Math.sqrt(sum);
   }
-  const equilibrated = Float64Array.from(jacobian, (value, index) => {
-    const norm = norms[index % k]!;
-    return norm === 0 ? 0 : value / norm;
-  });
-  const { values, vectors } = singularValues(equilibrated, n, k);
+  const equilibrated = new Array<number>(n * k);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < k; j++) equilibrated[i * k + j] = norms[j] === 0 ? 0 : jacobian[i * k + j]! / norms[j]!;
+  }
+  // Same singular values and V as the tall matrix, at a fraction of the Jacobi cost.
+  const { values, vectors } = singularValues(triangularFactor(equilibrated, n, k), k, k);
   const largest = values[0] ?? 0;
   let rank = 0;
   while (rank < k && values[rank]! > tolerance * largest) rank += 1;
-  const column = (c: number): Float64Array => Float64Array.from({ length: k }, (_, r) => vectors[r * k + c]!);
-  const flatDirections = Array.from({ length: k - rank }, (_, index) => column(rank + index));
-  const weakestDirection = k > 0 ? column(k - 1) : new Float64Array(0);
+  const column = (c: number): number[] => {
+    const out = new Array<number>(k);
+    for (let r = 0; r < k; r++) out[r] = vectors[r * k + c]!;
+    return out;
+  };
+  const flatDirections: number[][] = [];
+  for (let c = rank; c < k; c++) flatDirections.push(column(c));
+  const weakestDirection = k > 0 ? column(k - 1) : [];
   const conditionNumber = rank < k || k === 0 ? Infinity : largest / values[k - 1]!;
   const scaleFactor = options.scale === 'stated' ? 1 : n > k ? options.chiSquare / (n - k) : NaN;
   if (rank < k || !Number.isFinite(scaleFactor)) {

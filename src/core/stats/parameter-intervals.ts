@@ -28,11 +28,25 @@ export function parameterIntervals(
   level = 0.95,
 ): ParameterIntervals {
   const k = values.length;
-  const coverageFactor = studentTQuantile((1 + level) / 2, degreesOfFreedom);
+  const coverageFactor = coverageQuantile((1 + level) / 2, degreesOfFreedom);
   const standardErrors = Float64Array.from({ length: k }, (_, j) => Math.sqrt(Math.max(0, covariance[j * k + j]!)));
   const intervals = Array.from({ length: k }, (_, j): readonly [number, number] => {
     const half = coverageFactor * standardErrors[j]!;
     return [values[j]! - half, values[j]! + half];
   });
   return { standardErrors, intervals, coverageFactor };
+}
+
+// One-entry memo: fits of one survey ask for the same quantile over and over.
+let memoProbability = NaN;
+let memoFreedom = NaN;
+let memoValue = NaN;
+
+function coverageQuantile(probability: number, degreesOfFreedom: number): number {
+  if (probability !== memoProbability || degreesOfFreedom !== memoFreedom) {
+    memoValue = studentTQuantile(probability, degreesOfFreedom);
+    memoProbability = probability;
+    memoFreedom = degreesOfFreedom;
+  }
+  return memoValue;
 }

@@ -1,9 +1,9 @@
 /** Thin SVD A = U·diag(σ)·Vᵀ of an m×n matrix (m ≥ n), V only. */
 export interface SingularValues {
   /** σ₁ ≥ σ₂ ≥ … ≥ σₙ ≥ 0. */
-  readonly values: Float64Array;
+  readonly values: readonly number[];
   /** Right singular vectors, row-major n×n: column c (v[r·n + c]) belongs to values[c]. */
-  readonly vectors: Float64Array;
+  readonly vectors: readonly number[];
 }
 
 /**
@@ -14,14 +14,18 @@ export interface SingularValues {
  * Small singular values come out with high relative accuracy, which is what a rank or
  * flat-direction test needs. For the small matrices of a fit (n ≤ ~10).
  *
+ * Plain arrays throughout: V8 allocates typed arrays over 64 bytes off-heap, which costs
+ * more than the arithmetic at these sizes.
+ *
  * @param a row-major m×n (not modified).
  * @example
- * singularValues(Float64Array.of(3, 0, 0, 4), 2, 2).values; // [4, 3]
+ * singularValues([3, 0, 0, 4], 2, 2).values; // [4, 3]
  */
-export function singularValues(a: Float64Array, m: number, n: number): SingularValues {
-  const u = Float64Array.from(a);
-  const v = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) v[i * n + i] = 1;
+export function singularValues(a: ArrayLike<number>, m: number, n: number): SingularValues {
+  const u = new Array<number>(m * n);
+  for (let i = 0; i < m * n; i++) u[i] = a[i]!;
+  const v = new Array<number>(n * n);
+  for (let i = 0; i < n * n; i++) v[i] = i % (n + 1) === 0 ? 1 : 0;
   for (let sweep = 0; sweep < 60; sweep++) {
     let rotated = false;
     for (let p = 0; p < n - 1; p++) {
@@ -48,21 +52,35 @@ export function singularValues(a: Float64Array, m: number, n: number): SingularV
     }
     if (!rotated) break;
   }
-  const norms = Array.from({ length: n }, (_, c) => {
+  const norms = new Array<number>(n);
+  const order = new Array<number>(n);
+  for (let c = 0; c < n; c++) {
     let sum = 0;
-    for (let i = 0; i < m; i++) sum += u[i * n + c]! ** 2;
-    return Math.sqrt(sum);
-  });
-  const order = norms.map((_, c) => c).sort((x, y) => norms[y]! - norms[x]!);
-  const values = Float64Array.from(order, (c) => norms[c]!);
-  const vectors = new Float64Array(n * n);
-  order.forEach((from, to) => {
+    for (let i = 0; i < m; i++) sum += u[i * n + c]! * u[i * n + c]!;
+    norms[c] = Math.sqrt(sum);
+    order[c] = c;
+  }
+  // Insertion sort by decreasing σ (n is small).
+  for (let c = 1; c < n; c++) {
+    const item = order[c]!;
+    let at = c;
+    while (at > 0 && norms[order[at - 1]!]! < norms[item]!) {
+      order[at] = order[at - 1]!;
+      at -= 1;
+    }
+    order[at] = item;
+  }
+  const values = new Array<number>(n);
+  const vectors = new Array<number>(n * n);
+  for (let to = 0; to < n; to++) {
+    const from = order[to]!;
+    values[to] = norms[from]!;
     for (let r = 0; r < n; r++) vectors[r * n + to] = v[r * n + from]!;
-  });
+  }
   return { values, vectors };
 }
 
-function rotate(x: Float64Array, rows: number, n: number, p: number, q: number, c: number, s: number): void {
+function rotate(x: number[], rows: number, n: number, p: number, q: number, c: number, s: number): void {
   for (let i = 0; i < rows; i++) {
     const xp = x[i * n + p]!;
     const xq = x[i * n + q]!;
