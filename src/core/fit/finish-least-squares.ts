@@ -5,7 +5,13 @@ import { weightedJacobian } from './weighted-jacobian';
 
 /** Stop codes that mean a tolerance test (or nothing to do) ended the search. */
 function isConverged(code: StopCode): boolean {
-  return code !== 'max-evaluations' && code !== 'max-iterations' && code !== 'aborted' && code !== 'non-finite-start';
+  return (
+    code !== 'max-evaluations' &&
+    code !== 'max-iterations' &&
+    code !== 'aborted' &&
+    code !== 'non-finite-start' &&
+    code !== 'non-finite-jacobian'
+  );
 }
 
 /**
@@ -99,5 +105,7 @@ function describeStop(code: StopCode, setup: PreparedLeastSquares): string {
       return 'not converged: aborted by the caller';
     case 'non-finite-start':
       return 'not converged: the model gave a non-finite value at the starting point';
+    case 'non-finite-jacobian':
+      return 'not converged: the Jacobian has a non-finite entry at the current point';
   }
 }

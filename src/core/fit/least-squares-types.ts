@@ -68,7 +68,8 @@ export type StopCode =
   | 'max-evaluations'
   | 'max-iterations'
   | 'aborted'
-  | 'non-finite-start';
+  | 'non-finite-start'
+  | 'non-finite-jacobian';
 
 /** What {@link fitLeastSquares} returns; it never throws for non-convergence. */
 export interface LeastSquaresSolution {

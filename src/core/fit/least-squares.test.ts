@@ -125,6 +125,12 @@ describe('fitLeastSquares(problem, options)', () => {
     expectClose(fit.params[0]!, 2, { rel: 1e-9 });
   });
 
+  it('fitLeastSquares() stops with non-finite-jacobian instead of iterating on NaN derivatives', () => {
+    const broken: LeastSquaresProblem = { ...decay, jacobian: (_, out) => out.fill(NaN) };
+    const fit = fitLeastSquares(broken, { initial: [1, 1] });
+    expect(fit).toMatchObject({ converged: false, stopCode: 'non-finite-jacobian', iterations: 0 });
+  });
+
   it('every accepted step lowers χ²: χ² after i iterations decreases strictly with i', () => {
     const start = new Float64Array(x.length);
     decay.predict(Float64Array.of(10, 2), start);

@@ -71,6 +71,7 @@ export function fitLeastSquares(
       ws.trialResiduals.set(ws.residuals);
       applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
     }
+    if (!allFinite(ws.columnNorms, k)) { stop = 'non-finite-jacobian'; break; }
     if (first) {
       for (let j = 0; j < k; j++) scale[j] = ws.columnNorms[j] === 0 ? 1 : ws.columnNorms[j]!;
       xnorm = scaledNorm(scale, internal, k);
@@ -161,4 +162,9 @@ function scaledNorm(d: Float64Array | null, v: Float64Array, k: number): number 
 
 function aborted(signal: AbortFlag | undefined): boolean {
   return signal !== undefined && signal.aborted;
+}
+
+function allFinite(values: Float64Array, k: number): boolean {
+  for (let j = 0; j < k; j++) if (!Number.isFinite(values[j])) return false;
+  return true;
 }
