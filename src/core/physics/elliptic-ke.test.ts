@@ -114,11 +114,13 @@ describe('ellipticKE()', () => {
     expect(Math.abs(ke(1 - 1e-12)[0] - 15.2018049190877151842)).toBeGreaterThan(1e-6);
   });
 
-  it('ellipticKE() converges in 4 AGM steps at m = 0.5 (DOMAIN counts 5 with an absolute 1e-16 stop)', () => {
-    // DOMAIN.md §9 row 65 gives 5 iterations with the stop |c| < 1e-16; our relative stop
-    // c_n ≤ 2⁻²⁶ a_n is one step earlier because the error after it is O(c_n²) (A&S §17.6)
-    expect(ellipticKE(0.5, out)).toBe(4);
-    expect(ellipticKE(0.99, out)).toBeLessThanOrEqual(6);
+  it('ellipticKE() converges in at most the 5 AGM steps DOMAIN counts at m = 0.5', () => {
+    // DOMAIN.md §9 row 65 gives 5 iterations with the stop |c| < 1e-16; our stop on the next
+    // c_{n+1} ≤ 2⁻²⁶ a_n is two steps earlier because the error after it is O(c²) (A&S §17.6)
+    expect(ellipticKE(0.5, out)).toBeLessThanOrEqual(5);
+    // regression pin, not truth
+    expect(ellipticKE(0.5, out)).toBe(3);
+    expect(ellipticKE(0.99, out)).toBeLessThanOrEqual(5);
   });
 
   it('ellipticKE() returns T with K − E = K(m/2 + T) exactly where K − E is tiny', () => {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { loopField, loopFieldOnAxis } from './loop-field';
+import { loopFieldBatch } from './loop-field-batch';
 import { dipoleField } from './dipole-field';
 import { vacuumPermeability } from './vacuum-permeability';
 import { expectClose } from '../../../test/support/expect-close';
@@ -156,5 +157,18 @@ describe('loopField()', () => {
     const [bz2, br2] = field(-7, 0.3, 0.06, 0.09);
     expectClose(bz2, (-7 * bz) / 3, { rel: 1e-14 });
     expectClose(br2, (-7 * br) / 3, { rel: 1e-14 });
+  });
+
+  it('loopFieldBatch() returns exactly loopField() at every point, in all regimes', () => {
+    // same code path per regime: on axis, paraxial, bulk (unrolled AGM), near the wire
+    const z = Float64Array.from([0.03, 0.05, 0.05, 0.02, 0.001, -0.3, 10, 0]);
+    const rho = Float64Array.from([0, 1e-7, 0.05, -0.13, 0.0999, 0.2, 3, 0.1]);
+    const axial = new Float64Array(z.length);
+    const radial = new Float64Array(z.length);
+    loopFieldBatch(4, 0.1, z, rho, axial, radial);
+    for (let i = 0; i < z.length; i++) {
+      const [bz, br] = field(4, 0.1, z[i]!, rho[i]!);
+      expect([axial[i], radial[i]]).toEqual([bz, br]);
+    }
   });
 });

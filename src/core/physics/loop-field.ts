@@ -70,27 +70,76 @@ export function loopField(ampereTurns: number, radius: number, z: number, rho: n
   }
   const sum = a + r;
   const difference = a - r;
-  const q = sum * sum + z * z;
-  const d = difference * difference + z * z;
+  const z2 = z * z;
+  const q = sum * sum + z2;
+  const d = difference * difference + z2;
+  if (4 * a * r <= 0.9 * q) {
+    loopFieldMidRange(ampereTurns, a, z, rho, out, 0, out, 1);
+    return;
+  }
   if (d === 0) {
     out[0] = NaN;
     out[1] = NaN;
     return;
   }
-  const m = (4 * a * r) / q;
-  ellipticKE(m, elliptic, d / q);
+  // near the wire (m > 0.9): the textbook brackets, 1 − m = D/Q from geometry
+  const inverseQ = 1 / q;
+  ellipticKE(4 * a * r * inverseQ, elliptic, d * inverseQ);
   const k = elliptic[0]!;
-  const scale = (vacuumPermeability * ampereTurns) / (2 * Math.PI * Math.sqrt(q));
+  const e = elliptic[1]!;
+  const scale = (vacuumPermeability / (2 * Math.PI)) * ampereTurns * Math.sqrt(inverseQ);
   // (a − ρ)(a + ρ) rather than a² − ρ²: exact where ρ ≈ a
   const aa = difference * sum;
-  const p = a * a + r * r + z * z;
-  if (m > 0.9) {
-    const e = elliptic[1]!;
-    out[0] = scale * (k + ((aa - z * z) / d) * e);
-    out[1] = sign * scale * (z / r) * (-k + (p / d) * e);
-    return;
-  }
-  const tail = elliptic[2]!;
-  out[0] = ((scale * k) / d) * ((2 * a * a * (aa + z * z)) / q - (aa - z * z) * tail);
-  out[1] = ((sign * scale * z * k) / d) * (a * m - (p * tail) / r);
+  out[0] = scale * (k + ((aa - z2) / d) * e);
+  out[1] = sign * scale * (z / r) * (-k + ((a * a + r * r + z2) / d) * e);
+}
+
+/**
+ * The loop field for parameter m = 4aρ/Q ≤ 0.9 off the axis (the bulk of space), written
+ * into axialOut[axialIndex] and radialOut[radialIndex]. Same formulas as loopField, arranged
+ * for speed without losing digits:
+ *  - the AGM runs unnormalised from a₀ = √Q, g₀ = √D, so μ0NI K/(2π√Q) = μ0NI/(4M) with
+ *    M = M(√Q, √D), and c₁ = (√Q − √D)/2 = 2aρ/(√Q + √D) has no cancellation;
+ *  - after two steps (branch-free, so the processor overlaps consecutive points) the
+ *    arguments a₂, g₂ agree to x = c₃/a₃ ≤ 1.6e-3 for m ≤ 0.9, and the rest of the AGM is
+ *    the series M(a₃(1 + x), a₃(1 − x)) = a₃(1 − x²/4 − 5x⁴/64 − 11x⁶/256 − …) (the Taylor
+ *    series of agm(1 + x, 1 − x), checked with mpmath 1.3.0), cut after x⁴ (next term
+ *    < 6e-19); the tail adds 8c₄² = c₃⁴/(2a₃²) to rounding;
+ *  - everything is put over one denominator, so one division remains. With
+ *    T_Q = Q·T = Σ 2^{n−1} c_n² (ellipticKE's T, unnormalised):
+ *      B_z = μ0NI [2a²(a² − ρ² + z²) − (a² − ρ² − z²) T_Q] / (4 M D Q)
+ *      B_ρ = μ0NI z [4a²ρ² − (a² + ρ² + z²) T_Q] / (4 M D Q ρ).
+ * Callers guarantee m ≤ 0.9 and ρ ≠ 0. SI: A, m, T.
+ */
+export function loopFieldMidRange(
+  ampereTurns: number, a: number, z: number, rho: number,
+  axialOut: Float64Array, axialIndex: number, radialOut: Float64Array, radialIndex: number,
+): void {
+  const r = rho < 0 ? -rho : rho;
+  const sum = a + r;
+  const difference = a - r;
+  const z2 = z * z;
+  const q = sum * sum + z2;
+  const d = difference * difference + z2;
+  const a0 = Math.sqrt(q);
+  const g0 = Math.sqrt(d);
+  const c1 = (2 * a * r) / (a0 + g0);
+  const a1 = 0.5 * (a0 + g0);
+  const g1 = Math.sqrt(a0 * g0);
+  const c2 = 0.5 * (a1 - g1);
+  const a2 = 0.5 * (a1 + g1);
+  const g2 = Math.sqrt(a1 * g1);
+  const c3 = 0.5 * (a2 - g2);
+  const a3 = 0.5 * (a2 + g2);
+  const a3Squared = a3 * a3;
+  const c3Squared = c3 * c3;
+  // a₃²·T_Q and a₃³·4M, so that neither needs its own division
+  const tailScaled = (c1 * c1 + 2 * c2 * c2 + 4 * c3Squared) * a3Squared + 0.5 * c3Squared * c3Squared;
+  const fourMScaled = 4 * a3Squared * a3Squared - a3Squared * c3Squared - 0.3125 * c3Squared * c3Squared;
+  const inverse = (vacuumPermeability * ampereTurns * a3) / (fourMScaled * d * q * r);
+  // (a − ρ)(a + ρ) rather than a² − ρ²: exact where ρ ≈ a
+  const aa = difference * sum;
+  axialOut[axialIndex] = inverse * r * (2 * a * a * (aa + z2) * a3Squared - (aa - z2) * tailScaled);
+  radialOut[radialIndex] = (rho < 0 ? -inverse : inverse) * z *
+    (4 * a * a * r * r * a3Squared - (a * a + r * r + z2) * tailScaled);
 }
