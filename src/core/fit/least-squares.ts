@@ -40,7 +40,7 @@ export function fitLeastSquares(
   workspace?: LeastSquaresWorkspace,
 ): LeastSquaresSolution {
   const setup = prepareLeastSquares(problem, options, workspace);
-  const { ws, map, warnings, settings } = setup;
+  const { ws, map, settings } = setup;
   const { m } = ws;
   const k = map.count;
   const { internal, trialInternal, step, scale, qtf, work, jacobian: J, pivot } = ws;
