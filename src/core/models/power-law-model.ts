@@ -1,0 +1,86 @@
+import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-model';
+import { logLogLine, medianOf, readingSign } from './initial-guess';
+import { backgroundParameter, probeOffsetParameter } from './model-reading';
+
+const amplitudeParameter: ParameterSpec = {
+  name: 'amplitude', unit: 'T·m^n', lower: -Infinity, upper: Infinity,
+  description: 'amplitude A of B = A/r^n (T·m^n, n the exponent)',
+};
+const exponentParameter: ParameterSpec = {
+  name: 'exponent', unit: '1', lower: 0, upper: Infinity,
+  description: 'apparent exponent n over the surveyed range (not a property of the coil)',
+};
+
+/**
+ * The descriptive power laws of DOMAIN.md §1.9, B = amplitude / r^n + background with
+ * r = √((distance + probeOffset)² + ρ²), which on the axis is DESIGN.md's
+ * amplitude/(d + probeOffset)^n. A power law has no direction, so the reading kind does not
+ * change the prediction. r ≤ 0 gives NaN (the fit rejects such steps).
+ *
+ * `power-law` fits n: parameters [amplitude (T·m^n), exponent (1), probeOffset (m),
+ * background (T)]; `inverse-square` and `inverse-cube` fix n = 2, 3: [amplitude,
+ * probeOffset, background].
+ *
+ * Jacobian: analytic, ∂/∂A = r^−n, ∂/∂n = −A r^−n ln r, ∂/∂δ = −nA r^(−n−2)(d + δ), ∂/∂bg = 1.
+ * Initial guess: the ordinary least-squares line through (ln d, ln|B|) — the slope is the
+ * datasheet exponent (DOMAIN.md §9 row 64) and the intercept ln A; for a fixed n,
+ * A = median(|B|·d^n); sign of the median reading for axial data.
+ */
+function powerLaw(id: ModelId, label: string, fixedExponent: number | null): FieldModel {
+  const free = fixedExponent === null;
+  const k = free ? 4 : 3;
+  const model: FieldModel = {
+    id,
+    label,
+    physical: false,
+    parameters: free
+      ? [amplitudeParameter, exponentParameter, probeOffsetParameter, backgroundParameter]
+      : [amplitudeParameter, probeOffsetParameter, backgroundParameter],
+    evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
+      const amplitude = params[0]!;
+      const exponent = free ? params[1]! : fixedExponent;
+      const offset = params[k - 2]!;
+      const background = params[k - 1]!;
+      for (let i = 0; i < points.n; i++) {
+        const axial = points.distance[i]! + offset;
+        const rho = points.radial[i]!;
+        const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        out[i] = (r > 0 ? amplitude * Math.pow(r, -exponent) : NaN) + background;
+      }
+    },
+    jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
+      const amplitude = params[0]!;
+      const exponent = free ? params[1]! : fixedExponent;
+      const offset = params[k - 2]!;
+      for (let i = 0; i < points.n; i++) {
+        const axial = points.distance[i]! + offset;
+        const rho = points.radial[i]!;
+        const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        const power = r > 0 ? Math.pow(r, -exponent) : NaN;
+        const row = k * i;
+        out[row] = power;
+        if (free) out[row + 1] = -amplitude * power * Math.log(r);
+        out[row + k - 2] = (-exponent * amplitude * power * axial) / (r * r);
+        out[row + k - 1] = 1;
+      }
+    },
+    initialGuess(points: SurveyPoints): Float64Array {
+      const sign = readingSign(points);
+      const line = free ? logLogLine(points.distance, points.field) : null;
+      const exponent = fixedExponent ?? (line !== null && -line.slope > 0 ? -line.slope : 2);
+      const amplitude = line !== null && -line.slope > 0
+        ? Math.exp(line.intercept)
+        : medianOf(Array.from(points.distance, (d, i) => (d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN)));
+      const start = Number.isFinite(amplitude) && amplitude > 0 ? sign * amplitude : sign * 1e-6;
+      return free ? Float64Array.of(start, exponent, 0, 0) : Float64Array.of(start, 0, 0);
+    },
+  };
+  return model;
+}
+
+/** Catalog model `power-law`: B = A/(d + δ)^n + background with n fitted (DOMAIN.md §1.9). */
+export const powerLawModel = powerLaw('power-law', 'power law A/r^n (descriptive)', null);
+/** Catalog model `inverse-square`: B = A/(d + δ)² + background (DOMAIN.md §1.9). */
+export const inverseSquareModel = powerLaw('inverse-square', 'inverse square A/r² (descriptive)', 2);
+/** Catalog model `inverse-cube`: B = A/(d + δ)³ + background, the dipole's on-axis law (DOMAIN.md §1.9). */
+export const inverseCubeModel = powerLaw('inverse-cube', 'inverse cube A/r³ (descriptive)', 3);
