@@ -2,11 +2,15 @@ import { coilPairField, coilPairFieldGradient } from '../physics/coil-pair-field
 import type { FieldModel, SurveyPoints } from './field-model';
 import { scanSize } from './initial-guess';
 import {
-  ampereTurnsParameter, backgroundParameter, fieldReading, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
+  ampereTurnsParameter, backgroundParameter, evaluateFromComponents, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
 } from './model-reading';
 
-const field = new Float64Array(2);
 const gradient = new Float64Array(8);
+
+/** Pair field at z = distance + probeOffset from the midpoint, ρ = radial. */
+function pairComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  coilPairField(params[0]!, params[1]!, params[2]!, distance + params[3]!, radial, out);
+}
 
 /**
  * Catalog model `coil-pair`: two identical coaxial flat loops with currents aiding
@@ -32,11 +36,9 @@ export const coilPairModel: FieldModel = {
     probeOffsetParameter,
     backgroundParameter,
   ],
+  components: pairComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    for (let i = 0; i < points.n; i++) {
-      coilPairField(params[0]!, params[1]!, params[2]!, points.distance[i]! + params[3]!, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + params[4]!;
-    }
+    evaluateFromComponents(pairComponents, 4, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const ampereTurns = params[0]!;

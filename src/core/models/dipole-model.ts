@@ -2,9 +2,14 @@ import { dipoleField, dipoleFieldGradient } from '../physics/dipole-field';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { medianOf, readingSign } from './initial-guess';
-import { backgroundParameter, fieldReading, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
+import { backgroundParameter, evaluateFromComponents, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
 const field = new Float64Array(4);
+
+/** Dipole field at z = distance + probeOffset from the datum, ρ = radial. */
+function dipoleComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  dipoleField(params[0]!, distance + params[1]!, radial, out);
+}
 
 /**
  * Catalog model `dipole`: a point magnetic dipole at the distance datum (DOMAIN.md §1.7),
@@ -27,11 +32,9 @@ export const dipoleModel: FieldModel = {
     probeOffsetParameter,
     backgroundParameter,
   ],
+  components: dipoleComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    for (let i = 0; i < points.n; i++) {
-      dipoleField(params[0]!, points.distance[i]! + params[1]!, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + params[2]!;
-    }
+    evaluateFromComponents(dipoleComponents, 2, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const moment = params[0]!;

@@ -62,4 +62,12 @@ export interface FieldModel {
   jacobian?(params: Float64Array, points: SurveyPoints, out: Float64Array): void;
   /** Data-driven starting values (SI, order of `parameters`), DOMAIN §1.1 heuristics. */
   initialGuess(points: SurveyPoints): Float64Array;
+  /**
+   * Field of the source alone (no background) at one survey position, with the model's
+   * distance datum and probe offset applied: out[0] = axial component B_z, out[1] = radial
+   * component B_ρ (T). Descriptive power laws have no direction: their value goes in
+   * out[0] and out[1] = 0. Optional so that stand-in models in tests need not provide it;
+   * every catalog model does.
+   */
+  components?(params: Float64Array, distance: number, radial: number, out: Float64Array): void;
 }

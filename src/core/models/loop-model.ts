@@ -4,11 +4,15 @@ import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
 import { scanSize } from './initial-guess';
 import {
-  ampereTurnsParameter, backgroundParameter, fieldReading, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
+  ampereTurnsParameter, backgroundParameter, evaluateFromComponents, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
 } from './model-reading';
 
-const field = new Float64Array(2);
 const gradient = new Float64Array(7);
+
+/** Loop field at z = distance + probeOffset (winding-plane datum), ρ = radial. */
+function loopComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  loopField(params[0]!, params[1]!, distance + params[2]!, radial, out);
+}
 
 /**
  * Catalog model `loop`: a flat circular coil of N turns (DOMAIN.md §1.1–1.2), parameters
@@ -29,15 +33,9 @@ export const loopModel: FieldModel = {
   label: 'circular loop (elliptic integrals)',
   physical: true,
   parameters: [ampereTurnsParameter, lengthParameter('radius', 'loop radius (to the middle of the winding)'), probeOffsetParameter, backgroundParameter],
+  components: loopComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    const ampereTurns = params[0]!;
-    const radius = params[1]!;
-    const offset = params[2]!;
-    const background = params[3]!;
-    for (let i = 0; i < points.n; i++) {
-      loopField(ampereTurns, radius, points.distance[i]! + offset, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + background;
-    }
+    evaluateFromComponents(loopComponents, 3, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const ampereTurns = params[0]!;

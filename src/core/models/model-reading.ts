@@ -1,5 +1,7 @@
 import type { ParameterSpec, SurveyPoints } from './field-model';
 
+const scratch = new Float64Array(2);
+
 /**
  * What the meter reads from a field with components (B_z, B_ρ): the magnitude √(B_z² + B_ρ²)
  * for kind 'magnitude', the signed axial component B_z for kind 'axial' (field-model.ts).
@@ -55,4 +57,21 @@ export const ampereTurnsParameter: ParameterSpec = {
 /** A length parameter of the winding (m), strictly positive in use. */
 export function lengthParameter(name: string, description: string): ParameterSpec {
   return { name, unit: 'm', lower: 0, upper: Infinity, description };
+}
+
+/** A model's field of the source alone at one survey position (FieldModel.components). */
+export type ComponentsFunction = (params: Float64Array, distance: number, radial: number, out: Float64Array) => void;
+
+/**
+ * FieldModel.evaluate from FieldModel.components: reading = fieldReading(kind, B_z, B_ρ) +
+ * params[backgroundIndex] at every point. Nothing allocated. SI: T.
+ */
+export function evaluateFromComponents(
+  components: ComponentsFunction, backgroundIndex: number, params: Float64Array, points: SurveyPoints, out: Float64Array,
+): void {
+  const background = params[backgroundIndex]!;
+  for (let i = 0; i < points.n; i++) {
+    components(params, points.distance[i]!, points.radial[i]!, scratch);
+    out[i] = fieldReading(points.kind, scratch[0]!, scratch[1]!) + background;
+  }
 }

@@ -148,3 +148,38 @@ describe('analytic Jacobians', () => {
     }
   }
 });
+
+describe('components()', () => {
+  it('every catalog model gives the source field alone at one position, consistent with evaluate()', () => {
+    // field-model.ts contract: reading = |B| or B_z of components + background
+    const params: Record<string, number[]> = {
+      'loop': [400, 0.05, 0.003, 2e-5],
+      'thick-coil': [500, 0.02, 0.04, 0.05, 0.002, 1e-5],
+      'solenoid': [100, 0.02, 0.1, 0.001, 3e-6],
+      'coil-pair': [50, 0.1, 0.12, 0.004, -1e-5],
+      'rectangle': [10, 0.2, 0.1, 0.002, 0],
+      'dipole': [0.3, 0.01, 1e-6],
+      'power-law': [3e-7, 2.4, 0.004, 1e-6],
+      'inverse-square': [3e-7, 0.004, 1e-6],
+      'inverse-cube': [3e-9, 0.004, 1e-6],
+    };
+    const out = new Float64Array(2);
+    for (const id of modelIds) {
+      const model = getModel(id);
+      const p = params[id]!;
+      model.components!(Float64Array.from(p), 0.03, 0.02, out);
+      const background = p[p.length - 1]!;
+      expectClose(predict(model, p, survey([0.03], [0.02]))[0]!, Math.hypot(out[0]!, out[1]!) + background, { rel: 1e-14 }, id);
+      expectClose(predict(model, p, survey([0.03], [0.02], 'axial'))[0]!, out[0]! + background, { rel: 1e-14 }, id);
+    }
+  });
+
+  it('loop components() at 10 mm out and 20 mm off axis of a 1 A·turn, 50 mm loop match the elliptic closed form', () => {
+    // computed with mpmath 1.3.0 (DOMAIN.md §1.2 with ellipk/ellipe, 30 digits): a = 0.05, z = 0.01, ρ = 0.02
+    const out = new Float64Array(2);
+    getModel('loop').components!(Float64Array.of(1, 0.05, 0, 0), 0.01, 0.02, out);
+    expectClose(out[0]!, 1.3050886516024164e-5, { rel: 1e-13 });
+    expectClose(out[1]!, 1.8077389170466586e-6, { rel: 1e-13 });
+  });
+});
+

@@ -15,7 +15,8 @@ const exponentParameter: ParameterSpec = {
  * The descriptive power laws of DOMAIN.md §1.9, B = amplitude / r^n + background with
  * r = √((distance + probeOffset)² + ρ²), which on the axis is DESIGN.md's
  * amplitude/(d + probeOffset)^n. A power law has no direction, so the reading kind does not
- * change the prediction. r ≤ 0 gives NaN (the fit rejects such steps).
+ * change the prediction; `components` puts the value in the axial slot with radial 0.
+ * r ≤ 0 gives NaN (the fit rejects such steps).
  *
  * `power-law` fits n: parameters [amplitude (T·m^n), exponent (1), probeOffset (m),
  * background (T)]; `inverse-square` and `inverse-cube` fix n = 2, 3: [amplitude,
@@ -36,6 +37,12 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
     parameters: free
       ? [amplitudeParameter, exponentParameter, probeOffsetParameter, backgroundParameter]
       : [amplitudeParameter, probeOffsetParameter, backgroundParameter],
+    components(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+      const axial = distance + params[k - 2]!;
+      const r = radial === 0 ? axial : Math.sqrt(axial * axial + radial * radial);
+      out[0] = r > 0 ? params[0]! * Math.pow(r, -(free ? params[1]! : fixedExponent)) : NaN;
+      out[1] = 0;
+    },
     evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
       const amplitude = params[0]!;
       const exponent = free ? params[1]! : fixedExponent;

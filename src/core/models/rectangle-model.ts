@@ -2,13 +2,18 @@ import { rectangleField, rectangleFieldOnAxisGradient } from '../physics/rectang
 import type { FieldModel, SurveyPoints } from './field-model';
 import { scanSize } from './initial-guess';
 import {
-  ampereTurnsParameter, backgroundParameter, fieldReading, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
+  ampereTurnsParameter, backgroundParameter, evaluateFromComponents, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
 } from './model-reading';
 
 const field = new Float64Array(2);
 const plus = new Float64Array(2);
 const minus = new Float64Array(2);
 const onAxis = new Float64Array(4);
+
+/** Rectangle field at z = distance + probeOffset from the winding plane, offset `radial` along the width. */
+function rectangleComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  rectangleField(params[0]!, params[1]!, params[2]!, distance + params[3]!, radial, out);
+}
 
 /**
  * Catalog model `rectangle`: a flat rectangular coil (mats; DOMAIN.md §1.6), parameters
@@ -37,11 +42,9 @@ export const rectangleModel: FieldModel = {
     probeOffsetParameter,
     backgroundParameter,
   ],
+  components: rectangleComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    for (let i = 0; i < points.n; i++) {
-      rectangleField(params[0]!, params[1]!, params[2]!, points.distance[i]! + params[3]!, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + params[4]!;
-    }
+    evaluateFromComponents(rectangleComponents, 4, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const ampereTurns = params[0]!;

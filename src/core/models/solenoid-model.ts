@@ -5,10 +5,9 @@ import { solenoidFieldGradient } from '../physics/solenoid-field-gradient';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { scanSize } from './initial-guess';
 import {
-  ampereTurnsParameter, backgroundParameter, fieldReading, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
+  ampereTurnsParameter, backgroundParameter, evaluateFromComponents, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
 } from './model-reading';
 
-const field = new Float64Array(2);
 const gradient = new Float64Array(8);
 const loopGradient = new Float64Array(7);
 
@@ -18,6 +17,13 @@ const flatRatio = 1e-6;
 /** Axial position of point i from the coil's centre: distance from the near face + offset + L/2. */
 function centre(params: Float64Array, points: SurveyPoints, i: number): number {
   return points.distance[i]! + params[3]! + 0.5 * params[2]!;
+}
+
+/** Solenoid field at z_centre = distance + probeOffset + length/2 (near-face datum), ρ = radial. */
+function solenoidComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  const z = distance + params[3]! + 0.5 * params[2]!;
+  if (params[2]! < flatRatio * params[1]!) loopField(params[0]!, params[1]!, z, radial, out);
+  else solenoidField(params[0]!, params[1]!, params[2]!, z, radial, out);
 }
 
 /**
@@ -45,17 +51,9 @@ export const solenoidModel: FieldModel = {
     probeOffsetParameter,
     backgroundParameter,
   ],
+  components: solenoidComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    const ampereTurns = params[0]!;
-    const radius = params[1]!;
-    const length = params[2]!;
-    const flat = length < flatRatio * radius;
-    for (let i = 0; i < points.n; i++) {
-      const z = centre(params, points, i);
-      if (flat) loopField(ampereTurns, radius, z, points.radial[i]!, field);
-      else solenoidField(ampereTurns, radius, length, z, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + params[4]!;
-    }
+    evaluateFromComponents(solenoidComponents, 4, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const ampereTurns = params[0]!;

@@ -5,10 +5,9 @@ import { thickCoilFieldGradient } from '../physics/thick-coil-field-gradient';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { scanSize } from './initial-guess';
 import {
-  ampereTurnsParameter, backgroundParameter, fieldReading, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
+  ampereTurnsParameter, backgroundParameter, evaluateFromComponents, fieldReadingDerivative, lengthParameter, probeOffsetParameter,
 } from './model-reading';
 
-const field = new Float64Array(2);
 const gradient = new Float64Array(10);
 const shellGradient = new Float64Array(8);
 
@@ -20,6 +19,15 @@ function winding(params: Float64Array) {
   const inner = Math.min(params[1]!, params[2]!);
   const outer = Math.max(params[1]!, params[2]!);
   return { ampereTurns: params[0]!, inner, outer, length: params[3]!, thin: outer - inner < thinRatio * outer };
+}
+
+/** Thick-coil field at z_centre = distance + probeOffset + length/2 (near-face datum), ρ = radial. */
+function thickCoilComponents(params: Float64Array, distance: number, radial: number, out: Float64Array): void {
+  const inner = Math.min(params[1]!, params[2]!);
+  const outer = Math.max(params[1]!, params[2]!);
+  const z = distance + params[4]! + 0.5 * params[3]!;
+  if (outer - inner < thinRatio * outer) solenoidField(params[0]!, 0.5 * (inner + outer), params[3]!, z, radial, out);
+  else thickCoilField(params[0]!, inner, outer, params[3]!, z, radial, out);
 }
 
 /**
@@ -53,14 +61,9 @@ export const thickCoilModel: FieldModel = {
     probeOffsetParameter,
     backgroundParameter,
   ],
+  components: thickCoilComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    const { ampereTurns, inner, outer, length, thin } = winding(params);
-    for (let i = 0; i < points.n; i++) {
-      const z = points.distance[i]! + params[4]! + 0.5 * length;
-      if (thin) solenoidField(ampereTurns, 0.5 * (inner + outer), length, z, points.radial[i]!, field);
-      else thickCoilField(ampereTurns, inner, outer, length, z, points.radial[i]!, field);
-      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + params[5]!;
-    }
+    evaluateFromComponents(thickCoilComponents, 5, params, points, out);
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const { ampereTurns, inner, outer, length, thin } = winding(params);
