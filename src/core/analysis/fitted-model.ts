@@ -1,4 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
+import { deltaMethodVariance } from '../stats';
 import type { FieldModel } from '../models/field-model';
 import { modelPoint, type ModelPoint } from './model-point';
 import { parameterRole } from './parameter-roles';
@@ -49,16 +50,9 @@ export function fittedModel(fit: FitResult, model: FieldModel): FittedModel {
  * propagation of uncertainty). Null when the fit has no covariance.
  */
 export function deltaVariance(fitted: FittedModel, gradient: ArrayLike<number>): number | null {
-  const covariance = fitted.covariance;
-  if (covariance === null) return null;
-  const k = fitted.freeIndex.length;
-  let variance = 0;
-  for (let a = 0; a < k; a += 1) {
-    const ga = gradient[fitted.freeIndex[a]!]!;
-    if (ga === 0) continue;
-    for (let b = 0; b < k; b += 1) variance += ga * covariance[a * k + b]! * gradient[fitted.freeIndex[b]!]!;
-  }
-  return Math.max(0, variance);
+  if (fitted.covariance === null) return null;
+  const free = fitted.freeIndex.map((j) => gradient[j]!);
+  return Math.max(0, deltaMethodVariance(free, Float64Array.from(fitted.covariance)));
 }
 
 /** The fitted probe offset (m), 0 for a model without one. */

@@ -39,7 +39,10 @@ export function thresholdInterval(fitted: FittedModel, level: number, scale: num
   const distanceFor = (values: Float64Array): number | null => fallDistance((z) => fitted.point.field(values, z, 0), level, scale).distance;
   const distance = distanceFor(coil);
   if (distance === null) return { distance: null, ci95: null, method: null, notes: [] };
-  const undetermined = Object.values(fitted.fit.params).filter((p) => !p.fixed && !p.determined).map((p) => p.name);
+  const mask = coilOnlyMask(model);
+  const undetermined = model.parameters
+    .filter((p, j) => !mask[j] && fitted.fit.params[p.name] && !fitted.fit.params[p.name]!.fixed && !fitted.fit.params[p.name]!.determined)
+    .map((p) => p.name);
   if (undetermined.length > 0) {
     return { distance, ci95: null, method: null, notes: [`No interval: these readings do not determine ${undetermined.join(', ')}.`] };
   }
@@ -48,7 +51,6 @@ export function thresholdInterval(fitted: FittedModel, level: number, scale: num
   if (fitted.covariance === null || coverage === null || k === 0) {
     return { distance, ci95: null, method: null, notes: ['No interval: the fit has no covariance.'] };
   }
-  const mask = coilOnlyMask(model);
   const gradient = new Float64Array(model.parameters.length);
   fitted.point.gradient(coil, distance, 0, gradient);
   const slope = fitted.point.slope(coil, distance, 0);
