@@ -1,0 +1,53 @@
+import type { FitResult } from '../../fit/fit-result';
+import { getModel } from '../../models';
+import type { CheckStatus, Verdict } from '../../report/report';
+import type { ReadingType } from '../../survey/survey';
+import { convergedFit } from '../best-fit';
+import { fittedModel } from '../fitted-model';
+import { checkClaim } from './check-claim';
+import { checkMoment } from './check-moment';
+import { checkParameter, type CheckOutcome } from './check-parameter';
+import { readingRelation } from './reading-relation';
+import type { Spec } from './spec';
+import { specFindings } from './spec-findings';
+
+/**
+ * Check a spec against one survey's fits: every label parameter and claim, interval-aware
+ * (pass only when the whole 95 % interval lies within tolerance, fail when it lies wholly
+ * outside, else inconclusive with the measurement that would decide it), the far-field
+ * moment when the survey cannot separate amplitude from size, and the findings of
+ * DOMAIN.md §5 (degraded vs mislabeled, …). The verdict is fail if any check fails, pass
+ * if every check passes, else inconclusive.
+ *
+ * @param fits every fit of the survey; the spec's model must be among them
+ * @param readingType the survey's detector type
+ */
+export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: ReadingType | null): Verdict {
+  const fit = convergedFit(fits, spec.model);
+  if (fit === null) {
+    const tried = fits.some((f) => f.model === spec.model);
+    return {
+      status: 'inconclusive',
+      findings: ['not-fitted'],
+      checks: [],
+      explanations: [`The spec (${spec.source}) is for the ${spec.model} model, which ${tried ? 'did not converge on this survey' : 'was not fitted'}; ${tried ? 'see its warnings' : `fit it with --model ${spec.model}`}.`],
+    };
+  }
+  const fitted = fittedModel(fit, getModel(spec.model));
+  const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
+  const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
+  if (outcomes.some((o) => o.blocked === 'undetermined')) {
+    const moment = checkMoment(fitted, spec.params, relation);
+    if (moment) outcomes.push(moment);
+  }
+  const naive = (['inverse-square', 'power-law'] as const).flatMap((id) => {
+    const other = convergedFit(fits, id);
+    return other && other !== fit ? [fittedModel(other, getModel(id))] : [];
+  });
+  outcomes.push(...spec.claims.map((claim) => checkClaim(fitted, claim, relation, naive)));
+  const { findings, explanations } = specFindings(outcomes);
+  const statuses = outcomes.map((o) => o.check.status);
+  const status: CheckStatus = statuses.includes('fail') ? 'fail' : statuses.every((s) => s === 'pass') ? 'pass' : 'inconclusive';
+  const notes = relation.note && relation.comparable ? [relation.note] : [];
+  return { status, findings, checks: outcomes.map((o) => o.check), explanations: [...explanations, ...notes] };
+}
