@@ -87,7 +87,49 @@ export interface ThresholdResult {
   readonly cautions?: readonly string[];
 }
 
+/** One survey's place in a coil's history (fleet section). */
+export interface FleetEntry {
+  readonly source: string;
+  readonly date: string | null;
+  /** Fitted ampere-turns with 95 % interval (A), null when not fitted or not determined. */
+  readonly ampereTurns: { readonly value: number; readonly unit: 'A'; readonly ci95: readonly [number, number] | null } | null;
+  /** Fitted geometry parameters (m) with 95 % intervals. */
+  readonly geometry: Readonly<Record<string, { readonly value: number; readonly unit: 'm'; readonly ci95: readonly [number, number] | null }>>;
+  /** ampereTurns / reference, with interval, or null. */
+  readonly ratioToReference: { readonly value: number; readonly ci95: readonly [number, number] | null } | null;
+  readonly verdict: CheckStatus | null;
+}
+
+/** One coil across its surveys (CONTRACT.md fleet section; extra fields are additions). */
+export interface FleetCoil {
+  readonly coil: string;
+  readonly surveys: number;
+  /** Date of the latest dated survey, or null. */
+  readonly latest: string | null;
+  /** 'degrading', 'geometry-changed', 'failed-spec', … */
+  readonly flags: readonly string[];
+  readonly trend: {
+    readonly ampereTurnsPerYear: { readonly value: number; readonly unit: 'A/yr'; readonly ci95: readonly [number, number] } | null;
+  };
+  /** The model whose parameters are trended. */
+  readonly model: ModelId | null;
+  /** What the history is compared with: the spec's label or the first survey. */
+  readonly reference: { readonly kind: 'spec' | 'first-survey'; readonly ampereTurns: number; readonly unit: 'A' } | null;
+  /** Surveys in date order (undated last). */
+  readonly history: readonly FleetEntry[];
+  /** One sentence per flag with the numbers, and what was left out and why. */
+  readonly explanations: readonly string[];
+}
+
+/** The fleet section of a batch report (CONTRACT.md). */
+export interface FleetSummary {
+  readonly coils: readonly FleetCoil[];
+  readonly unreadable: readonly { readonly source: string; readonly reason: string }[];
+  /** Surveys without a coil id, which cannot join a history. */
+  readonly ungrouped?: readonly { readonly source: string; readonly reason: string }[];
+}
+
 export interface Report {
   readonly surveys: readonly SurveyReport[];
-  readonly fleet?: unknown;
+  readonly fleet?: FleetSummary;
 }

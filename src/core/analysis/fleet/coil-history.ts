@@ -1,0 +1,126 @@
+import type { FitResult, ParameterEstimate } from '../../fit/fit-result';
+import { getModel } from '../../models';
+import type { ModelId } from '../../models/field-model';
+import type { FleetCoil, FleetEntry } from '../../report/report';
+import { studentTQuantile } from '../../stats';
+import type { RelativePlusAbsolute } from '../../units';
+import { bestPhysicalFit, convergedFit } from '../best-fit';
+import { describeValue } from '../describe-value';
+import { parameterRole } from '../parameter-roles';
+import { selectSpec } from '../spec/select-spec';
+import type { Spec } from '../spec/spec';
+import type { FleetSurvey } from './fleet-history';
+import { geometryChanges } from './geometry-changes';
+import { weightedLine } from './weighted-line';
+
+const normal975 = 1.959963984540054;
+const msPerYear = 365.25 * 86_400_000;
+
+/**
+ * One coil's history: surveys in date order (undated last), the fitted ampere-turns of the
+ * trended model (the spec's, else the most common best physical model) against the spec's
+ * label or the first survey, and a weighted straight-line trend of ampere-turns against
+ * time in years (weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
+ * Flags: **degrading** when the slope's whole interval is below zero AND the latest
+ * survey lies beyond tolerance below the reference (both its interval and, against a
+ * first survey, the difference's interval); **geometry-changed** (geometryChanges);
+ * **failed-spec** when the latest survey failed its spec.
+ */
+export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs: readonly Spec[], defaultTolerance: RelativePlusAbsolute): FleetCoil {
+  const ordered = [...surveys].sort((a, b) => (a.date === null ? 1 : 0) - (b.date === null ? 1 : 0) || (a.date ?? '').localeCompare(b.date ?? ''));
+  const spec = selectSpec(specs, coil);
+  const model = spec?.model ?? commonModel(ordered);
+  const fits = ordered.map((s) => (model === null ? null : convergedFit(s.fits, model)));
+  const explanations: string[] = [];
+  const labelTurns = spec?.params.find((p) => p.name === 'ampereTurns');
+  const firstTurns = fits.map((f) => usable(f?.params['ampereTurns'])).find((e) => e !== null) ?? null;
+  const reference = labelTurns
+    ? { kind: 'spec' as const, ampereTurns: labelTurns.value, unit: 'A' as const }
+    : firstTurns ? { kind: 'first-survey' as const, ampereTurns: firstTurns.value, unit: 'A' as const } : null;
+  const tolerance = labelTurns?.tolerance ?? defaultTolerance;
+  const history: FleetEntry[] = ordered.map((survey, i) => entryOf(survey, fits[i] ?? null, reference?.ampereTurns ?? null));
+
+  const dated = ordered.flatMap((survey, i) => {
+    const estimate = usable(fits[i]?.params['ampereTurns']);
+    return survey.date !== null && estimate !== null && !Number.isNaN(Date.parse(survey.date)) ? [{ survey, estimate, fit: fits[i]! }] : [];
+  });
+  const undated = ordered.filter((s) => s.date === null).length;
+  if (undated > 0) explanations.push(`${undated} survey(s) without a date are listed last and left out of the trend.`);
+  if (model === null) explanations.push('No physical model converged on any survey, so there is nothing to trend.');
+  let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null };
+  const flags: string[] = [];
+  const times = dated.map((d) => (Date.parse(d.survey.date!) - Date.parse(dated[0]!.survey.date!)) / msPerYear);
+  if (dated.length >= 2 && new Set(times).size >= 2) {
+    const line = weightedLine(times, dated.map((d) => d.estimate.value), dated.map((d) => d.estimate.stderr));
+    const q = line.degreesOfFreedom > 0 ? studentTQuantile(0.975, line.degreesOfFreedom) : normal975;
+    const ci95: [number, number] = [line.slope - q * line.slopeStandardError, line.slope + q * line.slopeStandardError];
+    trend = { ampereTurnsPerYear: { value: line.slope, unit: 'A/yr', ci95 } };
+    const latest = dated[dated.length - 1]!;
+    const limit = reference ? reference.ampereTurns - (tolerance.relative * Math.abs(reference.ampereTurns) + tolerance.absolute) : Number.NaN;
+    const latestHigh = reference?.kind === 'first-survey' ? upperOfDifference(latest, dated[0]!) + reference.ampereTurns : latest.estimate.ci95[1];
+    const rate = `ampere-turns change ${describeValue(line.slope, 'current', ci95)} per year over ${dated.length} dated surveys`;
+    if (ci95[1] < 0 && latestHigh < limit) {
+      flags.push('degrading');
+      explanations.push(`degrading: ${rate}; the latest (${latest.survey.date}) ${describeValue(latest.estimate.value, 'current', latest.estimate.ci95)} is below the ${reference!.kind === 'spec' ? 'label' : 'first survey'}'s ${describeValue(reference!.ampereTurns, 'current')} by more than the tolerance (limit ${describeValue(limit, 'current')}).`);
+    } else if (ci95[1] < 0) {
+      explanations.push(`${rate}: a significant decline, but the latest survey is not yet beyond tolerance (limit ${describeValue(limit, 'current')}).`);
+    } else {
+      explanations.push(`${rate}: no significant decline.`);
+    }
+  } else if (model !== null) {
+    explanations.push('Fewer than two dated surveys with determined ampere-turns: no trend.');
+  }
+  const changes = geometryChanges(ordered, fits, spec, defaultTolerance);
+  if (changes.length > 0) {
+    flags.push('geometry-changed');
+    explanations.push(...changes);
+  }
+  const last = ordered[ordered.length - 1];
+  if (last?.verdict?.status === 'fail') {
+    flags.push('failed-spec');
+    explanations.push(`failed-spec: the latest survey (${last.source}) failed its spec${last.verdict.findings.length ? ` (${last.verdict.findings.join(', ')})` : ''}.`);
+  }
+  const latestDate = [...ordered].reverse().find((s) => s.date !== null)?.date ?? null;
+  return { coil, surveys: ordered.length, latest: latestDate, flags, trend, model, reference, history, explanations };
+}
+
+/** An estimate with a positive standard error and an interval, or null. */
+function usable(estimate: ParameterEstimate | undefined): { value: number; stderr: number; ci95: readonly [number, number]; name: string } | null {
+  if (!estimate || estimate.fixed || !estimate.determined || estimate.ci95 === null || !(estimate.stderr! > 0)) return null;
+  return { value: estimate.value, stderr: estimate.stderr!, ci95: estimate.ci95, name: estimate.name };
+}
+
+/** Upper 95 % bound of (latest − first), t with the smaller of the two fits' degrees of freedom (conservative). */
+function upperOfDifference(latest: { estimate: { value: number; stderr: number }; fit: FitResult }, first: { estimate: { value: number; stderr: number }; fit: FitResult }): number {
+  const nu = Math.max(1, Math.min(latest.fit.stats.n - latest.fit.stats.k, first.fit.stats.n - first.fit.stats.k));
+  return latest.estimate.value - first.estimate.value + studentTQuantile(0.975, nu) * Math.hypot(latest.estimate.stderr, first.estimate.stderr);
+}
+
+function entryOf(survey: FleetSurvey, fit: FitResult | null, reference: number | null): FleetEntry {
+  const turns = fit?.params['ampereTurns'];
+  const geometry: Record<string, { value: number; unit: 'm'; ci95: readonly [number, number] | null }> = {};
+  for (const estimate of Object.values(fit?.params ?? {})) {
+    if (parameterRole(estimate.name) === 'geometry') geometry[estimate.name] = { value: estimate.value, unit: 'm', ci95: estimate.ci95 };
+  }
+  return {
+    source: survey.source,
+    date: survey.date,
+    ampereTurns: turns ? { value: turns.value, unit: 'A', ci95: turns.ci95 } : null,
+    geometry,
+    ratioToReference: turns && reference ? { value: turns.value / reference, ci95: turns.ci95 ? [turns.ci95[0] / reference, turns.ci95[1] / reference] : null } : null,
+    verdict: survey.verdict?.status ?? null,
+  };
+}
+
+/** The physical model that is best most often across the surveys (ties: the earliest survey's). */
+function commonModel(surveys: readonly FleetSurvey[]): ModelId | null {
+  const counts = new Map<ModelId, number>();
+  for (const survey of surveys) {
+    const best = bestPhysicalFit(survey.fits, getModel);
+    if (best) counts.set(best.model, (counts.get(best.model) ?? 0) + 1);
+  }
+  let chosen: ModelId | null = null;
+  for (const [model, count] of counts) if (chosen === null || count > counts.get(chosen)!) chosen = model;
+  return chosen;
+}
+

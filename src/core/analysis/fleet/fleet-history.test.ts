@@ -1,0 +1,113 @@
+import { describe, it, expect } from 'vitest';
+import { linearRegression } from 'simple-statistics';
+import { fleetHistory, type FleetSurvey } from './fleet-history';
+import { syntheticFit } from '../testing/synthetic-fit';
+import type { Spec } from '../spec/spec';
+import type { Verdict } from '../../report/report';
+import { expectClose } from '../../../../test/support/expect-close';
+
+const msPerYear = 365.25 * 86_400_000;
+
+function loopSurvey(coil: string | null, date: string | null, ampereTurns: number, radius: number, verdict: Verdict | null = null): FleetSurvey {
+  const fit = syntheticFit('loop', [
+    { name: 'ampereTurns', unit: 'A', value: ampereTurns, stderr: 1 },
+    { name: 'radius', unit: 'm', value: radius, stderr: 0.0004 },
+    { name: 'probeOffset', unit: 'm', value: 0.002, stderr: 0.0002 },
+    { name: 'background', unit: 'T', value: 0, stderr: 1e-7 },
+  ]);
+  return { source: `${coil ?? 'anon'}-${date ?? 'undated'}.csv`, coil, date, fits: [fit], verdict };
+}
+
+const labelFL3: Spec = {
+  source: 'specs.json',
+  coils: ['FL-3'],
+  model: 'loop',
+  params: [
+    { name: 'ampereTurns', value: 120, text: '120 A', tolerance: { relative: 0.05, absolute: 0 } },
+    { name: 'radius', value: 0.045, text: '45 mm', tolerance: { relative: 0.05, absolute: 0 } },
+  ],
+  claims: [],
+  readingType: null,
+  crestFactor: null,
+};
+
+// A coil losing about 4 A of its 120 ampere-turns a year (truth stated here), surveyed
+// yearly, listed out of order, plus one undated survey.
+const dates = ['2022-03-01', '2023-03-01', '2024-03-01', '2025-03-01'];
+const turns = [120.0, 116.0, 111.5, 108.0];
+const fl3 = [3, 0, 2, 1].map((i) => loopSurvey('FL-3', dates[i]!, turns[i]!, 0.045));
+
+describe('fleetHistory()', () => {
+  it('fleetHistory() orders a coil\'s surveys by date and trends ampere-turns per year like an independent regression', () => {
+    const fleet = fleetHistory([...fl3, loopSurvey('FL-3', null, 110, 0.045)], { specs: [labelFL3] });
+    const coil = fleet.coils[0]!;
+    expect(coil.coil).toBe('FL-3');
+    expect(coil.surveys).toBe(5);
+    expect(coil.latest).toBe('2025-03-01');
+    expect(coil.history.map((h) => h.date)).toEqual([...dates, null]);
+    expect(coil.explanations.join(' ')).toContain('without a date');
+    const years = dates.map((d) => (Date.parse(d) - Date.parse(dates[0]!)) / msPerYear);
+    // equal σ: the weighted slope equals the ordinary one; simple-statistics 7.12 linearRegression is independent code
+    const reference = linearRegression(years.map((t, i) => [t, turns[i]!]));
+    const trend = coil.trend.ampereTurnsPerYear!;
+    expectClose(trend.value, reference.m, { rel: 1e-10 });
+    expect(trend.unit).toBe('A/yr');
+    // σ_b = σ/√Σ(t − t̄)² with σ = 1 A (scatter below 1 A keeps the Birge ratio at 1); t_{0.975,2} = 4.302653 (A&S Table 26.10)
+    const meanT = years.reduce((s, t) => s + t, 0) / years.length;
+    const se = 1 / Math.sqrt(years.reduce((s, t) => s + (t - meanT) ** 2, 0));
+    expectClose(trend.ci95[1] - trend.value, 4.302653 * se, { rel: 1e-6 });
+  });
+
+  it('fleetHistory() flags "degrading" when the decline is significant and the latest survey is beyond the label tolerance', () => {
+    const coil = fleetHistory(fl3, { specs: [labelFL3] }).coils[0]!;
+    // latest 108 ± 1.96 A lies wholly below 120 A − 5 % = 114 A, slope ≈ −4 A/yr significant
+    expect(coil.flags).toContain('degrading');
+    expect(coil.reference).toEqual({ kind: 'spec', ampereTurns: 120, unit: 'A' });
+    expectClose(coil.history[3]!.ratioToReference!.value, 108 / 120, { rel: 1e-12 });
+    expect(coil.explanations.join(' ')).toMatch(/degrading: ampere-turns change −?-?4\.\d+ A/);
+  });
+
+  it('fleetHistory() does not flag a significant decline that is still within tolerance', () => {
+    // −1.5 A a year over six yearly surveys (σ = 1 A): slope SE ≈ 0.24 A/yr, significant; latest 112.5 A is above 120 A − 10 % = 108 A
+    const gentle = ['2020-01-01', '2021-01-01', '2022-01-01', '2023-01-01', '2024-01-01', '2025-01-01']
+      .map((date, i) => loopSurvey('FL-4', date, 120 - 1.5 * i, 0.045));
+    const coil = fleetHistory(gentle, { specs: [{ ...labelFL3, coils: ['FL-4'], params: [{ ...labelFL3.params[0]!, tolerance: { relative: 0.1, absolute: 0 } }] }] }).coils[0]!;
+    expect(coil.trend.ampereTurnsPerYear!.ci95[1]).toBeLessThan(0);
+    expect(coil.flags).not.toContain('degrading');
+    expect(coil.explanations.join(' ')).toContain('not yet beyond tolerance');
+  });
+
+  it('fleetHistory() flags "geometry-changed" when the fitted radius jumps between surveys (swapped unit)', () => {
+    const swapped = [loopSurvey('FL-7', '2023-01-10', 100, 0.045), loopSurvey('FL-7', '2024-01-10', 100.5, 0.0451), loopSurvey('FL-7', '2025-01-10', 99.5, 0.038)];
+    const coil = fleetHistory(swapped).coils[0]!;
+    expect(coil.flags).toContain('geometry-changed');
+    expect(coil.flags).not.toContain('degrading');
+    // default tolerance 5 % with no spec; the first-survey reference is used
+    expect(coil.reference?.kind).toBe('first-survey');
+    const sentence = coil.explanations.find((e) => e.startsWith('geometry-changed'))!;
+    expect(sentence).toContain('2024-01-10');
+    expect(sentence).toContain('2025-01-10');
+    // a 0.1 mm wobble within the intervals is not a change
+    expect(fleetHistory(swapped.slice(0, 2)).coils[0]!.flags).not.toContain('geometry-changed');
+  });
+
+  it('fleetHistory() flags "failed-spec" from the latest survey\'s verdict', () => {
+    const failed: Verdict = { status: 'fail', findings: ['degraded'], checks: [], explanations: [] };
+    const coil = fleetHistory([loopSurvey('FL-9', '2024-05-01', 100, 0.045), loopSurvey('FL-9', '2025-05-01', 99, 0.045, failed)]).coils[0]!;
+    expect(coil.flags).toEqual(['failed-spec']);
+    expect(coil.explanations.join(' ')).toContain('(degraded)');
+  });
+
+  it('fleetHistory() lists surveys without a coil id and passes unreadable files through', () => {
+    const fleet = fleetHistory([loopSurvey(null, '2025-01-01', 100, 0.045)], { unreadable: [{ source: 'broken.csv', reason: 'not a CSV' }] });
+    expect(fleet.coils).toHaveLength(0);
+    expect(fleet.ungrouped![0]!.reason).toContain('# coil: ID');
+    expect(fleet.unreadable).toEqual([{ source: 'broken.csv', reason: 'not a CSV' }]);
+  });
+
+  it('fleetHistory() gives no trend for a single dated survey and says why', () => {
+    const coil = fleetHistory([loopSurvey('FL-1', '2025-01-01', 100, 0.045)]).coils[0]!;
+    expect(coil.trend.ampereTurnsPerYear).toBeNull();
+    expect(coil.explanations.join(' ')).toContain('Fewer than two dated surveys');
+  });
+});
