@@ -1,15 +1,143 @@
 import type { Command } from 'commander';
+import { RingfallError } from '../../core/errors';
+import { planMeasurements } from '../../core/analysis/plan/plan-measurements';
+import { planToJson, renderPlanText } from '../../core/analysis/plan/render-plan';
+import type { DesignPoint, DesignProblem } from '../../core/analysis/plan/design-problem';
+import { parameterRole } from '../../core/analysis/parameter-roles';
+import { getModel, modelIds } from '../../core/models';
+import type { FieldModel, ModelId } from '../../core/models/field-model';
+import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
+import { kindOfUnit } from '../../core/analysis/describe-value';
 import type { CommandContext } from '../main';
 
-/** `ringfall plan` (CONTRACT.md). Placeholder until its issue lands: exits 2 saying so. */
-export function registerPlan(program: Command, context: CommandContext): void {
+interface PlanFlags {
+  model: string;
+  set: string[];
+  fix: string[];
+  points: string;
+  reach?: string;
+  probeSize?: string;
+  compare?: string;
+  uncertainty: string;
+  positionUncertainty: string;
+  offAxis?: string;
+  interest?: string;
+  json?: boolean;
+}
+
+const collect = (value: string, previous: string[]) => [...previous, value];
+
+/**
+ * `ringfall plan --model ID --set NAME=QTY... [--fix NAME=QTY] [--points N]
+ * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1uT]
+ * [--position-uncertainty 0.5mm] [--off-axis 60mm] [--interest NAME,…] [--json]`:
+ * where to put the probe so that the parameters that matter are determined
+ * (planMeasurements), with the expected 95 % intervals of the recommended plan, an evenly
+ * spaced plan of the same size and the user's own plan (CONTRACT.md).
+ */
+export function registerPlan(program: Command, _context: CommandContext): void {
   program
     .command('plan')
-    .description('not built yet')
-    .allowUnknownOption(true)
-    .allowExcessArguments(true)
-    .action(() => {
-      process.stderr.write('ringfall plan: not built yet.\n');
-      context.setExitCode(2);
+    .description('where to put the probe so the parameters are determined')
+    .requiredOption('--model <id>', 'coil model (catalog id, e.g. loop)')
+    .option('--set <name=qty>', 'rough value of a parameter, e.g. radius=45mm (repeatable)', collect, [])
+    .option('--fix <name=qty>', 'a parameter the fit will hold fixed, e.g. probeOffset=3mm (repeatable)', collect, [])
+    .option('--points <n>', 'number of probe positions', '12')
+    .option('--reach <near..far>', 'nearest and farthest probe distance, e.g. 5mm..200mm (default 0 to 4× the coil size)')
+    .option('--probe-size <qty>', 'least spacing between positions (default min(5 mm, reach/(2·points)))')
+    .option('--compare <list>', 'your planned distances, e.g. 10mm,20mm,40mm')
+    .option('--uncertainty <rel+abs>', 'standard uncertainty of one reading', '2%+1uT')
+    .option('--position-uncertainty <qty>', 'standard uncertainty of each distance', '0.5mm')
+    .option('--off-axis <qty>', 'also consider off-axis positions up to this radial offset')
+    .option('--interest <names>', 'parameters that matter, comma-separated (default amplitude and geometry)')
+    .option('--json', 'print the plan as JSON')
+    .action((flags: PlanFlags) => {
+      const { problem, options } = readPlanFlags(flags);
+      const plan = planMeasurements(problem, options);
+      process.stdout.write(flags.json ? `${JSON.stringify(planToJson(problem, plan), null, 2)}\n` : renderPlanText(problem, plan));
     });
+}
+
+/** Turn the command-line flags into a design problem and plan options. Exported for tests. */
+export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; options: Parameters<typeof planMeasurements>[1] } {
+  if (!(modelIds as readonly string[]).includes(flags.model)) {
+    throw new RingfallError('USAGE_MODEL', `--model: "${flags.model}" is not a model. Use one of: ${modelIds.join(', ')}.`, { value: flags.model });
+  }
+  const model = getModel(flags.model as ModelId);
+  const values = new Float64Array(model.parameters.length);
+  const given = new Set<string>();
+  const fixed = new Set<string>();
+  for (const [list, isFixed] of [[flags.set, false], [flags.fix, true]] as const) {
+    for (const text of list) {
+      const { name, value } = readAssignment(text, model, isFixed ? '--fix' : '--set');
+      values[model.parameters.findIndex((p) => p.name === name)] = value;
+      given.add(name);
+      if (isFixed) fixed.add(name);
+    }
+  }
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !['offset', 'background'].includes(parameterRole(p.name)));
+  if (missing.length > 0) {
+    throw new RingfallError('USAGE_SET', `--set: ${model.id} needs rough values for ${missing.map((p) => p.name).join(', ')}. Give them like --set ${missing[0]!.name}=${example(missing[0]!.unit)}.`, { value: missing.map((p) => p.name) });
+  }
+  const size = Math.max(0, ...model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? values[j]! : 0)));
+  const count = Number(flags.points);
+  if (!Number.isInteger(count) || count < 2) throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number ≥ 2. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
+  const reach = flags.reach ? readReach(flags.reach) : ([0, size > 0 ? 4 * size : 0.2] as const);
+  const probeSize = flags.probeSize ? length(flags.probeSize, '--probe-size') : Math.min(0.005, (reach[1] - reach[0]) / (2 * count));
+  const uncertainty = parseRelativePlusAbsolute(flags.uncertainty, 'field', '--uncertainty');
+  const problem: DesignProblem = {
+    model,
+    values,
+    free: model.parameters.flatMap((p, j) => (fixed.has(p.name) ? [] : [j])),
+    noise: { relative: uncertainty.relative, absolute: uncertainty.absolute, position: length(flags.positionUncertainty, '--position-uncertainty') },
+  };
+  const compare = flags.compare ? readDistances(flags.compare) : undefined;
+  return {
+    problem,
+    options: {
+      count,
+      reach,
+      probeSize,
+      ...(flags.offAxis ? { maxRadial: length(flags.offAxis, '--off-axis') } : {}),
+      ...(flags.interest ? { interest: flags.interest.split(',').map((s) => s.trim()).filter((s) => s !== '') } : {}),
+      ...(compare ? { compare } : {}),
+    },
+  };
+}
+
+function readAssignment(text: string, model: FieldModel, option: string): { name: string; value: number } {
+  const match = /^\s*([A-Za-z]+)\s*=\s*(.+)$/.exec(text);
+  const parameter = match ? model.parameters.find((p) => p.name === match[1]) : undefined;
+  if (!match || !parameter) {
+    throw new RingfallError('USAGE_SET', `${option}: "${text}" does not name a parameter of ${model.id}. Write NAME=QTY with NAME one of: ${model.parameters.map((p) => p.name).join(', ')}.`, { value: text });
+  }
+  const kind = kindOfUnit(parameter.unit);
+  if (kind === null) {
+    const value = Number(match[2]);
+    if (!Number.isFinite(value)) throw new RingfallError('USAGE_SET', `${option} ${parameter.name}: "${match[2]}" is not a number. Give a plain number, e.g. ${parameter.name}=2.5.`, { value: text });
+    return { name: parameter.name, value };
+  }
+  return { name: parameter.name, value: parseQuantity(match[2]!, kind, `${option} ${parameter.name}`).value };
+}
+
+function readReach(text: string): readonly [number, number] {
+  const parts = text.split('..');
+  if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${text}" is not a range. Write it like 5mm..200mm.`, { value: text });
+  return [length(parts[0]!, '--reach'), length(parts[1]!, '--reach')];
+}
+
+function readDistances(text: string): DesignPoint[] {
+  const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
+  const unit = /[a-zA-Zµμ"]+\s*$/.exec(items[items.length - 1] ?? '')?.[0] ?? '';
+  return items.map((item) => ({ distance: length(/[a-zA-Zµμ"]\s*$/.test(item) ? item : `${item}${unit}`, '--compare'), radial: 0 }));
+}
+
+function length(text: string, what: string): number {
+  const value = parseQuantity(text, 'length', what).value;
+  if (value < 0) throw new RingfallError('USAGE_LENGTH', `${what}: "${text}" is negative. Give a distance ≥ 0.`, { value: text });
+  return value;
+}
+
+function example(unit: string): string {
+  return unit === 'A' ? '120A' : unit === 'm' ? '45mm' : unit === 'T' ? '0T' : unit === 'A·m²' ? '0.5Am2' : '2.5';
 }

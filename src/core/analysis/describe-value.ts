@@ -12,6 +12,14 @@ export function kindOfUnit(unit: ParameterUnit | 'T' | 'm'): QuantityKind | null
   }
 }
 
+/** Units in which an exact zero is shown ("0 mm", not "0 um"). */
+const zeroUnits: Record<QuantityKind, { symbol: string; factor: number }> = {
+  length: { symbol: 'mm', factor: 1e-3 },
+  field: { symbol: 'T', factor: 1 },
+  current: { symbol: 'A', factor: 1 },
+  moment: { symbol: 'A·m²', factor: 1 },
+};
+
 const friendly: Readonly<Record<string, string>> = {
   ampereTurns: 'ampere-turns',
   probeOffset: 'probe offset',
@@ -30,7 +38,8 @@ export function parameterWords(name: string): string {
  * the value, its interval in the same unit, three significant digits.
  */
 export function describeValue(value: number, kind: QuantityKind | null, interval?: readonly [number, number] | null, significant = 3): string {
-  const unit = kind ? displayUnit(value === 0 && interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : value, kind) : { symbol: '', factor: 1 };
+  const reference = value === 0 && interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : value;
+  const unit = !kind ? { symbol: '', factor: 1 } : reference === 0 ? zeroUnits[kind] : displayUnit(reference, kind);
   const show = (x: number) => formatNumber(x / unit.factor, significant);
   const symbol = unit.symbol ? ` ${unit.symbol}` : '';
   return `${show(value)}${symbol}` + (interval ? ` (${show(interval[0])}–${show(interval[1])})` : '');

@@ -76,7 +76,8 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
     interest: interest.length > 0 ? interest : [...Array(k).keys()],
   });
   const even = Array.from({ length: options.count }, (_, i) => ({ distance: near + ((far - near) * i) / (options.count - 1), radial: 0 }));
-  const notes = [`Noise model per reading: ${formatNumber100(problem.noise.relative)} % of the reading + ${formatQuantity(problem.noise.absolute, 'field')}, and ${formatQuantity(problem.noise.position, 'length')} position uncertainty.`];
+  const mm = { symbol: 'mm', factor: 1e-3 };
+  const notes = [`Noise model per reading: ${formatNumber100(problem.noise.relative)} % of the reading + ${formatQuantity(problem.noise.absolute, 'field', { significant: 3 })}, and ${formatQuantity(problem.noise.position, 'length', { significant: 3, unit: mm })} position uncertainty (standard uncertainties).`];
   if (chosen.length < options.count) notes.push(`Only ${chosen.length} positions fit the reach at this probe size.`);
   return {
     recommended: expectedIntervals(problem, chosen.map((c) => candidates[c]!)),

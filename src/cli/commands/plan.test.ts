@@ -1,0 +1,59 @@
+import { describe, it, expect, vi, afterEach } from 'vitest';
+import { main } from '../main';
+
+async function run(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  let stdout = '';
+  let stderr = '';
+  const out = vi.spyOn(process.stdout, 'write').mockImplementation((chunk) => { stdout += String(chunk); return true; });
+  const err = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => { stderr += String(chunk); return true; });
+  try {
+    const code = await main(['node', 'ringfall', 'plan', ...args]);
+    return { code, stdout, stderr };
+  } finally {
+    out.mockRestore();
+    err.mockRestore();
+  }
+}
+
+afterEach(() => vi.restoreAllMocks());
+
+describe('ringfall plan', () => {
+  it('ringfall plan prints recommended positions and expected intervals beside the user\'s plan', async () => {
+    const result = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--reach', '5mm..200mm', '--compare', '100,120,140,160,180,200mm');
+    expect(result.code).toBe(0);
+    expect(result.stdout).toContain('recommended (12 positions)');
+    expect(result.stdout).toContain('your plan (6 positions): 100 120 140 160 180 200 mm');
+    expect(result.stdout).toMatch(/ampereTurns\s+±/);
+    // a plan between 2.2R and 4.4R stays in the far field (DOMAIN.md §7.6)
+    expect(result.stdout).toContain('your plan: This plan stays in the far field');
+  });
+
+  it('ringfall plan --json gives SI positions and half-widths with units', async () => {
+    const result = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=4.5cm', '--fix', 'background=0T', '--points', '8', '--reach', '5mm..150mm', '--json');
+    expect(result.code).toBe(0);
+    const json = JSON.parse(result.stdout);
+    expect(json.schema).toBe('ringfall-plan/1');
+    expect(json.parameters.radius).toEqual({ value: 0.045, unit: 'm', free: true });
+    expect(json.parameters.background.free).toBe(false);
+    const plan = json.plans.recommended;
+    expect(plan.points).toHaveLength(8);
+    for (const point of plan.points) {
+      expect(point.distance.unit).toBe('m');
+      expect(point.distance.value).toBeGreaterThanOrEqual(0.005);
+      expect(point.distance.value).toBeLessThanOrEqual(0.15);
+    }
+    expect(plan.expected.radius.unit).toBe('m');
+    expect(plan.expected.radius.halfWidth95).toBeGreaterThan(0);
+    expect(json.plans.compared).toBeNull();
+  });
+
+  it('ringfall plan exits 2 with a one-line message for a missing value, an unknown model or too few points', async () => {
+    const missing = await run('--model', 'loop', '--set', 'ampereTurns=120A');
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toBe('ringfall: --set: loop needs rough values for radius. Give them like --set radius=45mm.\n');
+    expect((await run('--model', 'helix', '--set', 'radius=4mm')).stderr).toContain('Use one of: loop');
+    expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--points', '3')).code).toBe(2);
+    expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mT')).stderr).toContain('length');
+    expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--reach', '5mm-200mm')).stderr).toContain('5mm..200mm');
+  });
+});
