@@ -1,20 +1,17 @@
 import { describe, it, expect } from 'vitest';
-import type { ParameterSpec, ParameterUnit } from '../../core/models/field-model';
+import { modelIds } from '../../core/models';
+import { catalogParameters } from './parse-specs';
+import { readSpecFile } from './read-spec-file';
+import { readdirSync } from 'node:fs';
 import { RingfallError } from '../../core/errors';
 import { parseSpecText } from './parse-spec-text';
 import { jsonLineIndex } from './json-line-index';
 import { selectSpec } from '../../core/analysis/spec/select-spec';
 import { expectClose } from '../../../test/support/expect-close';
 
-// Parameter names and units of the catalog in DESIGN.md ("The fit-model catalog").
-const designCatalog: Record<string, [string, ParameterUnit][]> = {
-  loop: [['ampereTurns', 'A'], ['radius', 'm'], ['probeOffset', 'm'], ['background', 'T']],
-  dipole: [['moment', 'A·m²'], ['probeOffset', 'm'], ['background', 'T']],
-  'power-law': [['amplitude', 'T·m^n'], ['exponent', '1'], ['probeOffset', 'm'], ['background', 'T']],
-};
-const catalog = (id: string): ParameterSpec[] | undefined =>
-  designCatalog[id]?.map(([name, unit]) => ({ name, unit, lower: -Infinity, upper: Infinity, description: name }));
-const ids = Object.keys(designCatalog);
+// the real fit-model catalog (core/models)
+const catalog = catalogParameters;
+const ids = modelIds;
 const parse = (text: string) => parseSpecText(text, 'specs.json', catalog, ids);
 
 function thrown(text: string): RingfallError {
@@ -100,7 +97,7 @@ describe('parseSpecText()', () => {
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerence": "5%"}').code).toBe('SPEC_KEY');
     const model = thrown('{"model": "helix", "params": {}}');
     expect(model.code).toBe('SPEC_MODEL');
-    expect(model.message).toContain('loop, dipole, power-law');
+    expect(model.message).toContain('loop, thick-coil, solenoid, coil-pair, rectangle, dipole, power-law');
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "5%", "readingType": "ac"}').code).toBe('SPEC_READING_TYPE');
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "5%", "waveform": "triangle"}').code).toBe('SPEC_WAVEFORM');
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "5%", "waveform": "sine", "crestFactor": 3}').code).toBe('SPEC_WAVEFORM');
@@ -122,6 +119,26 @@ describe('parseSpecText()', () => {
     const [spec] = parse('{"model": "power-law", "params": {"exponent": "2.5"}, "tolerances": {"exponent": "0.2"}}');
     expect(spec!.params[0]!.value).toBe(2.5);
     expect(spec!.params[0]!.tolerance).toEqual({ relative: 0, absolute: 0.2 });
+  });
+});
+
+describe('readSpecFile()', () => {
+  it('readSpecFile() reads every bundled sample spec against the catalog', async () => {
+    const files = readdirSync('sample-data/specs').filter((f) => f.endsWith('.json'));
+    expect(files.length).toBeGreaterThan(0);
+    for (const file of files) {
+      const specs = await readSpecFile(`sample-data/specs/${file}`);
+      expect(specs.length).toBeGreaterThan(0);
+      for (const spec of specs) expect(spec.params.length + spec.claims.length).toBeGreaterThan(0);
+    }
+    const all = await readSpecFile('sample-data/specs/all-coils.spec.json');
+    // sample-data/specs/all-coils.spec.json: QA-107 is labeled 360 A, 45 mm, ±10 %
+    const qa107 = all.find((s) => s.coils?.includes('QA-107'))!;
+    expect(qa107.params.map((p) => [p.name, p.value])).toEqual([['ampereTurns', 360], ['radius', 0.045]]);
+  });
+
+  it('readSpecFile() names a missing file with SPEC_READ', async () => {
+    await expect(readSpecFile('no/such/spec.json')).rejects.toMatchObject({ code: 'SPEC_READ' });
   });
 });
 
