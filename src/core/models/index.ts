@@ -15,6 +15,7 @@ import { thickCoilModel } from './thick-coil-model';
 
 export type { FieldModel, ModelId, ParameterSpec, ParameterUnit, SurveyPoints } from './field-model';
 export { fieldReading, fieldReadingDerivative } from './model-reading';
+export { parseParameterAssignment, parameterQuantityKind, exampleValue } from './parse-parameter-assignment';
 
 const catalog: Readonly<Record<ModelId, FieldModel>> = {
   'loop': loopModel,
