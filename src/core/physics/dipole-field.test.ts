@@ -42,6 +42,14 @@ describe('dipoleField()', () => {
     }
   });
 
+  it('dipoleField() falls to 0.5 mT, 0.1 mT and 50 µT at the DOMAIN dipole threshold distances', () => {
+    // DOMAIN.md §9 row 37: m = 400 A × π (0.05 m)², z_th = (μ0 m/(2π B_th))^(1/3) = 107.912, 184.527, 232.489 mm
+    const moment = 400 * Math.PI * 0.05 ** 2;
+    for (const [z, level] of [[0.107912, 0.5e-3], [0.184527, 0.1e-3], [0.232489, 50e-6]] as const) {
+      expectClose(dipole(moment, z, 0)[0]!, level, { rel: 2e-5 });
+    }
+  });
+
   it('dipoleField() returns NaN at the origin', () => {
     // the point dipole is singular there (Jackson 3rd ed. §5.6)
     expect(dipole(1, 0, 0).every(Number.isNaN)).toBe(true);
