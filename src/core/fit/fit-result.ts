@@ -66,6 +66,16 @@ export interface FitResult {
     /** Set when a robust loss flagged this reading as an outlier. */
     readonly outlier?: boolean;
   }[];
+  /**
+   * Far-field magnetic moment of a physical model (A·m², DOMAIN.md §7.6), with its
+   * delta-method uncertainty: what far-field readings determine even when ampere-turns
+   * and size are not. Absent for power laws.
+   */
+  readonly moment?: {
+    readonly value: number;
+    readonly stderr: number | null;
+    readonly ci95: readonly [number, number] | null;
+  };
   /** Plain-language warnings (identifiability, χ² too large, bound hit, non-convergence). */
   readonly warnings: readonly string[];
 }

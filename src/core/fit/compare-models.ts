@@ -1,0 +1,46 @@
+import { getModel } from '../models';
+import type { FieldModel, ModelId } from '../models/field-model';
+import { akaikeWeights } from '../stats/akaike-weights';
+import { describePowerLaw } from './describe-power-law';
+import type { FitResult } from './fit-result';
+
+/** The fits with their Akaike weights, the best model and the power-law sentences. */
+export interface ModelComparison {
+  /** The fits in the order given, stats.akaikeWeight filled in (0 for a fit that did not converge). */
+  readonly fits: readonly FitResult[];
+  /** Lowest AICc among converged fits, or null when none converged. */
+  readonly best: ModelId | null;
+  /** One sentence per converged power law on what it gets wrong (describe-power-law.ts). */
+  readonly comparison: readonly string[];
+}
+
+/**
+ * Compare models fitted to the same readings with the same weights (DOMAIN.md §7.2):
+ * Akaike weights wᵢ = exp(−Δᵢ/2)/Σ exp(−Δⱼ/2) from the AICc of the converged fits
+ * (Burnham & Anderson 2002, §2.9), the best model = lowest AICc, and for each power law a
+ * sentence on its apparent exponent, the pattern of its residuals and its extrapolation
+ * against the best physical model (DOMAIN.md §1.9).
+ *
+ * @param modelOf catalog lookup (default getModel), to tell physical models from power laws.
+ * @throws RangeError when the fits do not share n and the uncertainty scale (different data
+ *   or weights cannot be compared).
+ */
+export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel): ModelComparison {
+  const first = fits[0];
+  for (const fit of fits) {
+    if (fit.stats.n !== first!.stats.n || fit.uncertaintyScale !== first!.uncertaintyScale) {
+      throw new RangeError(`compareModels: fits of ${first!.model} (n ${first!.stats.n}, ${first!.uncertaintyScale}) and ${fit.model} (n ${fit.stats.n}, ${fit.uncertaintyScale}) are not on the same readings and weights`);
+    }
+  }
+  const usable = (fit: FitResult) => fit.converged && Number.isFinite(fit.stats.aicc);
+  const weights = akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
+  const weighted = fits.map((fit, i) => ({ ...fit, stats: { ...fit.stats, akaikeWeight: Number.isNaN(weights[i]!) ? null : weights[i]! } }));
+  const lowest = (candidates: readonly FitResult[]) =>
+    candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
+  const best = lowest(weighted);
+  const physical = lowest(weighted.filter((fit) => modelOf(fit.model).physical));
+  const comparison = weighted
+    .filter((fit) => fit.converged && !modelOf(fit.model).physical)
+    .map((fit) => describePowerLaw(fit, physical, modelOf));
+  return { fits: weighted, best: best?.model ?? null, comparison };
+}

@@ -1,0 +1,84 @@
+import type { FieldModel, ModelId, SurveyPoints } from '../models/field-model';
+import { logLogLine } from '../models/initial-guess';
+import { formatNumber, formatQuantity } from '../units/format-quantity';
+import type { FitResult } from './fit-result';
+import { runsTest } from './runs-test';
+
+/** Runs-test probability below which the residuals count as systematic (common practice). */
+const systematic = 0.05;
+
+/**
+ * One sentence on what a descriptive power-law fit gets wrong (DOMAIN.md §1.9): the
+ * apparent exponent over the surveyed distances (minus the least-squares slope of ln|B|
+ * on ln d over readings with d > 0: "apparent exponent 1.62 over 5–200 mm") beside the
+ * law's own (fitted or assumed) exponent,
+ * where its residuals go systematic (residual signs ordered by distance: a runs test,
+ * runs-test.ts, and which side of the readings the curve runs on among the nearest and
+ * farthest third), and how it would misjudge extrapolation: its coil field (background
+ * left out) at twice the farthest distance against the best physical model's.
+ *
+ * @param physical the best converged physical fit, or null; modelOf the catalog lookup.
+ */
+export function describePowerLaw(fit: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel): string {
+  const byDistance = [...fit.points].sort((a, b) => a.distance - b.distance);
+  const positive = byDistance.filter((p) => p.distance > 0);
+  const line = logLogLine(Float64Array.from(positive, (p) => p.distance), Float64Array.from(positive, (p) => p.field));
+  const span = line === null ? byDistance : positive;
+  const range = `${millimetres(span[0]?.distance ?? 0)}–${millimetres(span[span.length - 1]?.distance ?? 0)} mm`;
+  const farthest = byDistance[byDistance.length - 1]?.distance ?? 0;
+  const exponent = fit.params['exponent'];
+  const assumed = fit.model === 'inverse-square' ? 2 : fit.model === 'inverse-cube' ? 3 : null;
+  const own = exponent
+    ? `its fitted exponent is ${formatNumber(exponent.value, 3)}` + (exponent.ci95 ? ` (95 % ${formatNumber(exponent.ci95[0], 3)} to ${formatNumber(exponent.ci95[1], 3)})` : '')
+    : `it assumes ${assumed ?? 'a fixed exponent'}`;
+  const head = line === null
+    ? `${fit.model} (${own} over ${range})`
+    : `${fit.model} (the readings' apparent exponent is ${formatNumber(-line.slope, 3)} over ${range}; ${own})`;
+  const residuals = byDistance.map((p) => p.residual);
+  const runs = runsTest(residuals);
+  let pattern: string;
+  if (runs.probability < systematic) {
+    const third = Math.max(1, Math.floor(byDistance.length / 3));
+    pattern = `its residuals go systematic — ${runs.runs} runs of same-sign residuals by distance where ${formatNumber(runs.expected, 2)} are expected by chance (runs test p = ${formatNumber(runs.probability, 2)}); ` +
+      `the curve runs ${side(residuals.slice(0, third), 'nearest')} and ${side(residuals.slice(-third), 'farthest')}`;
+  } else {
+    pattern = `its residuals show no systematic runs over this range (runs test p = ${formatNumber(runs.probability, 2)})`;
+  }
+
+  let extrapolation = '';
+  if (physical !== null && farthest > 0) {
+    const at = 2 * farthest;
+    const power = coilField(fit, modelOf, at);
+    const coil = coilField(physical, modelOf, at);
+    if (Number.isFinite(power) && Number.isFinite(coil) && coil !== 0) {
+      const ratio = power / coil;
+      const verdict = ratio >= 1 ? `${formatNumber(ratio, 3)}× too high` : `${formatNumber((1 - ratio) * 100, 2)} % too low`;
+      extrapolation = `; extrapolated to ${millimetres(at)} mm (twice the farthest reading) it gives ${formatQuantity(Math.abs(power), 'field', { significant: 3 })} where ${physical.model} gives ${formatQuantity(Math.abs(coil), 'field', { significant: 3 })} (${verdict})`;
+    }
+  }
+  return `${head}: ${pattern}${extrapolation}.`;
+}
+
+/** "below 5 of the 6 nearest readings" (most residuals y − f positive) or "above …". */
+function side(residuals: readonly number[], where: string): string {
+  const above = residuals.filter((r) => r > 0).length;
+  const below = residuals.filter((r) => r < 0).length;
+  return above >= below
+    ? `below ${above} of the ${residuals.length} ${where} readings`
+    : `above ${below} of the ${residuals.length} ${where} readings`;
+}
+
+/** A fit's predicted on-axis reading at one stated distance with the background left out (T). */
+function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distance: number): number {
+  const model = modelOf(fit.model);
+  const values = Float64Array.from(model.parameters, (p) => (p.name === 'background' ? 0 : fit.params[p.name]?.value ?? NaN));
+  const points: SurveyPoints = { n: 1, distance: Float64Array.of(distance), radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' };
+  const out = new Float64Array(1);
+  model.evaluate(values, points, out);
+  return out[0]!;
+}
+
+/** A distance in mm to 3 significant digits without trailing zeros: 0.002 → "2", 0.0455 → "45.5". */
+function millimetres(metres: number): string {
+  return String(Number((metres * 1e3).toPrecision(3)));
+}

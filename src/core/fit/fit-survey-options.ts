@@ -1,0 +1,71 @@
+import { RingfallError } from '../errors';
+import type { FieldModel, ModelId } from '../models/field-model';
+import type { RelativePlusAbsolute } from '../units/tolerance';
+import type { AbortFlag } from './least-squares-types';
+import type { RobustLoss } from './robust-fit';
+
+/** The models fitted when none are named (CONTRACT.md `--model` default). */
+export const defaultModels: readonly ModelId[] = ['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube'];
+
+/** How {@link fitSurvey} fits a survey. Everything SI. */
+export interface FitSurveyOptions {
+  /** Models to fit, in report order. Default {@link defaultModels}. */
+  readonly models?: readonly ModelId[];
+  /** Parameters held at a value, by name (SI): { radius: 0.045 }. Applies to every model that has the name. */
+  readonly fixed?: Readonly<Record<string, number>>;
+  /** Instrument accuracy: σᵢ = relative·|Bᵢ| + absolute (T). Replaces the file's uncertainty column. */
+  readonly instrumentUncertainty?: RelativePlusAbsolute | null;
+  /** Standard uncertainty of every distance (m), carried by effective variance (DOMAIN.md §3.8). */
+  readonly positionUncertainty?: number | null;
+  /** Robust loss with outlier flags (robust-fit.ts), or none. */
+  readonly robust?: RobustLoss | null;
+  /** |standardised residual| beyond which a robust fit flags a reading. Default 3. */
+  readonly outlierCut?: number;
+  /** Seed of the multi-start (same seed, same report). Default 1. */
+  readonly seed?: number;
+  /** Extra starts besides the data-driven one. Default 8. */
+  readonly starts?: number;
+  /** Checked between iterations: an aborted fit returns what it has, converged false. */
+  readonly signal?: AbortFlag;
+  /** Budget of cost evaluations per least-squares run (engine default 200·(k + 1)). */
+  readonly maxEvaluations?: number;
+}
+
+/**
+ * Check the fixed parameters against the models to fit: every name must belong to at
+ * least one of them and lie inside that parameter's bounds. A name some models lack
+ * applies to the others only (the fit of such a model says so in its warnings).
+ *
+ * @throws RingfallError `FIT_UNKNOWN_PARAMETER` naming the valid names;
+ *   `FIT_FIXED_OUT_OF_BOUNDS` for a value outside a parameter's bounds (e.g. radius ≤ 0).
+ * @example checkFixedParameters([loopModel], { radii: 0.045 }) // throws: … Parameters of loop: ampereTurns, radius, probeOffset, background.
+ */
+export function checkFixedParameters(models: readonly FieldModel[], fixed: Readonly<Record<string, number>>): void {
+  for (const [name, value] of Object.entries(fixed)) {
+    const specs = models.flatMap((model) => model.parameters.filter((p) => p.name === name).map((p) => ({ model, spec: p })));
+    if (specs.length === 0) {
+      const valid = models.map((model) => `${model.id}: ${model.parameters.map((p) => p.name).join(', ')}`).join('; ');
+      throw new RingfallError(
+        'FIT_UNKNOWN_PARAMETER',
+        `Fixed parameter: "${name}" is not a parameter of ${models.map((m) => m.id).join(', ')} (--fix). Parameters — ${valid}.`,
+        { value: name, where: '--fix' },
+      );
+    }
+    for (const { model, spec } of specs) {
+      if (!Number.isFinite(value) || value < spec.lower || value > spec.upper || (spec.lower === 0 && value === 0 && spec.unit === 'm')) {
+        throw new RingfallError(
+          'FIT_FIXED_OUT_OF_BOUNDS',
+          `Fixed parameter: ${name} = ${value} ${spec.unit} is outside what ${model.id} allows (${describeBounds(spec.lower, spec.upper, spec.unit)}) (--fix). Give a value inside.`,
+          { value, where: '--fix' },
+        );
+      }
+    }
+  }
+}
+
+function describeBounds(lower: number, upper: number, unit: string): string {
+  if (lower === 0 && upper === Infinity) return `more than 0 ${unit}`;
+  if (upper === Infinity) return `at least ${lower} ${unit}`;
+  if (lower === -Infinity) return `at most ${upper} ${unit}`;
+  return `${lower} to ${upper} ${unit}`;
+}
