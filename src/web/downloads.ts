@@ -20,8 +20,9 @@ export function downloadText(text: string, fileName: string, type: string): void
 export async function downloadHtmlReport(report: Report, lookup: ModelLookup, fileName: string): Promise<void> {
   const chartLibrary = (await import('../../node_modules/chart.js/dist/chart.umd.js?raw')).default;
   const count = report.surveys.length;
-  const html = renderReportDocument(report, lookup, {
+  const html = renderReportDocument(report, {
     chartLibrary,
+    lookup,
     title: count === 1 ? `ringfall report — ${report.surveys[0]?.coil ?? report.surveys[0]?.source ?? ''}` : `ringfall report — ${count} surveys`,
     subtitle: `Saved from the ringfall web page on ${new Date().toISOString().slice(0, 10)}.`,
   });

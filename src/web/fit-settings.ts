@@ -1,7 +1,9 @@
 import { isRingfallError, RingfallError } from '../core/errors';
 import { parseThresholdLevel, type ThresholdLevel } from '../core/analysis/thresholds/threshold-level';
-import type { ModelId, ParameterUnit } from '../core/models/field-model';
-import { parseQuantity, parseRelativePlusAbsolute, type QuantityKind, type RelativePlusAbsolute } from '../core/units';
+import type { Spec } from '../core/analysis/spec/spec';
+import { modelIds, parameterQuantityKind, type ModelId, type ParameterUnit } from '../core/models';
+import { parseQuantity, parseRelativePlusAbsolute, type RelativePlusAbsolute } from '../core/units';
+import { parseSpecs } from '../io/spec';
 
 /**
  * The page's fit settings as the user typed them (strings, so they survive a trip to
@@ -23,7 +25,7 @@ export interface FitSettings {
 }
 
 /** The catalog ids in the order the page lists them (DESIGN.md). */
-export const catalogIds: readonly ModelId[] = ['loop', 'thick-coil', 'solenoid', 'coil-pair', 'rectangle', 'dipole', 'power-law', 'inverse-square', 'inverse-cube'];
+export const catalogIds: readonly ModelId[] = modelIds;
 
 /** CONTRACT.md default model set of `fit`. */
 export const defaultModels: readonly ModelId[] = ['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube'];
@@ -48,17 +50,8 @@ export interface ParsedSettings {
   /** m, or null. */
   readonly positionUncertainty: number | null;
   readonly thresholds: readonly ThresholdLevel[];
-}
-
-/** Quantity kind of a parameter unit; null for plain numbers. */
-export function kindOfUnit(unit: ParameterUnit): QuantityKind | null {
-  switch (unit) {
-    case 'A': return 'current';
-    case 'm': return 'length';
-    case 'T': return 'field';
-    case 'A·m²': return 'moment';
-    default: return null;
-  }
+  /** Specs parsed from the spec text (empty when none). */
+  readonly specs: readonly Spec[];
 }
 
 /**
@@ -88,7 +81,7 @@ export function parseFitSettings(
       errors.push({ field: `fix:${i}`, message: `Fixed parameter: "${fix.name}" is not a parameter of the chosen models. Pick one from the list.` });
       return;
     }
-    const kind = kindOfUnit(unit);
+    const kind = parameterQuantityKind(unit);
     const value = attempt(`fix:${i}`, () => {
       if (kind !== null) return parseQuantity(fix.value, kind, `fixed ${fix.name}`).value;
       const number = Number(fix.value.trim());
@@ -108,5 +101,6 @@ export function parseFitSettings(
     const level = attempt(`threshold:${i}`, () => parseThresholdLevel(text, 'Threshold level'));
     if (level) thresholds.push(level);
   });
-  return { parsed: { models: settings.models, fixed, uncertainty, positionUncertainty, thresholds }, errors };
+  const specs = settings.spec.trim() === '' ? [] : attempt('spec', () => parseSpecs(settings.spec, 'the spec')) ?? [];
+  return { parsed: { models: settings.models, fixed, uncertainty, positionUncertainty, thresholds, specs }, errors };
 }

@@ -1,4 +1,4 @@
-import type { FieldModel, ModelId, ParameterUnit } from '../core/models/field-model';
+import { getModel, isModelId, modelIds, type FieldModel, type ModelId, type ParameterUnit } from '../core/models';
 import type { SurveyReport } from '../core/report/report';
 import type { Survey } from '../core/survey/survey';
 import type { FitSettings, ParsedSettings } from './fit-settings';
@@ -7,14 +7,13 @@ import type { FitSettings, ParsedSettings } from './fit-settings';
 // land (issue 4/5). Until then a survey is reported with its readings counted and a
 // warning that fitting is not in this build.
 
-const parameterUnits: Readonly<Record<string, ParameterUnit>> = {
-  ampereTurns: 'A', radius: 'm', innerRadius: 'm', outerRadius: 'm', length: 'm', separation: 'm', width: 'm', height: 'm',
-  probeOffset: 'm', background: 'T', moment: 'A·m²', exponent: '1', amplitude: 'T·m^n',
-};
-
-/** SI unit of a catalog parameter name, or undefined for an unknown name. */
-export function parameterUnit(name: string): ParameterUnit | undefined {
-  return parameterUnits[name];
+/** SI unit of a parameter name in the first of `models` that has it, or undefined when none has it. */
+export function parameterUnit(name: string, models: readonly ModelId[] = modelIds): ParameterUnit | undefined {
+  for (const id of models) {
+    const spec = getModel(id).parameters.find((p) => p.name === name);
+    if (spec) return spec.unit;
+  }
+  return undefined;
 }
 
 /** Fit one survey with the parsed settings and build its SurveyReport. */
@@ -27,12 +26,12 @@ export function fitStage(survey: Survey, _parsed: ParsedSettings, _settings: Fit
   };
 }
 
-/** The model catalog's FieldModel for an id (none until the catalog lands). */
-export function modelLookup(_id: ModelId): FieldModel | undefined {
-  return undefined;
+/** The catalog's FieldModel for an id. */
+export function modelLookup(id: ModelId): FieldModel | undefined {
+  return isModelId(id) ? getModel(id) : undefined;
 }
 
 /** Parameter names of the chosen models, in catalog order without repeats. */
-export function parameterNames(_models: readonly ModelId[]): string[] {
-  return Object.keys(parameterUnits);
+export function parameterNames(models: readonly ModelId[]): string[] {
+  return [...new Set(models.flatMap((id) => getModel(id).parameters.map((p) => p.name)))];
 }

@@ -77,7 +77,7 @@ function scheduleRefit(): void {
 
 function refit(): void {
   clearTimeout(refitTimer);
-  const { errors } = parseFitSettings(settings, parameterUnit);
+  const { errors } = parseFitSettings(settings, (name) => parameterUnit(name, settings.models));
   settingsUi.showErrors(errors);
   levels.showErrors(errors);
   intake.showFiles(files);

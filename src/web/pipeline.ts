@@ -56,7 +56,7 @@ export const rowsListed = 500;
  * Web Worker (and in Node for tests).
  */
 export function runPipeline(files: readonly PipelineFile[], settings: FitSettings, progress: (p: PipelineProgress) => void = () => {}): PipelineOutcome {
-  const { parsed, errors } = parseFitSettings(settings, parameterUnit);
+  const { parsed, errors } = parseFitSettings(settings, (name) => parameterUnit(name, settings.models));
   const outcomes: FileOutcome[] = [];
   const surveys: Survey[] = [];
   files.forEach((file, index) => {

@@ -1,7 +1,9 @@
 /**
  * The report view: renders a Report (core/report) as HTML. The web page shows it; the
- * CLI's `--html` writes it with `renderReportDocument` (in Node, get the Chart.js bundle
- * from `chartLibrarySource()` in ./chart-library-node).
+ * CLI's `--html` writes it with
+ * `renderReportDocument(report, { chartLibrary: chartLibrarySource() })`, where
+ * `chartLibrarySource` comes from ./chart-library-node (Node only: it reads the
+ * installed Chart.js bundle).
  */
 export { renderReportDocument, renderReportBody, surveyElementId, type ReportDocumentOptions } from './report-document';
 export { renderSurveySection } from './survey-section';
@@ -9,4 +11,4 @@ export { renderFleetSection } from './fleet-section';
 export { drawCharts } from './figure';
 export { reportStyles } from './report-styles';
 export { escapeHtml } from './html';
-export type { ModelLookup } from './survey-facts';
+export { catalogLookup, type ModelLookup } from './survey-facts';

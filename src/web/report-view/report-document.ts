@@ -4,7 +4,7 @@ import { renderFleetSection } from './fleet-section';
 import { html, trusted, type SafeHtml } from './html';
 import { reportStyles } from './report-styles';
 import { renderSurveySection } from './survey-section';
-import type { ModelLookup } from './survey-facts';
+import { catalogLookup, type ModelLookup } from './survey-facts';
 
 /** Element id of survey `index` in a rendered report. */
 export function surveyElementId(index: number): string {
@@ -15,7 +15,7 @@ export function surveyElementId(index: number): string {
  * The report body (fleet overview when there are several surveys, then every survey)
  * as HTML. Used by the web page and by `renderReportDocument`.
  */
-export function renderReportBody(report: Report, lookup: ModelLookup): SafeHtml {
+export function renderReportBody(report: Report, lookup: ModelLookup = catalogLookup): SafeHtml {
   const ids = report.surveys.map((_, i) => surveyElementId(i));
   return html`<div class="rf-report">
 ${report.surveys.length > 1 ? renderFleetSection(report, ids) : ''}
@@ -32,6 +32,8 @@ export interface ReportDocumentOptions {
   readonly title?: string;
   /** One line under the title, e.g. "made by ringfall 0.1.0 from 3 files". */
   readonly subtitle?: string;
+  /** Where models come from; default the core catalog (tests pass stand-ins). */
+  readonly lookup?: ModelLookup;
 }
 
 /**
@@ -40,7 +42,7 @@ export interface ReportDocumentOptions {
  * Security Policy that forbids every outside request. Opens offline from disk and
  * prints to PDF cleanly. Text from survey files is escaped.
  */
-export function renderReportDocument(report: Report, lookup: ModelLookup, options: ReportDocumentOptions): string {
+export function renderReportDocument(report: Report, options: ReportDocumentOptions): string {
   const title = options.title ?? 'ringfall report';
   // "</script" inside the library would end the element early; "<\/" means the same in JS.
   const library = options.chartLibrary.replace(/<\/(script)/gi, '<\\/$1');
@@ -55,7 +57,7 @@ export function renderReportDocument(report: Report, lookup: ModelLookup, option
 </head>
 <body>
 <header class="rf-report rf-doc-head"><h1>${title}</h1>${options.subtitle ? html`<p>${options.subtitle}</p>` : ''}</header>
-${renderReportBody(report, lookup)}
+${renderReportBody(report, options.lookup ?? catalogLookup)}
 <script>${trusted(library)}</script>
 <script>${trusted(drawChartsSource)}
 window.addEventListener('beforeprint', function () { document.querySelectorAll('details').forEach(function (d) { d.open = true; }); });</script>

@@ -37,7 +37,7 @@ describe('report view', () => {
   });
 
   it('renderReportDocument() is self-contained: inline library, CSP forbidding outside requests, no src/href to elsewhere', () => {
-    const doc = renderReportDocument({ surveys: [fabricatedReport('A'), { ...fabricatedReport('A'), date: '2025-03-14' }] }, standInLookup, { chartLibrary: 'window.Chart = function () {}; "</script>";' });
+    const doc = renderReportDocument({ surveys: [fabricatedReport('A'), { ...fabricatedReport('A'), date: '2025-03-14' }] }, { chartLibrary: 'window.Chart = function () {}; "</script>";', lookup: standInLookup });
     expect(doc).toContain(`default-src 'none'`);
     expect(doc).not.toMatch(/\s(src|href)="(?!#)/);
     expect(doc).toContain('window.Chart = function () {}; "<\\/script>";');

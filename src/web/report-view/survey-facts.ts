@@ -1,9 +1,12 @@
 import type { FitResult } from '../../core/fit/fit-result';
-import type { FieldModel, ModelId } from '../../core/models/field-model';
+import { getModel, isModelId, type FieldModel, type ModelId } from '../../core/models';
 import type { SurveyReport } from '../../core/report/report';
 
 /** Finds the FieldModel for a catalog id (the core catalog's getModel, or a stand-in in tests). */
 export type ModelLookup = (id: ModelId) => FieldModel | undefined;
+
+/** The core model catalog as a ModelLookup. */
+export const catalogLookup: ModelLookup = (id) => (isModelId(id) ? getModel(id) : undefined);
 
 /** The fit the report names best, or null. */
 export function bestFit(survey: SurveyReport): FitResult | null {
