@@ -1,6 +1,6 @@
 import type { FitResult, ParameterEstimate } from '../fit/fit-result';
-import type { ParameterUnit } from '../models/field-model';
-import { displayUnit, formatNumber, formatQuantity, type QuantityKind } from '../units';
+import { parameterQuantityKind } from '../models/parse-parameter-assignment';
+import { displayUnit, formatNumber, formatQuantity } from '../units';
 import type { Report, SurveyReport, ThresholdResult, Verdict } from './report';
 
 /** How many set-aside rows the text report lists before pointing to --json. */
@@ -73,19 +73,9 @@ function renderSurvey(survey: SurveyReport): string {
   return lines.join('\n');
 }
 
-function kindOf(unit: ParameterUnit): QuantityKind | null {
-  switch (unit) {
-    case 'A': return 'current';
-    case 'm': return 'length';
-    case 'T': return 'field';
-    case 'A·m²': return 'moment';
-    default: return null;
-  }
-}
-
 /** Value and interval formatted in one display unit chosen from the value. */
 export function formatEstimate(estimate: ParameterEstimate): { value: string; interval: string } {
-  const kind = kindOf(estimate.unit);
+  const kind = parameterQuantityKind(estimate.unit);
   const reference = Math.max(Math.abs(estimate.value), Math.abs(estimate.ci95?.[0] ?? 0), Math.abs(estimate.ci95?.[1] ?? 0));
   const unit = kind ? displayUnit(reference === 0 ? estimate.value : reference, kind) : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
   const show = (x: number) => `${formatNumber(x / unit.factor, 4)}${unit.symbol ? ' ' + unit.symbol : ''}`;
