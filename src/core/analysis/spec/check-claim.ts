@@ -1,6 +1,6 @@
 import type { ModelId } from '../../models/field-model';
 import type { SpecCheck } from '../../report/report';
-import { formatQuantity, formatNumber } from '../../units';
+import { formatNumber } from '../../units';
 import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { decideConformity } from '../decide-conformity';
 import { describeTolerance, describeValue } from '../describe-value';
@@ -15,13 +15,16 @@ import type { SpecClaim } from './spec';
  * Check a claimed field at a point against the fitted model: the coil's own field there
  * (probe offset and background removed) with a 95 % interval by the delta method,
  * Var(B) ≈ ∇_θBᵀ·C·∇_θB (JCGM 100:2008 §5.1.2), scaled into the label's reading type and
- * decided by decideConformity. Beside it, what the fitted inverse-square and power-law
- * curves give at the same point: a claim that only such a curve reproduces was most likely
- * extrapolated with a power law (DOMAIN.md §1.9).
+ * decided by decideConformity. Beside it, what the label's own coil and the fitted
+ * inverse-square and power-law curves give at the same point: a claim that neither the
+ * measured coil nor the label's coil reproduces, but a descriptive curve does, was most
+ * likely extrapolated with a power law (DOMAIN.md §1.9).
+ *
+ * @param labelValues the spec model at the label's parameters (coil only), or null when the label does not give them all
  *
  * @param naive converged descriptive fits of the same survey (inverse-square, power-law)
  */
-export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[]): CheckOutcome {
+export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[], labelValues: Float64Array | null): CheckOutcome {
   const model = fitted.point.model;
   const values = model.physical ? coilOnlyValues(model, fitted.values) : backgroundFree(fitted);
   const offset = model.physical ? probeOffsetOf(fitted) : 0;
@@ -39,12 +42,18 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
     const otherValue = fitted === other ? null : other.point.field(backgroundFree(other), reading, claim.radial) * factor;
     return otherValue === null || !Number.isFinite(otherValue) ? [] : [{ model: other.fit.model, value: otherValue, unit: 'T' as const }];
   });
-  const where = `field at ${formatQuantity(claim.distance, 'length', { significant: 3 })}${claim.radial > 0 ? `, ${formatQuantity(claim.radial, 'length', { significant: 3 })} off axis` : ''}`;
+  const where = `field at ${describeValue(claim.distance, 'length')}${claim.radial > 0 ? `, ${describeValue(claim.radial, 'length')} off axis` : ''}`;
+  // The label's own coil at the claimed point: a claim it reproduces is the label's physics, not an extrapolation.
+  const labelField = labelValues === null ? null : fitted.point.field(labelValues, claim.distance, claim.radial);
+  const labelZone = claim.tolerance.relative * claim.field + claim.tolerance.absolute;
+  const labelConsistent = labelField !== null && Math.abs(labelField - claim.field) <= labelZone;
   const base = { what: where, kind: 'claim' as const, expected: { value: claim.field, unit: 'T' }, measured: { value, unit: 'T', ci95 }, tolerance: claim.tolerance, alternatives };
   const side = value < claim.field ? 'low' : 'high';
   const claimText = describeTolerance(claim.field, 'field', claim.tolerance);
-  const sideBySide = alternatives.length === 0 ? '' : `; ${alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${describeValue(a.value, 'field')}`).join(', ')}`;
-  const extrapolated = beyondSurvey(claim.distance, surveyedFieldRange(fitted, offset)) ? ' (beyond the surveyed distances: the model extrapolates)' : '';
+  const others = alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${describeValue(a.value, 'field')}`);
+  if (labelField !== null) others.unshift(`the label's own coil ${describeValue(labelField, 'field')}`);
+  const sideBySide = others.length === 0 ? '' : `; ${others.join(', ')}`;
+  const extrapolated = beyondSurvey(claim.distance, surveyedFieldRange(fitted, offset)) ? ' (outside the surveyed distances: the model extrapolates)' : '';
   const measuredText = `${describeValue(value, 'field', ci95)} from the ${model.id} fit${extrapolated} vs ${claimText} claimed${sideBySide}`;
   if (!relation.comparable) {
     return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}.`, toDecide: relation.note ?? '' }, role: 'claim', side, blocked: 'reading-type', matchesNaive: null };
@@ -53,7 +62,7 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
     return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}; the fit gives no interval.`, toDecide: 'Fit with all coil parameters free so that the fit reports a covariance.' }, role: 'claim', side, blocked: 'undetermined', matchesNaive: null };
   }
   const decision = decideConformity(value, ci95, claim.field, claim.tolerance);
-  const matches = alternatives.find((a) => Math.abs(a.value - claim.field) <= decision.upper - claim.field)?.model ?? null;
+  const matches = labelConsistent || decision.status === 'pass' ? null : alternatives.find((a) => Math.abs(a.value - claim.field) <= labelZone)?.model ?? null;
   const check: SpecCheck = { ...base, status: decision.status, evidence: `${measuredText}: ${{ pass: 'within', fail: 'outside', inconclusive: 'straddling' }[decision.status]} the tolerance.` };
   if (decision.status !== 'inconclusive') return { check, role: 'claim', side, blocked: null, matchesNaive: matches };
   const toDecide = decision.shrinkFactor === 0

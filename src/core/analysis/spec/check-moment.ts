@@ -11,11 +11,13 @@ import type { SpecParameter } from './spec';
  * When the survey cannot separate ampere-turns from geometry (far-field readings), check
  * what it does determine: the far-field moment m (farFieldMoment) against the moment the
  * label implies. The label's tolerance carries over by linear worst-case stacking,
- * T_m = Σ |∂m/∂pⱼ|·Tⱼ (common practice for tolerance stack-up); the fitted moment's
- * interval comes by the delta method (JCGM 100:2008 §5.1.2). Null when the label lacks a
- * parameter the moment needs.
+ * T_m = Σ |∂m/∂pⱼ|·Tⱼ (common practice for tolerance stack-up). The measured moment is
+ * the dipole fit's when there is one (the model that matches far-field data, DOMAIN.md
+ * §1.11: the coil model's linearisation is unreliable exactly when this check runs), else
+ * the coil model's by the delta method (JCGM 100:2008 §5.1.2). Null when the label lacks
+ * a parameter the moment needs.
  */
-export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[], relation: ReadingRelation): CheckOutcome | null {
+export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[], relation: ReadingRelation, dipole: FittedModel | null): CheckOutcome | null {
   const model = fitted.point.model;
   const fittedValues = Object.fromEntries(model.parameters.map((p, j) => [p.name, fitted.values[j]!]));
   const labelValues: Record<string, number> = { ...fittedValues };
@@ -28,11 +30,22 @@ export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[
   if (!needed.every((name) => usedLabels.some((label) => label.name === name))) return null;
   const stack = usedLabels.reduce((sum, label) => sum + Math.abs(partial(model.id, labelValues, label.name)) * (label.tolerance.relative * Math.abs(label.value) + label.tolerance.absolute), 0);
   const tolerance = { relative: 0, absolute: stack };
-  const gradient = model.parameters.map((p) => partial(model.id, fittedValues, p.name) * relation.factor);
-  const variance = deltaVariance(fitted, gradient);
-  const value = fittedMoment * relation.factor;
-  const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
-  const ci95 = half === null ? null : ([value - half, value + half] as const);
+  const fromDipole = dipole?.fit.params['moment'];
+  let value: number;
+  let ci95: readonly [number, number] | null;
+  let source: string;
+  if (fromDipole && fromDipole.determined && fromDipole.ci95) {
+    value = fromDipole.value * relation.factor;
+    ci95 = [fromDipole.ci95[0] * relation.factor, fromDipole.ci95[1] * relation.factor];
+    source = 'the dipole fit';
+  } else {
+    const gradient = model.parameters.map((p) => partial(model.id, fittedValues, p.name) * relation.factor);
+    const variance = deltaVariance(fitted, gradient);
+    value = fittedMoment * relation.factor;
+    const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
+    ci95 = half === null ? null : [value - half, value + half];
+    source = `the ${model.id} fit`;
+  }
   const side = value < labelMoment ? 'low' : 'high';
   const base = {
     what: 'moment',
@@ -41,7 +54,7 @@ export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[
     measured: { value, unit: 'A·m²', ci95 },
     tolerance,
   };
-  const text = `far-field moment ${describeValue(value, 'moment', ci95)} vs ${describeValue(labelMoment, 'moment')} ± ${describeValue(stack, 'moment')} implied by the label (${usedLabels.map((l) => `${parameterWords(l.name)} ${l.text}`).join(', ')})`;
+  const text = `far-field moment ${describeValue(value, 'moment', ci95)} from ${source} vs ${describeValue(labelMoment, 'moment')} ± ${describeValue(stack, 'moment')} implied by the label (${usedLabels.map((l) => `${parameterWords(l.name)} ${l.text}`).join(', ')})`;
   if (!relation.comparable || ci95 === null) {
     return { check: { ...base, status: 'inconclusive', evidence: `${text}.`, toDecide: relation.note ?? 'Fit with the coil parameters free so that the fit reports a covariance.' }, role: 'moment', side, blocked: relation.comparable ? 'undetermined' : 'reading-type' };
   }

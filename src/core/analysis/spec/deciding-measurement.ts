@@ -1,4 +1,4 @@
-import { formatQuantity, type QuantityKind } from '../../units';
+import type { QuantityKind } from '../../units';
 import { describeValue } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
 import { noiseFromFit } from '../noise-from-fit';
@@ -34,7 +34,9 @@ export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget)
   const u = fitted.freeIndex.map((j) => target.gradient[j]!);
   const farthest = Math.max(...fitted.fit.points.map((p) => p.distance), 1e-3);
   const candidates = Array.from({ length: candidateCount }, (_, i) => ({ distance: (1.5 * farthest * i) / (candidateCount - 1), radial: 0 }));
-  const rows = sensitivityRows({ model: fitted.point.model, values: fitted.values, free: fitted.freeIndex, noise: noiseFromFit(fitted.fit) }, candidates);
+  const noise = noiseFromFit(fitted.fit);
+  if (!(noise.relative > 0 || noise.absolute > 0)) return 'The fit gives no reading uncertainty to plan further readings with; give the meter\'s accuracy (--uncertainty).';
+  const rows = sensitivityRows({ model: fitted.point.model, values: fitted.values, free: fitted.freeIndex, noise }, candidates);
   const budget = Math.max(10, 4 * fitted.fit.stats.n);
   const halfWidth = () => coverage * Math.sqrt(Math.max(0, quadratic(covariance, u, u, k)));
   const chosen: number[] = [];
@@ -69,8 +71,8 @@ export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget)
   const distances = chosen.map((c) => candidates[c]!.distance);
   const low = Math.min(...distances);
   const high = Math.max(...distances);
-  const where = high - low < 0.1 * high ? `near ${formatQuantity((low + high) / 2, 'length', { significant: 2 })}` : `between ${formatQuantity(low, 'length', { significant: 2 })} and ${formatQuantity(high, 'length', { significant: 2 })}`;
-  return `About ${chosen.length} more on-axis readings ${where}, as precise as these, would shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} decides it).`;
+  const where = high - low <= 0.1 * high ? `near ${describeValue((low + high) / 2, 'length', null, 2)}` : `between ${describeValue(low, 'length', null, 2)} and ${describeValue(high, 'length', null, 2)}`;
+  return `About ${chosen.length} more on-axis reading${chosen.length === 1 ? '' : 's'} ${where}, as precise as these, would shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} decides it).`;
 }
 
 function quadratic(matrix: Float64Array, x: ArrayLike<number>, y: ArrayLike<number>, k: number): number {

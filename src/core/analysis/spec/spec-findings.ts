@@ -10,12 +10,13 @@ export interface SpecFindings {
 /**
  * Read the failure signatures of DOMAIN.md §5 off the checks: geometry outside its
  * tolerance means the curve's *shape* disagrees with the label → **mislabeled** (whatever
- * the amplitude does); ampere-turns low with the geometry as labeled means the curve is
- * the label's curve scaled down → **degraded** (shorted turns, low drive current);
- * ampere-turns high → **amplitude-high**. When only the far-field moment could be
- * checked, **moment-low/high** says amplitude and size cannot be told apart. A failing
- * claim that a fitted inverse-square or power-law curve reproduces is flagged
- * **power-law-extrapolation**; values not comparable across detector types give
+ * the amplitude does); ampere-turns low with every labeled geometry parameter passing
+ * means the curve is the label's curve scaled down → **degraded** (shorted turns, low
+ * drive current); low with the geometry undecided or unlabeled → **amplitude-low** (a
+ * smaller coil is not ruled out); ampere-turns high → **amplitude-high**. When only the far-field moment could be
+ * checked, **moment-low/high** says amplitude and size cannot be told apart. A failed
+ * claim is **claim-not-met**; one that only a fitted inverse-square or power-law curve
+ * reproduces (not the label's own coil) is also **power-law-extrapolation**; values not comparable across detector types give
  * **reading-type-mismatch**.
  */
 export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
@@ -32,16 +33,22 @@ export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
     explanations.push(`${failedGeometry.map(against).join('; ')} → the curve's shape differs from the labeled geometry: a different, swapped or mislabeled coil${amplitudeNote}.`);
   } else if (failedAmplitude.length > 0) {
     const low = failedAmplitude.every((o) => o.side === 'low');
-    findings.push(low ? 'degraded' : 'amplitude-high');
+    const asLabeled = geometry.length > 0 && geometry.every((o) => o.check.status === 'pass');
     const shape = geometry.length === 0
-      ? 'no geometry on the label, so a smaller coil cannot be ruled out'
-      : geometry.map((o) => (o.check.status === 'pass' ? `${words(o)} ${measured(o)} as labeled` : `${words(o)} ${measured(o)} not decided`)).join('; ');
-    explanations.push(
-      `${failedAmplitude.map(against).join('; ')}; ${shape} → ` +
-        (low
-          ? 'amplitude loss: shorted turns or lower drive current (a wrong turn count or current on the label looks the same; measure the coil current to tell).'
-          : 'more ampere-turns than labeled: a higher drive current or more turns than stated.'),
-    );
+      ? 'no geometry on the label to compare the shape with'
+      : geometry.map((o) => (o.check.status === 'pass' ? `${words(o)} ${measured(o)} as labeled` : `${words(o)} ${measured(o).replace(/ \(.*\)$/, '')} not decided`)).join('; ');
+    if (asLabeled) {
+      findings.push(low ? 'degraded' : 'amplitude-high');
+      explanations.push(
+        `${failedAmplitude.map(against).join('; ')}; ${shape} → ` +
+          (low
+            ? 'amplitude loss: shorted turns or lower drive current (a wrong turn count or current on the label looks the same; measure the coil current to tell).'
+            : 'more ampere-turns than labeled: a higher drive current or more turns than stated.'),
+      );
+    } else {
+      findings.push(low ? 'amplitude-low' : 'amplitude-high');
+      explanations.push(`${failedAmplitude.map(against).join('; ')}; ${shape} → the amplitude is ${low ? 'low' : 'high'}, but without the geometry confirmed a ${low ? 'smaller' : 'larger'} coil is not ruled out: add readings within about one radius to tell degraded from mislabeled.`);
+    }
   }
   const moment = outcomes.find((o) => o.role === 'moment' && o.check.status === 'fail');
   if (moment) {
@@ -49,8 +56,7 @@ export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
     explanations.push(`${moment.check.evidence} Far-field readings fix only the moment, so amplitude loss and a ${moment.side === 'low' ? 'smaller' : 'larger'} coil cannot be told apart; add readings within about one radius.`);
   }
   const claims = outcomes.filter((o) => o.check.kind === 'claim');
-  const overstated = claims.filter((o) => o.check.status === 'fail' && o.side === 'low');
-  if (overstated.length > 0) findings.push('claim-overstated');
+  if (claims.some((o) => o.check.status === 'fail')) findings.push('claim-not-met');
   for (const claim of claims.filter((o) => o.matchesNaive && o.check.status !== 'pass')) {
     if (!findings.includes('power-law-extrapolation')) findings.push('power-law-extrapolation');
     explanations.push(`The claimed ${describeValue(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${describeValue(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law (DOMAIN.md §1.9).`);

@@ -68,7 +68,7 @@ describe('verifySpec()', () => {
     expect(verdict.status).toBe('inconclusive');
     const check = verdict.checks[0]!;
     expect(check.status).toBe('inconclusive');
-    expect(check.toDecide).toMatch(/more on-axis readings .* would shrink the ampere-turns interval|Even \d+ more readings/);
+    expect(check.toDecide).toMatch(/more on-axis readings? .* would shrink the ampere-turns interval|Even \d+ more readings/);
     expect(verdict.explanations.join(' ')).toContain('To decide ampereTurns');
   });
 

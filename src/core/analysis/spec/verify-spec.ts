@@ -3,7 +3,9 @@ import { getModel } from '../../models';
 import type { CheckStatus, Verdict } from '../../report/report';
 import type { ReadingType } from '../../survey/survey';
 import { convergedFit } from '../best-fit';
-import { fittedModel } from '../fitted-model';
+import { coilOnlyValues } from '../coil-only-values';
+import { fittedModel, type FittedModel } from '../fitted-model';
+import { parameterRole } from '../parameter-roles';
 import { checkClaim } from './check-claim';
 import { checkMoment } from './check-moment';
 import { checkParameter, type CheckOutcome } from './check-parameter';
@@ -37,17 +39,33 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
   const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
   if (outcomes.some((o) => o.blocked === 'undetermined')) {
-    const moment = checkMoment(fitted, spec.params, relation);
+    const dipoleFit = convergedFit(fits, 'dipole');
+    const moment = checkMoment(fitted, spec.params, relation, dipoleFit && dipoleFit !== fit ? fittedModel(dipoleFit, getModel('dipole')) : null);
     if (moment) outcomes.push(moment);
   }
   const naive = (['inverse-square', 'power-law'] as const).flatMap((id) => {
     const other = convergedFit(fits, id);
     return other && other !== fit ? [fittedModel(other, getModel(id))] : [];
   });
-  outcomes.push(...spec.claims.map((claim) => checkClaim(fitted, claim, relation, naive)));
+  outcomes.push(...spec.claims.map((claim) => checkClaim(fitted, claim, relation, naive, labelCoil(fitted, spec))));
   const { findings, explanations } = specFindings(outcomes);
   const statuses = outcomes.map((o) => o.check.status);
   const status: CheckStatus = statuses.includes('fail') ? 'fail' : statuses.every((s) => s === 'pass') ? 'pass' : 'inconclusive';
   const notes = relation.note && relation.comparable ? [relation.note] : [];
+  if (fit.warnings.length > 0) notes.push(`The ${fit.model} fit behind this verdict has ${fit.warnings.length} warning${fit.warnings.length === 1 ? '' : 's'} (listed with the fit); read ${fit.warnings.length === 1 ? 'it' : 'them'} before acting on the verdict.`);
   return { status, findings, checks: outcomes.map((o) => o.check), explanations: [...explanations, ...notes] };
+}
+
+/** The spec model at the label's values (coil only) when the label gives every amplitude and geometry parameter; else null. */
+function labelCoil(fitted: FittedModel, spec: Spec): Float64Array | null {
+  const model = fitted.point.model;
+  const values = coilOnlyValues(model, fitted.values);
+  for (const [j, parameter] of model.parameters.entries()) {
+    const role = parameterRole(parameter.name);
+    if (role !== 'amplitude' && role !== 'geometry') continue;
+    const label = spec.params.find((p) => p.name === parameter.name);
+    if (!label) return null;
+    values[j] = label.value;
+  }
+  return values;
 }

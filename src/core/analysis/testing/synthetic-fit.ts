@@ -13,7 +13,8 @@ export interface SyntheticParameter {
  * A FitResult with chosen values and uncorrelated standard errors, for testing analyses
  * whose logic does not depend on how a fit was obtained (fleet trends, decision rules).
  * Intervals are value ± coverage·stderr (default 1.96); n readings (or one point per
- * given distance, with zero field), k free parameters; a full covariance may be given.
+ * given distance, with zero field and a stated σ of 10 µT), k free parameters; a full
+ * covariance may be given.
  * Not a fit: nothing is evaluated.
  */
 export function syntheticFit(
@@ -49,7 +50,7 @@ export function syntheticFit(
     correlation: free.flatMap((a) => free.map((b) => (a === b ? 1 : 0))),
     uncertaintyScale: 'stated',
     stats: { n, k, rss: 0, rmse: 0, chiSquare: n - k, reducedChiSquare: 1, aicc: options.aicc ?? 0, bic: 0, akaikeWeight: null },
-    points: (options.distances ?? []).map((distance, i) => ({ line: i + 2, distance, radial: 0, field: 0, predicted: 0, residual: 0, standardUncertainty: null })),
+    points: (options.distances ?? []).map((distance, i) => ({ line: i + 2, distance, radial: 0, field: 0, predicted: 0, residual: 0, standardUncertainty: 1e-5 })),
     warnings: [],
   };
 }
