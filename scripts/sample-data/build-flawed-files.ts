@@ -6,7 +6,7 @@
 import type { TruthEntry } from './build-sample-data';
 import { display, gaussianSource, noisyReading } from './noisy-reading';
 import { applicatorProbeOffset, handheldMeter } from './scenario';
-import { loopOnAxis } from './true-field';
+import { catalogReading } from './catalog-reading';
 
 /** Cell text that replaces a healthy row, keyed by its ruler distance in mm; why, for the reader. */
 const badRows: ReadonlyMap<number, { row: string; code: string }> = new Map([
@@ -49,15 +49,17 @@ export function buildFlawedFiles(healthy: readonly [number, number][], metadata:
 
   // Probe held reversed: the meter shows −(field + background) plus its own zero offset of +30 uT, so far readings are above zero.
   const gaussian = gaussianSource(1107);
-  const reversedTruth = { probeOffset: applicatorProbeOffset, background: -3e-5 + 1e-5 };
+  // Seen after the flip: +10 uT of background along the probe minus the meter's +30 uT zero offset.
+  const reversedParams = { ampereTurns: 400, radius: 0.05, probeOffset: applicatorProbeOffset, background: -2e-5 };
+  const reversedReading = catalogReading('loop', reversedParams, 'axial');
   const reversed = [0, 5, 10, 15, 20, 30, 40, 50, 60, 80, 100, 130, 160, 200, 250, 300, 400, 500].map((mm) =>
-    `${mm},${display(-noisyReading((z) => loopOnAxis(400, 0.05, z), mm / 1000, reversedTruth, handheldMeter, gaussian), 1e-3, 4)}`);
+    `${mm},${display(-noisyReading(reversedReading, mm / 1000, handheldMeter, gaussian), 1e-3, 4)}`);
   files.set('flawed/reversed-probe.csv', [...noteFlawed('read with the probe turned round; the importer flips the signs').map((l) => l.replace('QA-107', 'QA-330').replace('2025-03-11', '2026-03-02')),
     'distance (mm),B (mT)', ...reversed].join('\n') + '\n');
   truth.push({
     file: 'flawed/reversed-probe.csv', story: 'QA-330 read with the probe reversed and a +30 uT meter zero offset; after the flip the background is −20 uT',
     coil: 'QA-330', date: '2026-03-02', readingType: 'dc', model: 'loop', noise: handheldMeter, seed: 1107,
-    params: { ampereTurns: 400, radius: 0.05, probeOffset: applicatorProbeOffset, background: -2e-5 }, expected: { flipped: true },
+    params: reversedParams, expected: { flipped: true },
   });
   return { files, truth };
 }

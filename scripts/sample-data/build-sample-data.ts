@@ -3,13 +3,13 @@
  * so the writer script and the tests share one definition (same seed → same bytes).
  */
 import { buildFlawedFiles } from './build-flawed-files';
+import { catalogReading } from './catalog-reading';
 import { buildSpecFiles } from './build-spec-files';
 import { gaussianSource, noisyReading, display, type NoiseModel } from './noisy-reading';
 import {
   applicatorDistancesMm, applicatorProbeOffset, benchBackground, benchName, fleetAmpereTurns,
   fleetDates, fleetDistancesMm, fleetRadius, handheldMeter, inventedNote, labMeter,
 } from './scenario';
-import { loopOffAxis, loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from './true-field';
 
 /** What TRUTH.json says about one survey: model, parameters (SI), noise and seed. */
 export interface TruthEntry {
@@ -39,8 +39,8 @@ function metadata(coil: string, date: string, reading: string, probe: string): s
 /** A loop applicator survey on axis with the bench's handheld meter; rows of [mm, tesla]. */
 export function loopSurvey(ampereTurns: number, radius: number, distancesMm: readonly number[], seed: number, background = benchBackground): [number, number][] {
   const gaussian = gaussianSource(seed);
-  const truth = { probeOffset: applicatorProbeOffset, background };
-  return distancesMm.map((mm) => [mm, noisyReading((z) => loopOnAxis(ampereTurns, radius, z), mm / 1000, truth, handheldMeter, gaussian)]);
+  const reading = catalogReading('loop', { ampereTurns, radius, probeOffset: applicatorProbeOffset, background }, 'axial');
+  return distancesMm.map((mm) => [mm, noisyReading(reading, mm / 1000, handheldMeter, gaussian)]);
 }
 
 function loopTruth(file: string, story: string, coil: string, date: string, ampereTurns: number, radius: number, seed: number): TruthEntry {
@@ -75,24 +75,26 @@ export function buildSampleData(): { files: Map<string, string>; truth: TruthEnt
   truth.push(loopTruth('qa-214-2026-02-17-mislabeled.csv', 'mislabeled: label says radius 45 mm, true radius 60 mm', 'QA-214', '2026-02-17', 360, 0.06, 1103));
 
   // 4. Rectangular therapy mat, 300 × 200 mm, on its 50 Hz drive, true-RMS meter; a clinic's semicolon/decimal-comma export.
-  const matTruth = { probeOffset: 0.006, background: 0 };
+  const matParams = { ampereTurns: 150, width: 0.3, height: 0.2, probeOffset: 0.006, background: 0 };
+  const matReading = catalogReading('rectangle', matParams, 'axial');
   const matGaussian = gaussianSource(1104);
   const matDistancesMm = [0, 10, 20, 30, 40, 50, 60, 80, 100, 125, 150, 175, 200, 250, 300];
-  const mat = matDistancesMm.map((mm) => [mm, noisyReading((z) => rectangleOnAxis(150, 0.3, 0.2, z), mm / 1000, matTruth, handheldMeter, matGaussian)] as const);
+  const mat = matDistancesMm.map((mm) => [mm, noisyReading(matReading, mm / 1000, handheldMeter, matGaussian)] as const);
   files.set('qm-03-2026-01-20-mat.csv', '\uFEFF' + [...metadata('QM-03', '2026-01-20', 'rms', 'transverse Hall probe flat on the mat cover (cover 4.5 mm, blade 1.5 mm)'),
     'distance (mm);B (uT)', ...mat.map(([mm, tesla]) => `${mm};${display(tesla, 1e-6, 4).replace('.', ',')}`)].join('\r\n') + '\r\n');
   truth.push({
     file: 'qm-03-2026-01-20-mat.csv', story: 'rectangular mat 300 × 200 mm, 50 Hz drive, RMS readings (no DC background in an AC reading)',
     coil: 'QM-03', date: '2026-01-20', readingType: 'rms', model: 'rectangle', seed: 1104, noise: handheldMeter,
-    params: { ampereTurns: 150, width: 0.3, height: 0.2, probeOffset: 0.006, background: 0 },
+    params: matParams,
   });
 
   // 5. Thick coil (a lab electromagnet insert) on a jig with a lab teslameter; tab-separated with an uncertainty column.
   const thick = { ampereTurns: 1500, innerRadius: 0.02, outerRadius: 0.04, length: 0.03, probeOffset: 0.0015, background: benchBackground };
+  const thickReading = catalogReading('thick-coil', thick, 'axial');
   const thickGaussian = gaussianSource(1105);
   const thickDistancesMm = [0, 2, 5, 8, 10, 15, 20, 25, 30, 40, 50, 60, 75, 90, 110, 130, 150];
   const thickRows = thickDistancesMm.map((mm) => {
-    const tesla = noisyReading((z) => thickCoilOnAxis(thick.ampereTurns, thick.innerRadius, thick.outerRadius, thick.length, z + thick.length / 2), mm / 1000, thick, labMeter, thickGaussian);
+    const tesla = noisyReading(thickReading, mm / 1000, labMeter, thickGaussian);
     return `${mm}\t${display(tesla, 1e-3, 5)}\t${display(labMeter.relativeSd * Math.abs(tesla) + labMeter.floorSd, 1e-6, 2)}`;
   });
   files.set('qt-9-2026-02-03-thick.csv', [...metadata('QT-9', '2026-02-03', 'dc', 'lab teslameter axial probe in a jig, element 1.5 mm behind the tip; distance from the coil face'),
@@ -103,13 +105,17 @@ export function buildSampleData(): { files: Map<string, string>; truth: TruthEnt
   });
 
   // 6. Off-axis grid with a triaxial probe moved along +x: Bx is the radial component, By ≈ 0, Bz axial. Coil-off background subtracted.
+  const gridParams = { ampereTurns: 400, radius: 0.05, probeOffset: applicatorProbeOffset, background: 0 };
+  const [gridAxial, gridMagnitude] = [catalogReading('loop', gridParams, 'axial'), catalogReading('loop', gridParams, 'magnitude')];
   const gridGaussian = gaussianSource(1106);
   const gridRows: string[] = [];
   for (const mm of [10, 25, 50, 75, 100]) {
     for (const rhoMm of [0, 15, 30, 45, 60, 75]) {
-      const z = mm / 1000 + applicatorProbeOffset + handheldMeter.positionSd * gridGaussian();
-      const { axial, radial } = loopOffAxis(400, 0.05, rhoMm / 1000, z);
-      const size = Math.hypot(axial, radial);
+      const distance = mm / 1000 + handheldMeter.positionSd * gridGaussian();
+      const axial = gridAxial(distance, rhoMm / 1000);
+      const size = gridMagnitude(distance, rhoMm / 1000);
+      // B_ρ from |B| and B_z; for a loop B_ρ has the sign of z (here positive), DOMAIN §1.2 and §9 rows 7, 10, 11
+      const radial = Math.sqrt(Math.max(0, size ** 2 - axial ** 2));
       const noisy = (value: number) => value + handheldMeter.relativeSd * size * gridGaussian() + handheldMeter.floorSd * gridGaussian();
       gridRows.push([mm, rhoMm, ...[radial, 0, axial].map((v) => display(noisy(v), 1e-3, 4))].join(','));
     }
@@ -119,7 +125,7 @@ export function buildSampleData(): { files: Map<string, string>; truth: TruthEnt
   truth.push({
     file: 'qa-330-2026-03-02-offaxis-grid.csv', story: 'off-axis grid, components from a triaxial probe; |B| = √(Bx²+By²+Bz²)',
     coil: 'QA-330', date: '2026-03-02', readingType: 'dc', model: 'loop', seed: 1106, noise: handheldMeter,
-    params: { ampereTurns: 400, radius: 0.05, probeOffset: applicatorProbeOffset, background: 0 },
+    params: gridParams,
   });
 
   // 7. Fleet log: three coils on five quarterly dates in one file.

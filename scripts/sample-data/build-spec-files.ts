@@ -6,7 +6,7 @@
  * a larger former; that disagreement is the point of its sample.
  */
 import { applicatorLabel, applicatorProbeOffset } from './scenario';
-import { loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from './true-field';
+import { catalogReading } from './catalog-reading';
 
 /** A claim as a datasheet prints it: two significant digits, in mT. */
 function claim(distanceMm: number, tesla: number, tolerance: string): { distance: string; field: string; tolerance: string } {
@@ -14,7 +14,10 @@ function claim(distanceMm: number, tesla: number, tolerance: string): { distance
 }
 
 export function buildSpecFiles(): Map<string, string> {
-  const loopClaim = (ampereTurns: number, radius: number, mm: number) => claim(mm, loopOnAxis(ampereTurns, radius, mm / 1000 + applicatorProbeOffset), '15%');
+  const loopClaim = (ampereTurns: number, radius: number, mm: number) =>
+    claim(mm, catalogReading('loop', { ampereTurns, radius, probeOffset: applicatorProbeOffset, background: 0 }, 'axial')(mm / 1000), '15%');
+  const mat = catalogReading('rectangle', { ampereTurns: 150, width: 0.3, height: 0.2, probeOffset: 0.006, background: 0 }, 'axial');
+  const thick = catalogReading('thick-coil', { ampereTurns: 1500, innerRadius: 0.02, outerRadius: 0.04, length: 0.03, probeOffset: 0.0015, background: 0 }, 'axial');
   const loopSpec = (coil: string, ampereTurns: number, radius: number, claimsMm: readonly number[]) => ({
     coil,
     model: 'loop',
@@ -30,12 +33,12 @@ export function buildSpecFiles(): Map<string, string> {
     loopSpec('QA-412', 420, 0.05, [0, 50]),
     {
       coil: 'QM-03', model: 'rectangle', params: { ampereTurns: '150 A', width: '300 mm', height: '200 mm' }, tolerance: '10%',
-      claims: [0, 100].map((mm) => claim(mm, rectangleOnAxis(150, 0.3, 0.2, mm / 1000 + 0.006), '20%')), readingType: 'rms',
+      claims: [0, 100].map((mm) => claim(mm, mat(mm / 1000), '20%')), readingType: 'rms',
     },
     {
       coil: 'QT-9', model: 'thick-coil',
       params: { ampereTurns: '1500 A', innerRadius: '20 mm', outerRadius: '40 mm', length: '30 mm' }, tolerance: '5%',
-      claims: [0, 50].map((mm) => claim(mm, thickCoilOnAxis(1500, 0.02, 0.04, 0.03, mm / 1000 + 0.0015 + 0.015), '10%')), readingType: 'dc',
+      claims: [0, 50].map((mm) => claim(mm, thick(mm / 1000), '10%')), readingType: 'dc',
     },
   ];
   const files = new Map<string, string>();

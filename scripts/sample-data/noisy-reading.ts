@@ -18,23 +18,16 @@ export function gaussianSource(seed: number): () => number {
 }
 
 /**
- * One displayed reading of a signed field component: the true field at the probe's
- * sensing point, which sits `probeOffset` beyond the ruler distance (§3.1) and scatters
- * by `positionSd`, plus background (§3.4), plus relative and absolute noise added in
- * quadrature, rounded to the meter's display digits.
+ * One displayed reading: the model's reading at the ruler distance plus placement scatter
+ * (`positionSd`, §3.7) — the model itself adds the probe offset (§3.1) and background
+ * (§3.4) — plus relative and absolute noise added in quadrature, rounded to the meter's
+ * display digits.
  *
- * @param field the true signed reading (T) at sensing distance z (m) from the coil datum
+ * @param reading the true reading (T) at a ruler distance (m), offset and background included
  * @returns the displayed value, T
  */
-export function noisyReading(
-  field: (z: number) => number,
-  rulerDistance: number,
-  truth: { readonly probeOffset: number; readonly background: number },
-  noise: NoiseModel,
-  gaussian: () => number,
-): number {
-  const z = rulerDistance + truth.probeOffset + noise.positionSd * gaussian();
-  const clean = field(z) + truth.background;
+export function noisyReading(reading: (distance: number) => number, rulerDistance: number, noise: NoiseModel, gaussian: () => number): number {
+  const clean = reading(rulerDistance + noise.positionSd * gaussian());
   return roundToDigits(clean + noise.relativeSd * Math.abs(clean) * gaussian() + noise.floorSd * gaussian(), noise.significantDigits);
 }
 

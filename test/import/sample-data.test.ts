@@ -6,7 +6,8 @@ import type { ParameterSpec } from '../../src/core/models/field-model';
 import { importSurveys, type ImportResult } from '../../src/io/index';
 import { parseSpecText } from '../../src/io/spec/parse-spec-text';
 import { buildSampleData, type TruthEntry } from '../../scripts/sample-data/build-sample-data';
-import { loopOffAxis, loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from '../../scripts/sample-data/true-field';
+import { catalogReading } from '../../scripts/sample-data/catalog-reading';
+import { loopOffAxis, loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from './closed-form-fields';
 import { expectClose } from '../support/expect-close';
 
 const folder = join(import.meta.dirname, '..', '..', 'sample-data');
@@ -14,7 +15,7 @@ const read = (path: string) => readFileSync(join(folder, path), 'utf8');
 const { files, truth } = buildSampleData();
 const truthOf = (file: string) => truth.find((t) => t.file === file) as TruthEntry;
 
-describe('sample-data generator physics (scripts/sample-data/true-field.ts)', () => {
+describe('closed-form fields used to check the sample data (test/import/closed-form-fields.ts)', () => {
   it('loopOnAxis() matches DOMAIN.md §9 rows 1–4 (R = 0.1 m, NI = 1 A)', () => {
     // DOMAIN.md §9 rows 1–4 [C], mpmath
     expectClose(loopOnAxis(1, 0.1, 0), 6.2831853106e-6, { rel: 1e-9 });
@@ -44,6 +45,33 @@ describe('sample-data generator physics (scripts/sample-data/true-field.ts)', ()
     expectClose(thickCoilOnAxis(500, 0.02, 0.04, 0.05, 0), 8.11025818787e-3, { rel: 1e-9 });
     expectClose(thickCoilOnAxis(500, 0.02, 0.04, 0.05, 0.025), 5.38206558032e-3, { rel: 1e-9 });
     expectClose(thickCoilOnAxis(500, 0.02, 0.04, 0.05, 0.1), 2.79502027672e-4, { rel: 1e-9 });
+  });
+});
+
+describe('sample-data generator fields (scripts/sample-data/catalog-reading.ts)', () => {
+  it('catalogReading() of the model catalog equals the closed forms at every sample coil, on and off axis', () => {
+    const distances = [0, 0.002, 0.01, 0.03, 0.05, 0.1, 0.2, 0.3];
+    for (const entry of truth.flatMap((t) => t.surveys ?? [t])) {
+      const p = entry.params;
+      const axial = catalogReading(entry.model as 'loop', p, 'axial');
+      const magnitude = catalogReading(entry.model as 'loop', p, 'magnitude');
+      for (const d of distances) {
+        const z = d + (p['probeOffset'] ?? NaN);
+        const background = p['background'] ?? NaN;
+        // DOMAIN.md §1.1, §1.2, §1.4, §1.6 closed forms (independent code, checked against §9 above)
+        if (entry.model === 'loop') {
+          expectClose(axial(d), loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z) + background, { rel: 1e-9, abs: 1e-15 }, `${entry.coil} d=${d}`);
+          const off = loopOffAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, 0.03, z);
+          expectClose(magnitude(d, 0.03), Math.hypot(off.axial, off.radial) + background, { rel: 1e-9, abs: 1e-15 }, `${entry.coil} d=${d} ρ=30 mm`);
+        } else if (entry.model === 'rectangle') {
+          expectClose(axial(d), rectangleOnAxis(p['ampereTurns'] ?? NaN, p['width'] ?? NaN, p['height'] ?? NaN, z) + background, { rel: 1e-9 });
+        } else {
+          expect(entry.model).toBe('thick-coil');
+          const centre = z + (p['length'] ?? NaN) / 2;
+          expectClose(axial(d), thickCoilOnAxis(p['ampereTurns'] ?? NaN, p['innerRadius'] ?? NaN, p['outerRadius'] ?? NaN, p['length'] ?? NaN, centre) + background, { rel: 1e-9 });
+        }
+      }
+    }
   });
 });
 

@@ -1,7 +1,8 @@
 /**
- * Closed-form coil fields for generating the sample data (DOMAIN.md §1), kept beside the
- * generator so the sample truth does not depend on the code it is used to test. SI in
- * and out: amperes, metres, tesla. Checked against DOMAIN.md §9 in test/import/sample-data.test.ts.
+ * Closed-form coil fields (DOMAIN.md §1), written apart from src/core so that the sample
+ * data, generated with the model catalog, can be checked against an independent
+ * statement of the physics. SI in and out: amperes, metres, tesla. Checked against
+ * DOMAIN.md §9 in test/import/sample-data.test.ts.
  */
 import ellipe from '@stdlib/math-base-special-ellipe';
 import ellipk from '@stdlib/math-base-special-ellipk';
