@@ -50,7 +50,7 @@ describe('ringfall plan', () => {
   it('ringfall plan exits 2 with a one-line message for a missing value, an unknown model or too few points', async () => {
     const missing = await run('--model', 'loop', '--set', 'ampereTurns=120A');
     expect(missing.code).toBe(2);
-    expect(missing.stderr).toBe('ringfall: --set: loop needs rough values for radius. Give them like --set radius=45mm.\n');
+    expect(missing.stderr).toBe('ringfall: --set: loop needs rough values for radius. Give them like --set radius=50mm.\n');
     expect((await run('--model', 'helix', '--set', 'radius=4mm')).stderr).toContain('Use one of: loop');
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--points', '3')).code).toBe(2);
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mT')).stderr).toContain('length');

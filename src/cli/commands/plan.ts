@@ -4,10 +4,8 @@ import { planMeasurements } from '../../core/analysis/plan/plan-measurements';
 import { planToJson, renderPlanText } from '../../core/analysis/plan/render-plan';
 import type { DesignPoint, DesignProblem } from '../../core/analysis/plan/design-problem';
 import { parameterRole } from '../../core/analysis/parameter-roles';
-import { getModel, modelIds } from '../../core/models';
-import type { FieldModel, ModelId } from '../../core/models/field-model';
+import { exampleValue, getModel, parseParameterAssignment } from '../../core/models';
 import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
-import { kindOfUnit } from '../../core/analysis/describe-value';
 import type { CommandContext } from '../main';
 
 interface PlanFlags {
@@ -60,24 +58,21 @@ export function registerPlan(program: Command, _context: CommandContext): void {
 
 /** Turn the command-line flags into a design problem and plan options. Exported for tests. */
 export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; options: Parameters<typeof planMeasurements>[1] } {
-  if (!(modelIds as readonly string[]).includes(flags.model)) {
-    throw new RingfallError('USAGE_MODEL', `--model: "${flags.model}" is not a model. Use one of: ${modelIds.join(', ')}.`, { value: flags.model });
-  }
-  const model = getModel(flags.model as ModelId);
+  const model = getModel(flags.model, '--model');
   const values = new Float64Array(model.parameters.length);
   const given = new Set<string>();
   const fixed = new Set<string>();
-  for (const [list, isFixed] of [[flags.set, false], [flags.fix, true]] as const) {
+  for (const [list, option] of [[flags.set, '--set'], [flags.fix, '--fix']] as const) {
     for (const text of list) {
-      const { name, value } = readAssignment(text, model, isFixed ? '--fix' : '--set');
-      values[model.parameters.findIndex((p) => p.name === name)] = value;
+      const { index, name, value } = parseParameterAssignment(model, text, option);
+      values[index] = value;
       given.add(name);
-      if (isFixed) fixed.add(name);
+      if (option === '--fix') fixed.add(name);
     }
   }
   const missing = model.parameters.filter((p) => !given.has(p.name) && !['offset', 'background'].includes(parameterRole(p.name)));
   if (missing.length > 0) {
-    throw new RingfallError('USAGE_SET', `--set: ${model.id} needs rough values for ${missing.map((p) => p.name).join(', ')}. Give them like --set ${missing[0]!.name}=${example(missing[0]!.unit)}.`, { value: missing.map((p) => p.name) });
+    throw new RingfallError('USAGE_SET', `--set: ${model.id} needs rough values for ${missing.map((p) => p.name).join(', ')}. Give them like --set ${missing[0]!.name}=${exampleValue(missing[0]!.unit)}.`, { value: missing.map((p) => p.name) });
   }
   const size = Math.max(0, ...model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? values[j]! : 0)));
   const count = Number(flags.points);
@@ -105,21 +100,6 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
   };
 }
 
-function readAssignment(text: string, model: FieldModel, option: string): { name: string; value: number } {
-  const match = /^\s*([A-Za-z]+)\s*=\s*(.+)$/.exec(text);
-  const parameter = match ? model.parameters.find((p) => p.name === match[1]) : undefined;
-  if (!match || !parameter) {
-    throw new RingfallError('USAGE_SET', `${option}: "${text}" does not name a parameter of ${model.id}. Write NAME=QTY with NAME one of: ${model.parameters.map((p) => p.name).join(', ')}.`, { value: text });
-  }
-  const kind = kindOfUnit(parameter.unit);
-  if (kind === null) {
-    const value = Number(match[2]);
-    if (!Number.isFinite(value)) throw new RingfallError('USAGE_SET', `${option} ${parameter.name}: "${match[2]}" is not a number. Give a plain number, e.g. ${parameter.name}=2.5.`, { value: text });
-    return { name: parameter.name, value };
-  }
-  return { name: parameter.name, value: parseQuantity(match[2]!, kind, `${option} ${parameter.name}`).value };
-}
-
 function readReach(text: string): readonly [number, number] {
   const parts = text.split('..');
   if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${text}" is not a range. Write it like 5mm..200mm.`, { value: text });
@@ -136,8 +116,4 @@ function length(text: string, what: string): number {
   const value = parseQuantity(text, 'length', what).value;
   if (value < 0) throw new RingfallError('USAGE_LENGTH', `${what}: "${text}" is negative. Give a distance ≥ 0.`, { value: text });
   return value;
-}
-
-function example(unit: string): string {
-  return unit === 'A' ? '120A' : unit === 'm' ? '45mm' : unit === 'T' ? '0T' : unit === 'A·m²' ? '0.5Am2' : '2.5';
 }

@@ -1,16 +1,4 @@
-import type { ParameterUnit } from '../models/field-model';
 import { displayUnit, formatNumber, type QuantityKind } from '../units';
-
-/** Quantity kind of a catalog parameter unit, or null for dimensionless ones. */
-export function kindOfUnit(unit: ParameterUnit | 'T' | 'm'): QuantityKind | null {
-  switch (unit) {
-    case 'A': return 'current';
-    case 'm': return 'length';
-    case 'T': return 'field';
-    case 'A·m²': return 'moment';
-    default: return null;
-  }
-}
 
 /** Units in which an exact zero is shown ("0 mm", not "0 um"). */
 const zeroUnits: Record<QuantityKind, { symbol: string; factor: number }> = {

@@ -16,5 +16,5 @@ export { expectedIntervals, type ExpectedIntervals, type ExpectedParameter } fro
 export type { DesignProblem, DesignPoint, NoiseModel } from './plan/design-problem';
 export { planToJson, renderPlanText, planSchema } from './plan/render-plan';
 export { fittedModel, deltaVariance, type FittedModel } from './fitted-model';
-export { farFieldMoment, parameterRole, type ParameterRole } from './parameter-roles';
+export { parameterRole, type ParameterRole } from './parameter-roles';
 export { bestPhysicalFit } from './best-fit';

@@ -1,7 +1,8 @@
 import type { ParameterUnit } from '../../models/field-model';
 import { studentTQuantile } from '../../stats/student-t-quantile';
 import { formatNumber } from '../../units';
-import { farFieldMoment, parameterRole } from '../parameter-roles';
+import { momentEstimate } from '../../fit/far-field-moment';
+import { parameterRole } from '../parameter-roles';
 import { choleskyFactor, choleskyInverse } from '../symmetric-matrix';
 import { informationMatrix, sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
 
@@ -84,23 +85,9 @@ function covarianceOf(information: Float64Array, k: number): Float64Array | null
 }
 
 function momentInterval(problem: DesignProblem, covariance: Float64Array | null, coverage: number): ExpectedIntervals['moment'] {
-  const named = (values: Float64Array) => Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, values[j]!]));
-  const value = farFieldMoment(problem.model.id, named(problem.values));
-  if (value === null || problem.model.id === 'dipole') return null;
-  if (!covariance) return { value, halfWidth: null, relative: null };
-  const k = problem.free.length;
-  const trial = new Float64Array(problem.values);
-  const gradient = problem.free.map((j) => {
-    const h = 1e-6 * Math.max(Math.abs(problem.values[j]!), 1e-9);
-    trial[j] = problem.values[j]! + h;
-    const up = farFieldMoment(problem.model.id, named(trial))!;
-    trial[j] = problem.values[j]! - h;
-    const down = farFieldMoment(problem.model.id, named(trial))!;
-    trial[j] = problem.values[j]!;
-    return (up - down) / (2 * h);
-  });
-  let variance = 0;
-  for (let a = 0; a < k; a += 1) for (let b = 0; b < k; b += 1) variance += gradient[a]! * covariance[a * k + b]! * gradient[b]!;
-  const halfWidth = coverage * Math.sqrt(Math.max(0, variance));
-  return { value, halfWidth, relative: halfWidth / Math.abs(value) };
+  if (problem.model.id === 'dipole') return null;
+  const estimate = momentEstimate(problem.model, problem.values, problem.free, covariance, coverage);
+  if (estimate === null) return null;
+  const halfWidth = estimate.ci95 === null ? null : estimate.ci95[1] - estimate.value;
+  return { value: estimate.value, halfWidth, relative: halfWidth === null ? null : halfWidth / Math.abs(estimate.value) };
 }

@@ -1,5 +1,6 @@
 import { formatNumber, formatQuantity } from '../../units';
-import { describeValue, kindOfUnit } from '../describe-value';
+import { parameterQuantityKind } from '../../models';
+import { describeValue } from '../describe-value';
 import type { DesignProblem } from './design-problem';
 import type { ExpectedIntervals } from './expected-intervals';
 import type { MeasurementPlan } from './plan-measurements';
@@ -36,7 +37,7 @@ export function planToJson(problem: DesignProblem, plan: MeasurementPlan): Recor
 /** The plan as text for an 80-column terminal: positions, then expected intervals side by side. */
 export function renderPlanText(problem: DesignProblem, plan: MeasurementPlan): string {
   const lines: string[] = [];
-  const setting = problem.model.parameters.map((p, j) => `${p.name} ${describeValue(problem.values[j]!, kindOfUnit(p.unit))}${problem.free.includes(j) ? '' : ' (fixed)'}`);
+  const setting = problem.model.parameters.map((p, j) => `${p.name} ${describeValue(problem.values[j]!, parameterQuantityKind(p.unit))}${problem.free.includes(j) ? '' : ' (fixed)'}`);
   lines.push(`Measurement plan for ${problem.model.id}: ${setting.join(', ')}`);
   lines.push(`Optimised for ${plan.interest.join(', ')}; ${plan.notes.join(' ')}`, '');
   const plans: [string, ExpectedIntervals][] = [['recommended', plan.recommended], ['evenly spaced', plan.evenlySpaced]];
@@ -46,7 +47,7 @@ export function renderPlanText(problem: DesignProblem, plan: MeasurementPlan): s
   const header = ['', ...plans.map(([name]) => name)];
   const rows = plan.recommended.parameters.map((p, a) => [
     p.name,
-    ...plans.map(([, intervals]) => halfWidthText(intervals.parameters[a]!.halfWidth, intervals.parameters[a]!.relative, kindOfUnit(p.unit))),
+    ...plans.map(([, intervals]) => halfWidthText(intervals.parameters[a]!.halfWidth, intervals.parameters[a]!.relative, parameterQuantityKind(p.unit))),
   ]);
   if (plan.recommended.moment) rows.push(['moment', ...plans.map(([, i]) => halfWidthText(i.moment?.halfWidth ?? null, i.moment?.relative ?? null, 'moment'))]);
   rows.push(['ρ(amplitude, size)', ...plans.map(([, i]) => (i.correlation === null ? '—' : formatNumber(i.correlation, 3)))]);

@@ -1,15 +1,16 @@
 import type { SpecCheck } from '../../report/report';
 import { decideConformity } from '../decide-conformity';
 import { describeValue, parameterWords } from '../describe-value';
-import { deltaVariance, type FittedModel } from '../fitted-model';
-import { farFieldMoment } from '../parameter-roles';
+import type { FittedModel } from '../fitted-model';
+import { farFieldMoment, momentEstimate } from '../../fit/far-field-moment';
+import type { FieldModel } from '../../models/field-model';
 import type { CheckOutcome } from './check-parameter';
 import type { ReadingRelation } from './reading-relation';
 import type { SpecParameter } from './spec';
 
 /**
  * When the survey cannot separate ampere-turns from geometry (far-field readings), check
- * what it does determine: the far-field moment m (farFieldMoment) against the moment the
+ * what it does determine: the far-field moment m (fit/far-field-moment) against the moment the
  * label implies. The label's tolerance carries over by linear worst-case stacking,
  * T_m = Σ |∂m/∂pⱼ|·Tⱼ (common practice for tolerance stack-up). The measured moment is
  * the dipole fit's when there is one (the model that matches far-field data, DOMAIN.md
@@ -19,16 +20,18 @@ import type { SpecParameter } from './spec';
  */
 export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[], relation: ReadingRelation, dipole: FittedModel | null): CheckOutcome | null {
   const model = fitted.point.model;
-  const fittedValues = Object.fromEntries(model.parameters.map((p, j) => [p.name, fitted.values[j]!]));
-  const labelValues: Record<string, number> = { ...fittedValues };
-  for (const label of labels) labelValues[label.name] = label.value;
-  const labelMoment = farFieldMoment(model.id, labelValues);
-  const fittedMoment = farFieldMoment(model.id, fittedValues);
-  if (labelMoment === null || fittedMoment === null) return null;
-  const usedLabels = labels.filter((label) => partial(model.id, labelValues, label.name) !== 0);
-  const needed = model.parameters.filter((p) => partial(model.id, fittedValues, p.name) !== 0).map((p) => p.name);
-  if (!needed.every((name) => usedLabels.some((label) => label.name === name))) return null;
-  const stack = usedLabels.reduce((sum, label) => sum + Math.abs(partial(model.id, labelValues, label.name)) * (label.tolerance.relative * Math.abs(label.value) + label.tolerance.absolute), 0);
+  const labelVector = Float64Array.from(fitted.values);
+  for (const label of labels) labelVector[model.parameters.findIndex((p) => p.name === label.name)] = label.value;
+  const labelMoment = farFieldMoment(model, labelVector);
+  if (labelMoment === null) return null;
+  const sensitivity = model.parameters.map((_, j) => partial(model, labelVector, j));
+  // the label must give every parameter the moment depends on
+  if (!model.parameters.every((p, j) => sensitivity[j] === 0 || labels.some((l) => l.name === p.name))) return null;
+  const usedLabels = labels.filter((label) => sensitivity[model.parameters.findIndex((p) => p.name === label.name)] !== 0);
+  const stack = usedLabels.reduce(
+    (sum, label) => sum + Math.abs(sensitivity[model.parameters.findIndex((p) => p.name === label.name)]!) * (label.tolerance.relative * Math.abs(label.value) + label.tolerance.absolute),
+    0,
+  );
   const tolerance = { relative: 0, absolute: stack };
   const fromDipole = dipole?.fit.params['moment'];
   let value: number;
@@ -39,11 +42,10 @@ export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[
     ci95 = [fromDipole.ci95[0] * relation.factor, fromDipole.ci95[1] * relation.factor];
     source = 'the dipole fit';
   } else {
-    const gradient = model.parameters.map((p) => partial(model.id, fittedValues, p.name) * relation.factor);
-    const variance = deltaVariance(fitted, gradient);
-    value = fittedMoment * relation.factor;
-    const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
-    ci95 = half === null ? null : [value - half, value + half];
+    const estimate = momentEstimate(model, fitted.values, fitted.freeIndex, fitted.covariance, fitted.coverageFactor ?? Number.NaN);
+    if (estimate === null) return null;
+    value = estimate.value * relation.factor;
+    ci95 = estimate.ci95 && Number.isFinite(estimate.ci95[0]) ? [estimate.ci95[0] * relation.factor, estimate.ci95[1] * relation.factor] : null;
     source = `the ${model.id} fit`;
   }
   const side = value < labelMoment ? 'low' : 'high';
@@ -63,12 +65,14 @@ export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[
   return { check, role: 'moment', side, blocked: null };
 }
 
-/** ∂m/∂p by a central difference with relative step 1e-6. */
-function partial(model: Parameters<typeof farFieldMoment>[0], values: Readonly<Record<string, number>>, name: string): number {
-  const x = values[name];
-  if (x === undefined) return 0;
+/** ∂m/∂θⱼ by a central difference with relative step 1e-6 (0 for parameters m does not depend on). */
+function partial(model: FieldModel, values: Float64Array, j: number): number {
+  const x = values[j]!;
   const h = 1e-6 * Math.max(Math.abs(x), 1e-12);
-  const up = farFieldMoment(model, { ...values, [name]: x + h });
-  const down = farFieldMoment(model, { ...values, [name]: x - h });
-  return up === null || down === null ? 0 : (up - down) / (2 * h);
+  const up = Float64Array.from(values);
+  const down = Float64Array.from(values);
+  up[j] = x + h;
+  down[j] = x - h;
+  const difference = (farFieldMoment(model, up) ?? Number.NaN) - (farFieldMoment(model, down) ?? Number.NaN);
+  return Number.isFinite(difference) ? difference / (2 * h) : 0;
 }

@@ -1,7 +1,8 @@
 import type { ModelId } from '../../models/field-model';
 import type { SpecCheck } from '../../report/report';
 import { decideConformity } from '../decide-conformity';
-import { describeTolerance, describeValue, kindOfUnit, parameterWords } from '../describe-value';
+import { parameterQuantityKind } from '../../models';
+import { describeTolerance, describeValue, parameterWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
 import { parameterRole, type ParameterRole } from '../parameter-roles';
 import { decidingMeasurement } from './deciding-measurement';
@@ -32,7 +33,7 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   const spec = fitted.point.model.parameters[index]!;
   const estimate = fitted.fit.params[label.name]!;
   const role = parameterRole(label.name);
-  const kind = kindOfUnit(spec.unit);
+  const kind = parameterQuantityKind(spec.unit);
   const words = parameterWords(label.name);
   const scaled = role === 'amplitude' || role === 'background';
   const factor = scaled ? relation.factor : 1;

@@ -1,4 +1,5 @@
-import { describeValue, kindOfUnit, parameterWords } from '../describe-value';
+import { parameterQuantityKind, type ParameterUnit } from '../../models';
+import { describeValue, parameterWords } from '../describe-value';
 import type { CheckOutcome } from './check-parameter';
 
 /** Findings (CONTRACT.md verdict.findings) with one sentence of evidence each. */
@@ -73,9 +74,9 @@ function words(outcome: CheckOutcome): string {
 }
 
 function measured(outcome: CheckOutcome): string {
-  return describeValue(outcome.check.measured.value, kindOfUnit(outcome.check.measured.unit as 'A'), outcome.check.measured.ci95);
+  return describeValue(outcome.check.measured.value, parameterQuantityKind(outcome.check.measured.unit as ParameterUnit), outcome.check.measured.ci95);
 }
 
 function against(outcome: CheckOutcome): string {
-  return `${words(outcome)} ${measured(outcome)} vs ${describeValue(outcome.check.expected.value, kindOfUnit(outcome.check.expected.unit as 'A'))} on the label`;
+  return `${words(outcome)} ${measured(outcome)} vs ${describeValue(outcome.check.expected.value, parameterQuantityKind(outcome.check.expected.unit as ParameterUnit))} on the label`;
 }

@@ -122,10 +122,11 @@ describe('verifySpec()', () => {
     const fit = loopFit(96, 30, 0.045, 0.007, { determined: false });
     const verdict = verifySpec(label(), [fit], 'dc');
     const moment = verdict.checks.find((c) => c.what === 'moment')!;
-    expectClose(moment.expected.value, 120 * Math.PI * 0.045 ** 2, { rel: 1e-12 });
-    expectClose(moment.measured.value, 96 * Math.PI * 0.045 ** 2, { rel: 1e-12 });
+    // the catalog's moment is a Richardson limit of the field (fit/far-field-moment.ts), good to ~1e-6
+    expectClose(moment.expected.value, 120 * Math.PI * 0.045 ** 2, { rel: 1e-5 });
+    expectClose(moment.measured.value, 96 * Math.PI * 0.045 ** 2, { rel: 1e-5 });
     // stacked tolerance |∂m/∂NI|·12 A + |∂m/∂R|·2.25 mm = m·(0.1 + 2·0.05)
-    expectClose(moment.tolerance.absolute, 0.2 * 120 * Math.PI * 0.045 ** 2, { rel: 1e-6 });
+    expectClose(moment.tolerance.absolute, 0.2 * 120 * Math.PI * 0.045 ** 2, { rel: 1e-5 });
   });
 
   it('verifySpec() is inconclusive with "not-fitted" when the spec\'s model did not converge', () => {
