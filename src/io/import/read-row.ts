@@ -112,7 +112,7 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     field = value;
   }
   let standardUncertainty: number | undefined;
-  if (layout.uncertainty && (cells[layout.uncertainty.index] ?? '').trim() !== '') {
+  if (layout.uncertainty && hasContent(cells[layout.uncertainty.index] ?? '')) {
     const value = readColumn(cells, layout.uncertainty, decimalComma);
     if (typeof value !== 'number') return value;
     if (!(value > 0)) {
@@ -124,6 +124,11 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
   // One object literal per shape, so readings are built without later property additions.
   if (components) return standardUncertainty === undefined ? { line, distance, radial, field, components } : { line, distance, radial, field, components, standardUncertainty };
   return standardUncertainty === undefined ? { line, distance, radial, field } : { line, distance, radial, field, standardUncertainty };
+}
+
+/** True unless the cell is empty or white space (an empty uncertainty cell means "not given"). */
+function hasContent(cell: string): boolean {
+  return cell.length > 0 && (cell.charCodeAt(0) > 32 || cell.trim() !== '');
 }
 
 function readComponent(cells: readonly string[], column: NumericColumn, decimalComma: boolean): number | Problem {
