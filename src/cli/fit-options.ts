@@ -1,0 +1,152 @@
+import type { Command } from 'commander';
+import { RingfallError } from '../core/errors';
+import { defaultModels, type FitSurveyOptions } from '../core/fit/fit-survey-options';
+import type { RobustLoss } from '../core/fit/robust-fit';
+import { getModel, parseParameterAssignment } from '../core/models';
+import type { FieldModel, ModelId } from '../core/models';
+import { parseQuantity, parseRelativePlusAbsolute } from '../core/units';
+
+/** Options of `ringfall fit` (and `batch`), typed and in SI, ready for core. */
+export interface FitCommandOptions {
+  /** For fitSurvey: models, fixed parameters, uncertainties, robust loss, seed. */
+  readonly fit: FitSurveyOptions & { readonly models: readonly ModelId[] };
+  /** For importSurveys: units of headers that state none (`--field-unit`, `--distance-unit`). */
+  readonly import: { readonly fieldUnit?: string; readonly distanceUnit?: string };
+  readonly json: boolean;
+  /** `--spec FILE`, or null. */
+  readonly spec: string | null;
+  /** `--threshold QTY` levels in T, in the order given. */
+  readonly thresholds: readonly number[];
+  /** `--html FILE`, `--csv FILE`, or null. */
+  readonly html: string | null;
+  readonly csv: string | null;
+}
+
+/** Commander's parsed flags for the options {@link addFitOptions} declares. */
+export interface FitFlags {
+  readonly model?: string[];
+  readonly fix?: string[];
+  readonly uncertainty?: string;
+  readonly positionUncertainty?: string;
+  readonly distanceUnit?: string;
+  readonly fieldUnit?: string;
+  readonly json?: boolean;
+  readonly robust?: string;
+  readonly seed?: string;
+  readonly spec?: string;
+  readonly threshold?: string[];
+  readonly html?: string;
+  readonly csv?: string;
+}
+
+const collect = (value: string, previous: string[] | undefined): string[] => [...(previous ?? []), value];
+
+/**
+ * Declare the fitting options of CONTRACT.md on a command (`fit`, and later `batch`):
+ * --model, --fix, --uncertainty, --position-uncertainty, --distance-unit, --field-unit,
+ * --json, --robust, --seed, --spec, --threshold, --html, --csv.
+ */
+export function addFitOptions(command: Command): Command {
+  return command
+    .option('--model <ids>', `models to fit, comma-separated (default ${defaultModels.join(',')})`, collect)
+    .option('--fix <name=qty>', 'hold a parameter at a value, e.g. radius=45mm (repeatable)', collect)
+    .option('--uncertainty <rel%+abs>', 'standard uncertainty of one reading, e.g. 1.5%+2uT')
+    .option('--position-uncertainty <qty>', 'standard uncertainty of each distance, e.g. 0.5mm')
+    .option('--distance-unit <unit>', 'unit of distance columns whose header states none (mm, cm, m, in)')
+    .option('--field-unit <unit>', 'unit of field columns whose header states none (mT, uT, G, …)')
+    .option('--json', 'print the JSON report (SI units) instead of text')
+    .option('--robust <loss>', 'robust loss that flags outliers: huber or soft-l1')
+    .option('--seed <n>', 'seed of the multi-start (same seed, same report)', '1')
+    .option('--spec <file>', 'check against a spec file')
+    .option('--threshold <qty>', 'report where the field falls below this level, e.g. 0.5mT (repeatable)', collect)
+    .option('--html <file>', 'also write a self-contained HTML report')
+    .option('--csv <file>', 'also write the fitted parameters as CSV');
+}
+
+/**
+ * Turn commander's flags into typed options in SI, checking everything a user can get
+ * wrong before any file is read.
+ *
+ * @throws RingfallError `MODEL_UNKNOWN`; `FIT_UNKNOWN_PARAMETER` (a --fix name no chosen
+ *   model has, naming the valid ones); `PARAMETER_SYNTAX`, `PARAMETER_VALUE` and the
+ *   `QUANTITY_*` codes for a bad --fix; `OPTION_TWICE` (a parameter fixed twice);
+ *   `TOLERANCE_SYNTAX` (--uncertainty); `OPTION_VALUE` (--position-uncertainty < 0,
+ *   --threshold ≤ 0, --robust or --seed not understood).
+ * @example readFitFlags({ fix: ['radius=45mm'], uncertainty: '1.5%+2uT' }).fit.fixed // { radius: 0.045 }
+ */
+export function readFitFlags(flags: FitFlags): FitCommandOptions {
+  const ids = [...new Set((flags.model ?? []).flatMap((list) => list.split(',')).map((id) => id.trim()).filter((id) => id !== ''))];
+  const models = ids.length === 0 ? defaultModels.map((id) => getModel(id)) : ids.map((id) => getModel(id, '--model'));
+  const fixed = readFixed(flags.fix ?? [], models);
+  const fit: FitSurveyOptions & { models: readonly ModelId[] } = {
+    models: models.map((m) => m.id),
+    fixed,
+    instrumentUncertainty: flags.uncertainty === undefined ? null : parseRelativePlusAbsolute(flags.uncertainty, 'field', '--uncertainty'),
+    positionUncertainty: flags.positionUncertainty === undefined ? null : readPositionUncertainty(flags.positionUncertainty),
+    robust: readRobust(flags.robust),
+    seed: readSeed(flags.seed ?? '1'),
+  };
+  const thresholds = (flags.threshold ?? []).map((text) => {
+    const level = parseQuantity(text, 'field', '--threshold').value;
+    if (!(level > 0)) throw optionValue('--threshold', text, 'a field level above 0, e.g. 0.5mT');
+    return level;
+  });
+  return {
+    fit,
+    import: {
+      ...(flags.fieldUnit === undefined ? {} : { fieldUnit: flags.fieldUnit }),
+      ...(flags.distanceUnit === undefined ? {} : { distanceUnit: flags.distanceUnit }),
+    },
+    json: flags.json === true,
+    spec: flags.spec ?? null,
+    thresholds,
+    html: flags.html ?? null,
+    csv: flags.csv ?? null,
+  };
+}
+
+/** --fix NAME=QTY... → { name: SI value }, each parsed in the unit kind of the first chosen model that has the name. */
+function readFixed(texts: readonly string[], models: readonly FieldModel[]): Record<string, number> {
+  const fixed: Record<string, number> = {};
+  for (const text of texts) {
+    const name = /^\s*([A-Za-z]+)\s*=/.exec(text)?.[1];
+    const owner = name === undefined ? models[0]! : models.find((m) => m.parameters.some((p) => p.name === name));
+    if (owner === undefined) {
+      const valid = models.map((m) => `${m.id}: ${m.parameters.map((p) => p.name).join(', ')}`).join('; ');
+      throw new RingfallError(
+        'FIT_UNKNOWN_PARAMETER',
+        `--fix: "${name}" is not a parameter of ${models.map((m) => m.id).join(', ')}. Parameters — ${valid}.`,
+        { value: text, where: '--fix' },
+      );
+    }
+    const assignment = parseParameterAssignment(owner, text, '--fix');
+    if (Object.prototype.hasOwnProperty.call(fixed, assignment.name)) {
+      throw new RingfallError('OPTION_TWICE', `--fix: ${assignment.name} is fixed twice. Give each parameter once.`, { value: text, where: '--fix' });
+    }
+    fixed[assignment.name] = assignment.value;
+  }
+  return fixed;
+}
+
+function readPositionUncertainty(text: string): number {
+  const value = parseQuantity(text, 'length', '--position-uncertainty').value;
+  if (!(value >= 0)) throw optionValue('--position-uncertainty', text, 'a length of 0 or more, e.g. 0.5mm');
+  return value;
+}
+
+function readRobust(text: string | undefined): RobustLoss | null {
+  if (text === undefined) return null;
+  const loss = text.trim().toLowerCase();
+  if (loss === 'huber' || loss === 'soft-l1') return loss;
+  throw optionValue('--robust', text, 'huber or soft-l1');
+}
+
+function readSeed(text: string): number {
+  const seed = Number(text);
+  if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) throw optionValue('--seed', text, 'a whole number from 0 to 4294967295');
+  return seed;
+}
+
+function optionValue(option: string, text: string, expected: string): RingfallError {
+  return new RingfallError('OPTION_VALUE', `${option}: "${text}" is not usable. Give ${expected}.`, { value: text, where: option });
+}
