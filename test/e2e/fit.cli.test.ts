@@ -1,0 +1,104 @@
+import { spawnSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const root = join(import.meta.dirname, '..', '..');
+const healthy = 'sample-data/qa-107-2025-03-11-healthy.csv';
+
+function ringfall(...args: string[]): { status: number | null; stdout: string; stderr: string } {
+  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000 });
+  return { status: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+const truth = (JSON.parse(readFileSync(join(root, 'sample-data', 'TRUTH.json'), 'utf8')) as {
+  surveys: { file: string; params: Record<string, number> }[];
+}).surveys.find((s) => s.file === 'qa-107-2025-03-11-healthy.csv')!;
+
+describe('ringfall fit (CONTRACT.md)', () => {
+  it('ringfall fit FILE --json prints the CONTRACT.md report, exit 0, and the loop intervals contain the TRUTH.json ampere-turns and radius', () => {
+    const run = ringfall('fit', healthy, '--json');
+    expect(run.stderr).toBe('');
+    expect(run.status).toBe(0);
+    const report = JSON.parse(run.stdout);
+    expect(report.schema).toBe('ringfall-report/1');
+    expect(report.surveys).toHaveLength(1);
+    const survey = report.surveys[0];
+    expect(survey).toMatchObject({ source: healthy, coil: 'QA-107', date: '2025-03-11', readingType: 'dc', best: 'loop', verdict: null, thresholds: [] });
+    expect(survey.readings).toEqual({ total: 28, used: 28, rejected: [] });
+    expect(Array.isArray(survey.warnings)).toBe(true);
+    // CONTRACT.md default models, in that order
+    expect(survey.fits.map((f: { model: string }) => f.model)).toEqual(['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube']);
+    for (const fit of survey.fits) {
+      expect(Object.keys(fit)).toEqual(expect.arrayContaining(['model', 'converged', 'stopReason', 'params', 'stats', 'warnings']));
+      expect(Object.keys(fit.stats)).toEqual(expect.arrayContaining(['n', 'k', 'rss', 'rmse', 'reducedChiSquare', 'aicc', 'bic', 'akaikeWeight']));
+      for (const estimate of Object.values(fit.params) as Record<string, unknown>[]) {
+        expect(Object.keys(estimate)).toEqual(expect.arrayContaining(['value', 'unit', 'stderr', 'ci95', 'fixed']));
+      }
+    }
+    const loop = survey.fits[0];
+    expect(loop.params.ampereTurns.unit).toBe('A');
+    expect(loop.params.radius.unit).toBe('m');
+    for (const name of ['ampereTurns', 'radius']) {
+      const [low, high] = loop.params[name].ci95;
+      expect(low, name).toBeLessThanOrEqual(truth.params[name]!);
+      expect(high, name).toBeGreaterThanOrEqual(truth.params[name]!);
+    }
+  });
+
+  it('ringfall fit FILE prints a text report with the parameter table in A and mm and the model comparison, exit 0', () => {
+    const run = ringfall('fit', healthy, '--uncertainty', '1%+0.5uT', '--position-uncertainty', '0.2mm');
+    expect(run.status).toBe(0);
+    expect(run.stdout).toContain('Coil as measured — loop');
+    expect(run.stdout).toMatch(/ampereTurns\s+\d+\.\d A\s+\d+\.\d to \d+\.\d A/);
+    expect(run.stdout).toMatch(/radius\s+\d+\.\d+ mm/);
+    expect(run.stdout).toContain('Models side by side');
+  });
+
+  it('ringfall fit --fix radius=45mm reports the radius fixed at 0.045 m with no interval', () => {
+    const run = ringfall('fit', healthy, '--model', 'loop', '--fix', 'radius=45mm', '--json');
+    expect(run.status).toBe(0);
+    const loop = JSON.parse(run.stdout).surveys[0].fits[0];
+    expect(loop.params.radius).toMatchObject({ value: 0.045, fixed: true, stderr: null, ci95: null });
+    expect(loop.stats.k).toBe(3);
+  });
+
+  it('ringfall fit with a missing file exits 2 with one line on stderr naming it, and no stack trace', () => {
+    const run = ringfall('fit', 'sample-data/no-such-survey.csv');
+    expect(run.status).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toContain('no-such-survey.csv');
+    expect(run.stderr).not.toMatch(/\bat .*\.ts:\d+/);
+    expect(run.stdout).toBe('');
+  });
+
+  it('ringfall fit --model helix exits 2 naming the catalog ids', () => {
+    const run = ringfall('fit', healthy, '--model', 'loop,helix');
+    expect(run.status).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toContain('"helix" is not a model');
+    expect(run.stderr).toContain('loop, thick-coil');
+  });
+
+  it('ringfall fit --fix radius=45A (a current for a length) exits 2 saying a length is needed', () => {
+    const run = ringfall('fit', healthy, '--fix', 'radius=45A');
+    expect(run.status).toBe(2);
+    expect(run.stderr.trim().split('\n')).toHaveLength(1);
+    expect(run.stderr).toMatch(/--fix radius: "45A" is a current but a length is needed/);
+  });
+
+  it('ringfall fit --fix radii=45mm exits 2 naming the parameters of the chosen models', () => {
+    const run = ringfall('fit', healthy, '--model', 'loop', '--fix', 'radii=45mm');
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain('"radii" is not a parameter of loop');
+    expect(run.stderr).toContain('ampereTurns, radius, probeOffset, background');
+  });
+
+  it('ringfall fit with one good and one unreadable file reports the good one and exits 2 naming the other', () => {
+    const run = ringfall('fit', healthy, 'sample-data/flawed/no-field-unit.csv', '--model', 'loop', '--json');
+    expect(run.status).toBe(2);
+    expect(run.stderr).toContain('no-field-unit.csv');
+    expect(run.stderr).toContain('--field-unit');
+    expect(JSON.parse(run.stdout).surveys.map((s: { source: string }) => s.source)).toEqual([healthy]);
+  });
+});
