@@ -92,7 +92,20 @@ function parameterTable(fit: FitResult): string[] {
     const { value, interval } = formatEstimate(estimate);
     return [estimate.name, value, interval];
   });
+  // The far-field moment is what every physical fit determines, even when its parts are not (DOMAIN.md §7.6).
+  if (fit.moment && !('moment' in fit.params)) {
+    const { value, interval } = formatEstimate({
+      name: 'moment', unit: 'A·m²', value: fit.moment.value, stderr: fit.moment.stderr, ci95: fit.moment.ci95, fixed: false, determined: true,
+    });
+    rows.push(['far-field moment', value, interval]);
+  }
   return table(['parameter', 'value', '95% interval'], rows);
+}
+
+/** An Akaike weight to 3 significant digits; below 0.001 as "<0.001" (no false precision). */
+function formatWeight(weight: number | null): string {
+  if (weight === null) return '—';
+  return weight > 0 && weight < 0.001 ? '<0.001' : formatNumber(weight, 3);
 }
 
 function comparisonTable(fits: readonly FitResult[], best: string | null): string[] {
@@ -104,7 +117,7 @@ function comparisonTable(fits: readonly FitResult[], best: string | null): strin
     formatQuantity(fit.stats.rmse, 'field', { significant: 3 }),
     fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3),
     fit.converged && Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'did not converge',
-    fit.stats.akaikeWeight === null ? '—' : formatNumber(fit.stats.akaikeWeight, 3),
+    formatWeight(fit.stats.akaikeWeight),
   ]);
   return table(['model', 'k', 'RMS residual', 'red. χ²', 'ΔAICc', 'weight'], rows);
 }

@@ -77,6 +77,9 @@ function fitToJson(fit: FitResult): Record<string, unknown> {
     uncertaintyScale: fit.uncertaintyScale,
     freeParameters: fit.freeParameters,
     correlation: fit.correlation ? fit.correlation.map(finite) : null,
+    ...(fit.moment
+      ? { moment: { value: finite(fit.moment.value), unit: 'A·m²', stderr: finite(fit.moment.stderr), ci95: fit.moment.ci95 ? [finite(fit.moment.ci95[0]), finite(fit.moment.ci95[1])] : null } }
+      : {}),
     warnings: fit.warnings,
   };
 }
