@@ -23,14 +23,16 @@ export function parameterWords(name: string): string {
 
 /**
  * "96.0 A (92.0–100)" or "44.8 mm (43.9–45.7)": an SI value in a display unit chosen from
- * the value, its interval in the same unit, three significant digits.
+ * the value, its interval in the same unit ("−2.2 to −0.8" when a bound is negative),
+ * three significant digits.
  */
 export function describeValue(value: number, kind: QuantityKind | null, interval?: readonly [number, number] | null, significant = 3): string {
   const reference = value === 0 && interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : value;
   const unit = !kind ? { symbol: '', factor: 1 } : reference === 0 ? zeroUnits[kind] : displayUnit(reference, kind);
   const show = (x: number) => formatNumber(x / unit.factor, significant);
   const symbol = unit.symbol ? ` ${unit.symbol}` : '';
-  return `${show(value)}${symbol}` + (interval ? ` (${show(interval[0])}–${show(interval[1])})` : '');
+  const dash = interval && (interval[0] < 0 || interval[1] < 0) ? ' to ' : '–';
+  return `${show(value)}${symbol}` + (interval ? ` (${show(interval[0])}${dash}${show(interval[1])})` : '');
 }
 
 /** "120 A ± 10 %" / "45 mm ± 2 mm" / "1.7 mT ± (5 % + 20 uT)". */

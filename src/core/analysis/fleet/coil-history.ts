@@ -21,10 +21,13 @@ const msPerYear = 365.25 * 86_400_000;
  * trended model (the spec's, else the most common best physical model) against the spec's
  * label or the first survey, and a weighted straight-line trend of ampere-turns against
  * time in years (weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
- * Flags: **degrading** when the slope's whole interval is below zero AND the latest
- * survey lies beyond tolerance below the reference (both its interval and, against a
- * first survey, the difference's interval); **geometry-changed** (geometryChanges);
- * **failed-spec** when the latest survey failed its spec.
+ * Flags: **degrading** when the latest dated survey's decline from the reference is
+ * significant and beyond tolerance — the upper end of its 95 % interval (against a first
+ * survey: of the difference, t with the smaller degrees of freedom) lies below the
+ * reference less the tolerance, the same guarded rule as a failed spec check; a sudden drop
+ * counts as well as a steady one, and the trend is reported beside it;
+ * **geometry-changed** (geometryChanges); **failed-spec** when the latest survey failed
+ * its spec.
  */
 export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs: readonly Spec[], defaultTolerance: RelativePlusAbsolute): FleetCoil {
   const ordered = [...surveys].sort((a, b) => (a.date === null ? 1 : 0) - (b.date === null ? 1 : 0) || (a.date ?? '').localeCompare(b.date ?? ''));
@@ -50,25 +53,33 @@ export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs
   let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null };
   const flags: string[] = [];
   const times = dated.map((d) => (Date.parse(d.survey.date!) - Date.parse(dated[0]!.survey.date!)) / msPerYear);
+  let trendSentence: string | null = null;
   if (dated.length >= 2 && new Set(times).size >= 2) {
     const line = weightedLine(times, dated.map((d) => d.estimate.value), dated.map((d) => d.estimate.stderr));
     const q = line.degreesOfFreedom > 0 ? studentTQuantile(0.975, line.degreesOfFreedom) : normal975;
     const ci95: [number, number] = [line.slope - q * line.slopeStandardError, line.slope + q * line.slopeStandardError];
     trend = { ampereTurnsPerYear: { value: line.slope, unit: 'A/yr', ci95 } };
-    const latest = dated[dated.length - 1]!;
-    const limit = reference ? reference.ampereTurns - (tolerance.relative * Math.abs(reference.ampereTurns) + tolerance.absolute) : Number.NaN;
-    const latestHigh = reference?.kind === 'first-survey' ? upperOfDifference(latest, dated[0]!) + reference.ampereTurns : latest.estimate.ci95[1];
-    const rate = `ampere-turns change ${describeValue(line.slope, 'current', ci95)} per year over ${dated.length} dated surveys`;
-    if (ci95[1] < 0 && latestHigh < limit) {
-      flags.push('degrading');
-      explanations.push(`degrading: ${rate}; the latest (${latest.survey.date}) ${describeValue(latest.estimate.value, 'current', latest.estimate.ci95)} is below the ${reference!.kind === 'spec' ? 'label' : 'first survey'}'s ${describeValue(reference!.ampereTurns, 'current')} by more than the tolerance (limit ${describeValue(limit, 'current')}).`);
-    } else if (ci95[1] < 0) {
-      explanations.push(`${rate}: a significant decline, but the latest survey is not yet beyond tolerance (limit ${describeValue(limit, 'current')}).`);
-    } else {
-      explanations.push(`${rate}: no significant decline.`);
-    }
+    const verdict = ci95[1] < 0 ? 'a significant decline' : ci95[0] > 0 ? 'a significant rise' : 'no significant trend';
+    trendSentence = `ampere-turns change ${describeValue(line.slope, 'current', ci95)} per year over ${dated.length} dated surveys: ${verdict}`;
   } else if (model !== null) {
     explanations.push('Fewer than two dated surveys with determined ampere-turns: no trend.');
+  }
+  // The decline that matters: the latest survey against the reference, significant and beyond tolerance.
+  const latest = [...dated].reverse()[0] ?? null;
+  const first = dated[0] ?? null;
+  if (reference && latest && (reference.kind === 'spec' || (first && first !== latest))) {
+    const limit = reference.ampereTurns - (tolerance.relative * Math.abs(reference.ampereTurns) + tolerance.absolute);
+    const latestHigh = reference.kind === 'first-survey' ? upperOfDifference(latest, first!) + reference.ampereTurns : latest.estimate.ci95[1];
+    const against = `${reference.kind === 'spec' ? 'the label\'s' : 'the first survey\'s'} ${describeValue(reference.ampereTurns, 'current')}`;
+    const latestText = `the latest (${latest.survey.date}) ${describeValue(latest.estimate.value, 'current', latest.estimate.ci95)}`;
+    if (latestHigh < limit) {
+      flags.push('degrading');
+      explanations.push(`degrading: ${latestText} lies, with its whole interval, below ${against} less the tolerance (${describeValue(limit, 'current')})${trendSentence ? `; ${trendSentence}` : ''}.`);
+    } else if (trendSentence) {
+      explanations.push(`${trendSentence}; ${latestText} is not below ${against} by more than the tolerance with 95 % confidence (limit ${describeValue(limit, 'current')}).`);
+    }
+  } else if (trendSentence) {
+    explanations.push(`${trendSentence}.`);
   }
   const changes = geometryChanges(ordered, fits, spec, defaultTolerance);
   if (changes.length > 0) {

@@ -58,13 +58,13 @@ describe('fleetHistory()', () => {
     expectClose(trend.ci95[1] - trend.value, 4.302653 * se, { rel: 1e-6 });
   });
 
-  it('fleetHistory() flags "degrading" when the decline is significant and the latest survey is beyond the label tolerance', () => {
+  it('fleetHistory() flags "degrading" when the latest survey\'s decline is significant and beyond the label tolerance', () => {
     const coil = fleetHistory(fl3, { specs: [labelFL3] }).coils[0]!;
     // latest 108 ± 1.96 A lies wholly below 120 A − 5 % = 114 A, slope ≈ −4 A/yr significant
     expect(coil.flags).toContain('degrading');
     expect(coil.reference).toEqual({ kind: 'spec', ampereTurns: 120, unit: 'A' });
     expectClose(coil.history[3]!.ratioToReference!.value, 108 / 120, { rel: 1e-12 });
-    expect(coil.explanations.join(' ')).toMatch(/degrading: ampere-turns change −?-?4\.\d+ A/);
+    expect(coil.explanations.join(' ')).toMatch(/^degrading: the latest \(2025-03-01\) 108 A \(106–110\) lies, with its whole interval, below the label's 120 A less the tolerance \(114 A\); ampere-turns change -4\.\d+ A .* a significant decline\.$/);
   });
 
   it('fleetHistory() does not flag a significant decline that is still within tolerance', () => {
@@ -74,7 +74,7 @@ describe('fleetHistory()', () => {
     const coil = fleetHistory(gentle, { specs: [{ ...labelFL3, coils: ['FL-4'], params: [{ ...labelFL3.params[0]!, tolerance: { relative: 0.1, absolute: 0 } }] }] }).coils[0]!;
     expect(coil.trend.ampereTurnsPerYear!.ci95[1]).toBeLessThan(0);
     expect(coil.flags).not.toContain('degrading');
-    expect(coil.explanations.join(' ')).toContain('not yet beyond tolerance');
+    expect(coil.explanations.join(' ')).toContain('a significant decline; the latest (2025-01-01) 113 A (111–114) is not below');
   });
 
   it('fleetHistory() flags "geometry-changed" when the fitted radius jumps between surveys (swapped unit)', () => {
@@ -103,6 +103,14 @@ describe('fleetHistory()', () => {
     expect(fleet.coils).toHaveLength(0);
     expect(fleet.ungrouped![0]!.reason).toContain('# coil: ID');
     expect(fleet.unreadable).toEqual([{ source: 'broken.csv', reason: 'not a CSV' }]);
+  });
+
+  it('fleetHistory() flags a sudden drop against the first survey even when the trend line is not significant', () => {
+    // truth: 100 A for three quarterly surveys, then a shorted section: 80 A (no spec; default 5 %)
+    const drop = [['2025-01-01', 100], ['2025-04-01', 100.4], ['2025-07-01', 99.7], ['2025-10-01', 80]] as const;
+    const coil = fleetHistory(drop.map(([date, turns]) => loopSurvey('FL-5', date, turns, 0.045))).coils[0]!;
+    expect(coil.flags).toContain('degrading');
+    expect(coil.explanations[0]).toContain("the first survey's 100 A");
   });
 
   it('fleetHistory() gives no trend for a single dated survey and says why', () => {

@@ -13,9 +13,9 @@ import type { SpecParameter } from './spec';
  * what it does determine: the far-field moment m (fit/far-field-moment) against the moment the
  * label implies. The label's tolerance carries over by linear worst-case stacking,
  * T_m = Σ |∂m/∂pⱼ|·Tⱼ (common practice for tolerance stack-up). The measured moment is
- * the dipole fit's when there is one (the model that matches far-field data, DOMAIN.md
- * §1.11: the coil model's linearisation is unreliable exactly when this check runs), else
- * the coil model's by the delta method (JCGM 100:2008 §5.1.2). Null when the label lacks
+ * the dipole fit's when the dipole describes the readings as well as the coil model
+ * (ΔAICc ≤ 2: far-field data, DOMAIN.md §1.11, where the coil model's linearisation is
+ * unreliable), else the coil model's by the delta method (JCGM 100:2008 §5.1.2). Null when the label lacks
  * a parameter the moment needs.
  */
 export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[], relation: ReadingRelation, dipole: FittedModel | null): CheckOutcome | null {
@@ -37,7 +37,9 @@ export function checkMoment(fitted: FittedModel, labels: readonly SpecParameter[
   let value: number;
   let ci95: readonly [number, number] | null;
   let source: string;
-  if (fromDipole && fromDipole.determined && fromDipole.ci95) {
+  // The dipole speaks for the far field only when it fits as well as the coil model (ΔAICc ≤ 2, DOMAIN.md §7.2).
+  const dipoleFits = dipole !== null && dipole.fit.stats.aicc <= fitted.fit.stats.aicc + 2;
+  if (dipoleFits && fromDipole && fromDipole.determined && fromDipole.ci95) {
     value = fromDipole.value * relation.factor;
     ci95 = [fromDipole.ci95[0] * relation.factor, fromDipole.ci95[1] * relation.factor];
     source = 'the dipole fit';

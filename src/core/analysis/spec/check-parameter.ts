@@ -60,7 +60,7 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   if (!estimate.determined || ci95 === null) {
     return inconclusive(
       `these readings do not determine ${words} (fit ${describeValue(value, kind)}); the label says ${labelText}.`,
-      'Add readings closer than about one coil radius: far-field readings fix only the moment N·I·area (DOMAIN.md §7.6).',
+      'Add readings where the curve changes shape — closer than about the coil\'s size; far-field readings fix only the moment N·I·area — or fix the parameters the label states (--fix NAME=…) so that the rest are determined (DOMAIN.md §7.6).',
       'undetermined',
     );
   }

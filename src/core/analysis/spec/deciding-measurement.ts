@@ -68,10 +68,13 @@ export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget)
   if (reached > target.neededHalfWidth) {
     return `Even ${chosen.length} more readings as precise as these would only shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} needed): reduce the reading uncertainty — a positioning jig near the steep part of the curve, a better meter — rather than add points.`;
   }
-  const distances = chosen.map((c) => candidates[c]!.distance);
-  const low = Math.min(...distances);
-  const high = Math.max(...distances);
-  const where = high - low <= 0.1 * high ? `near ${describeValue((low + high) / 2, 'length', null, 2)}` : `between ${describeValue(low, 'length', null, 2)} and ${describeValue(high, 'length', null, 2)}`;
+  // Where most of them go: the middle half of the chosen distances.
+  const distances = chosen.map((c) => candidates[c]!.distance).sort((a, b) => a - b);
+  const low = distances[Math.floor((distances.length - 1) / 4)]!;
+  const high = distances[Math.ceil((3 * (distances.length - 1)) / 4)]!;
+  const where = high - low <= 0.1 * high
+    ? `near ${describeValue((low + high) / 2, 'length', null, 2)}`
+    : `${distances.length >= 4 ? 'mostly ' : ''}between ${describeValue(low, 'length', null, 2)} and ${describeValue(high, 'length', null, 2)}`;
   return `About ${chosen.length} more on-axis reading${chosen.length === 1 ? '' : 's'} ${where}, as precise as these, would shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} decides it).`;
 }
 
