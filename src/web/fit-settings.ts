@@ -3,7 +3,7 @@ import { parseThresholdLevel, type ThresholdLevel } from '../core/analysis/thres
 import type { Spec } from '../core/analysis/spec/spec';
 import { modelIds, parameterQuantityKind, type ModelId, type ParameterUnit } from '../core/models';
 import { parseQuantity, parseRelativePlusAbsolute, type RelativePlusAbsolute } from '../core/units';
-import { parseSpecs } from '../io/spec';
+import { parseSpecs } from '../io/spec/parse-specs';
 
 /**
  * The page's fit settings as the user typed them (strings, so they survive a trip to

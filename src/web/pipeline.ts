@@ -2,7 +2,7 @@ import { isRingfallError } from '../core/errors';
 import type { Report, SurveyReport } from '../core/report/report';
 import type { RejectedRow, Survey } from '../core/survey/survey';
 import { detectSurveyLayout, importSurveys, type ColumnMapping, type Detection, type ImportCounts } from '../io';
-import { fitStage, parameterUnit } from './fit-stage';
+import { fitStage, fleetStage, parameterUnit } from './fit-stage';
 import { parseFitSettings, type FitSettings, type SettingError } from './fit-settings';
 
 /** One file handed to the pipeline, with the user's hand-made column mapping if any. */
@@ -93,11 +93,37 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
   if (errors.length === 0) {
     surveys.forEach((survey, index) => {
       progress({ stage: 'fit', done: index, total: surveys.length, label: `fitting ${survey.coil ?? survey.source}` });
-      reports.push(fitStage(survey, parsed, settings));
+      try {
+        reports.push(fitStage(survey, parsed));
+      } catch (error) {
+        if (!isRingfallError(error)) throw error;
+        // a setting this survey cannot be fitted with (e.g. a position uncertainty and no reading uncertainty)
+        if (!errors.some((e) => e.message === error.message)) errors.push({ field: settingFieldOf(error.code), message: error.message });
+        reports.push(unfittedReport(survey, error.message));
+      }
     });
   }
   progress({ stage: 'fit', done: surveys.length, total: surveys.length, label: 'done' });
-  return { files: outcomes, report: { surveys: reports }, settingErrors: errors };
+  const unreadable = outcomes.flatMap((o) => (o.error ? [{ source: o.name, reason: o.error.message }] : []));
+  const report: Report = reports.length > 1 ? { surveys: reports, fleet: fleetStage(reports, parsed, unreadable) } : { surveys: reports };
+  return { files: outcomes, report, settingErrors: errors };
+}
+
+/** Which input a fit-time RingfallError belongs to. */
+function settingFieldOf(code: string): string {
+  if (code.startsWith('FIT_POSITION')) return 'positionUncertainty';
+  if (code === 'FIT_UNCERTAINTY_ZERO') return 'uncertainty';
+  if (code === 'FIT_UNKNOWN_PARAMETER' || code === 'FIT_FIXED_OUT_OF_BOUNDS') return 'fixes';
+  if (code === 'MODEL_UNKNOWN') return 'models';
+  return 'models';
+}
+
+function unfittedReport(survey: Survey, reason: string): SurveyReport {
+  return {
+    source: survey.source, coil: survey.coil, date: survey.date, readingType: survey.readingType,
+    readings: { total: survey.totalRows, used: survey.readings.length, rejected: survey.rejected },
+    fits: [], best: null, comparison: [], verdict: null, thresholds: [], warnings: [`Not fitted: ${reason}`], cautions: [], notes: survey.notes,
+  };
 }
 
 /** The detection of a file whose import failed, when its header can still be read. */

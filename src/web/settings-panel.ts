@@ -43,7 +43,7 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
     modelsError);
 
   const fixList = h('div', { class: 'fix-list' });
-  const fixes = h('fieldset', {}, h('legend', {}, 'Parameters held fixed'), fixList);
+  const fixes = h('fieldset', {}, h('legend', {}, 'Parameters held fixed'), fixList, slot('fixes'));
   function renderFixes(): void {
     const current = context.settings();
     const names = context.parameterNames(current.models);

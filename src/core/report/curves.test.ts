@@ -20,19 +20,20 @@ const inverseSquare: FieldModel = {
   initialGuess: () => Float64Array.of(1, 0),
 };
 
-/** Point dipole along the axis, |B| = μ0 m/(4π r³)·√(1 + 3cos²θ) (Jackson, Classical Electrodynamics 3rd ed., eq. 5.56), plus background. */
+/** Point dipole along the axis, |B| = μ0 m/(4π r³)·√(1 + 3cos²θ) (Jackson, Classical Electrodynamics 3rd ed., eq. 5.56), at z = distance + probeOffset, plus background. */
 const dipole: FieldModel = {
   id: 'dipole', label: 'dipole', physical: true,
   parameters: [
     { name: 'moment', unit: 'A·m²', lower: 0, upper: Infinity, description: '' },
+    { name: 'probeOffset', unit: 'm', lower: -Infinity, upper: Infinity, description: '' },
     { name: 'background', unit: 'T', lower: -Infinity, upper: Infinity, description: '' },
   ],
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array) {
     for (let i = 0; i < points.n; i++) {
-      const z = points.distance[i]!;
+      const z = points.distance[i]! + params[1]!;
       const rho = points.radial[i]!;
       const r = Math.hypot(z, rho);
-      out[i] = (mu0 * params[0]! / (4 * Math.PI * r ** 3)) * Math.sqrt(1 + 3 * (z / r) ** 2) + params[1]!;
+      out[i] = (mu0 * params[0]! / (4 * Math.PI * r ** 3)) * Math.sqrt(1 + 3 * (z / r) ** 2) + params[2]!;
     }
   },
   initialGuess: () => Float64Array.of(1, 0),
@@ -89,8 +90,9 @@ describe('report curves', () => {
     expect(confidenceBand(inverseSquare, fit, Float64Array.of(0.1))).toBeNull();
   });
 
-  it('fieldMapGrid() lays |B| out as values[radial·nz + z] and leaves the background out', () => {
-    const fit = fitOf(dipole, { moment: 0.5, background: 7e-3 }, { moment: 0.01 }, 2);
+  it('fieldMapGrid() lays |B| at true field points out as values[radial·nz + z], background left out', () => {
+    // the 4 mm probe offset must not shift the map: the grid is in field-point distances
+    const fit = fitOf(dipole, { moment: 0.5, probeOffset: 0.004, background: 7e-3 }, { moment: 0.01 }, 2);
     const grid = fieldMapGrid(dipole, fit, { minDistance: 0.02, maxDistance: 0.2, maxRadial: 0.1, nz: 7, nRadial: 5 });
     expect(grid.distance.length).toBe(7);
     expect(grid.radial.length).toBe(5);

@@ -1,5 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
-import { deltaVariance, fittedModel } from '../analysis/fitted-model';
+import { deltaVariance, fittedModel, probeOffsetOf } from '../analysis/fitted-model';
 import type { FieldModel, SurveyPoints } from '../models/field-model';
 
 /**
@@ -69,9 +69,14 @@ export function confidenceBand(
   return { lower, upper };
 }
 
+/** The fit's probe offset δ (m, 0 for a model without one): field point = stated distance + δ. */
+export function probeOffset(model: FieldModel, fit: FitResult): number {
+  return probeOffsetOf(fittedModel(fit, model));
+}
+
 /** A grid of |B| over the plane through the coil axis. */
 export interface FieldMapGrid {
-  /** Axial positions (stated distance from the datum), m, ascending; length nz. */
+  /** Axial positions of the field point from the datum (winding plane or near face), m, ascending; length nz. */
   readonly distance: Float64Array;
   /** Radial offsets from the axis, m, ascending from 0; length nRadial. */
   readonly radial: Float64Array;
@@ -80,9 +85,10 @@ export interface FieldMapGrid {
 }
 
 /**
- * |B| of the fitted coil on a regular grid in the plane through its axis, with the
- * fitted background set to zero (the map shows the coil's own field). Distances are
- * measured like the survey's (from the datum, probe offset applied by the model).
+ * |B| of the fitted coil on a regular grid in the plane through its axis, at true field
+ * points: distance is measured from the datum to the point itself, so the model is
+ * evaluated at the stated distance (distance − fitted probe offset). The fitted
+ * background is set to zero: the map shows the coil's own field.
  */
 export function fieldMapGrid(
   model: FieldModel,
@@ -93,15 +99,17 @@ export function fieldMapGrid(
   const minDistance = extent.minDistance ?? 0;
   const distance = Float64Array.from({ length: nz }, (_, i) => minDistance + ((maxDistance - minDistance) * i) / (nz - 1));
   const radial = Float64Array.from({ length: nRadial }, (_, i) => (maxRadial * i) / (nRadial - 1));
+  const fitted = fittedModel(fit, model);
+  const offset = probeOffsetOf(fitted);
   const pointDistance = new Float64Array(nz * nRadial);
   const pointRadial = new Float64Array(nz * nRadial);
   for (let r = 0; r < nRadial; r++) {
     for (let z = 0; z < nz; z++) {
-      pointDistance[r * nz + z] = distance[z]!;
+      pointDistance[r * nz + z] = distance[z]! - offset;
       pointRadial[r * nz + z] = radial[r]!;
     }
   }
-  const parameters = fittedParameters(model, fit);
+  const parameters = Float64Array.from(fitted.values);
   const backgroundIndex = model.parameters.findIndex((spec) => spec.name === 'background');
   if (backgroundIndex >= 0) parameters[backgroundIndex] = 0;
   const values = new Float64Array(nz * nRadial);

@@ -8,7 +8,7 @@ import {
 } from './chart-spec';
 import { niceLogBound } from './nice-ticks';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
-import { rankedFits, readingsFit, type ModelLookup } from './survey-facts';
+import { chartFrame, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
 type Point = { x: number; y: number | null };
 const curveSamples = 160;
@@ -23,14 +23,16 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const reference = readingsFit(survey);
   if (!reference) return null;
   const readings = reference.points;
-  const positive = readings.filter((p) => p.distance > 0 && p.field > 0);
+  const frame = chartFrame(survey, lookup);
+  const at = (p: { distance: number }) => p.distance + frame.offset;
+  const positive = readings.filter((p) => at(p) > 0 && p.field > 0);
   if (positive.length === 0) return null;
   const notes: string[] = [];
 
   const field = fieldUnitFor(Math.max(...positive.map((p) => p.field)));
-  const length = distanceUnitFor(Math.max(...positive.map((p) => p.distance)));
-  let xMin = Math.min(...positive.map((p) => p.distance));
-  let xMax = Math.max(...positive.map((p) => p.distance));
+  const length = distanceUnitFor(Math.max(...positive.map((p) => at(p))));
+  let xMin = Math.min(...positive.map((p) => at(p)));
+  let xMax = Math.max(...positive.map((p) => at(p)));
   for (const t of survey.thresholds) {
     for (const d of [t.distance?.value, t.naive?.distance?.value]) {
       if (d !== undefined && d > 0 && d < xMax * 20) xMax = Math.max(xMax, d);
@@ -41,7 +43,7 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const yMax = niceLogBound(Math.max(...positive.map((p) => p.field)) * 1.3, 1);
   const yMin = niceLogBound(Math.max(Math.min(...positive.map((p) => p.field), ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
   const X = (d: number) => d / length.factor;
-  const Y = (b: number): number | null => (b > 0 ? b / field.factor : null);
+  const Y = (b: number): number | null => (b > 0 && Number.isFinite(b) ? b / field.factor : null);
 
   const datasets: ChartDataset<'scatter', Point[]>[] = [];
   const legend: LegendItem[] = [];
@@ -53,9 +55,9 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const bars: Point[] = [];
   for (const p of drawn) {
     if (p.standardUncertainty === null || !(p.standardUncertainty > 0)) continue;
-    bars.push({ x: X(p.distance), y: Y(Math.max(p.field - p.standardUncertainty, yMin)) }, { x: X(p.distance), y: Y(p.field + p.standardUncertainty) }, { x: X(p.distance), y: null });
+    bars.push({ x: X(at(p)), y: Y(Math.max(p.field - p.standardUncertainty, yMin)) }, { x: X(at(p)), y: Y(p.field + p.standardUncertainty) }, { x: X(at(p)), y: null });
   }
-  datasets.push({ label: 'readings', data: drawn.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.readings, borderColor: palette.readings, pointRadius: 2.5, order: 0 });
+  datasets.push({ label: 'readings', data: drawn.map((p) => ({ x: X(at(p)), y: Y(p.field) })), backgroundColor: palette.readings, borderColor: palette.readings, pointRadius: 2.5, order: 0 });
   legend.push({ label: 'readings on axis', colour: palette.readings, shape: 'point' });
   if (bars.length > 0) {
     datasets.push({ label: '±1σ', data: bars, showLine: true, spanGaps: false, borderColor: withAlpha(palette.readings, 0.55), borderWidth: 1, pointRadius: 0, order: 1 });
@@ -63,22 +65,27 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   }
   if (offAxis.length > 0) {
     const sample = sampleIndices(offAxis.length, drawnReadingsLimit).map((i) => offAxis[i]!);
-    datasets.push({ label: 'off-axis readings', data: sample.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.offAxis, borderColor: palette.offAxis, pointStyle: 'triangle', pointRadius: 3.5, order: 0 });
+    datasets.push({ label: 'off-axis readings', data: sample.map((p) => ({ x: X(at(p)), y: Y(p.field) })), backgroundColor: palette.offAxis, borderColor: palette.offAxis, pointStyle: 'triangle', pointRadius: 3.5, order: 0 });
     legend.push({ label: 'readings off axis (curves are on axis; see residuals)', colour: palette.offAxis, shape: 'triangle' });
   }
   const skipped = readings.length - positive.length;
   if (skipped > 0) notes.push(`${skipped} reading(s) at zero distance or with a field ≤ 0 cannot sit on log axes; the residuals chart shows them.`);
+  if (frame.model !== null && frame.offset !== 0) {
+    notes.push(`Distances run from the datum to the sensing point: the ruler distance plus the ${frame.model} fit's probe offset (${formatQuantity(frame.offset, 'length', { significant: 3, unit: { symbol: 'mm', factor: 1e-3 } })}), the same datum as the threshold distances.`);
+  }
 
   const distances = logSpacedDistances(xMin, xMax, curveSamples);
+  // the models take ruler distances; the chart's axis is the sensing point's distance
+  const stated = distances.map((d) => d - frame.offset);
   const ranked = rankedFits(survey).filter((fit) => fit.converged);
   for (const fit of ranked) {
     const model = lookup(fit.model);
     if (!model) continue;
-    const curve = fittedCurve(model, fit, distances);
+    const curve = fittedCurve(model, fit, stated);
     const colour = modelColour(fit.model);
     const best = fit.model === survey.best;
     if (best) {
-      const band = confidenceBand(model, fit, distances);
+      const band = confidenceBand(model, fit, stated);
       if (band) {
         const bandColour = withAlpha(colour, 0.18);
         datasets.push({ label: `${fit.model} 95% band (lower)`, data: Array.from(distances, (d, i) => ({ x: X(d), y: Y(Math.max(band.lower[i]!, yMin)) })), showLine: true, pointRadius: 0, borderWidth: 0, borderColor: bandColour, backgroundColor: bandColour, order: 3 });
@@ -112,8 +119,8 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
 
   const options = baseOptions();
   options.scales = {
-    x: { type: 'logarithmic', min: X(xMin), max: X(xMax), title: { display: true, text: `distance from datum (${length.symbol}), log scale` }, grid: { color: palette.grid } },
-    y: { type: 'logarithmic', min: yMin / field.factor, max: yMax / field.factor, title: { display: true, text: `field |B| (${field.symbol}), log scale` }, grid: { color: palette.grid } },
+    x: { type: 'logarithmic', min: X(xMin), max: X(xMax), title: { display: true, text: `distance from datum to sensing point (${length.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 } }, grid: { color: palette.grid } },
+    y: { type: 'logarithmic', min: yMin / field.factor, max: yMax / field.factor, title: { display: true, text: `field |B| (${field.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 } }, grid: { color: palette.grid } },
   } as NonNullable<typeof options.scales>;
   return {
     config: { type: 'scatter', data: { datasets }, options },

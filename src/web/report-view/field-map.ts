@@ -1,8 +1,8 @@
 import { contours } from 'd3-contour';
 import type { FitResult } from '../../core/fit/fit-result';
-import { fieldMapGrid } from '../../core/report/curves';
+import { fieldMapGrid, probeOffset } from '../../core/report/curves';
 import type { SurveyReport } from '../../core/report/report';
-import { formatNumber, formatQuantity } from '../../core/units';
+import { formatQuantity } from '../../core/units';
 import { distanceUnitFor, fieldUnitFor } from './chart-spec';
 import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
@@ -38,7 +38,9 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   if (!fit || !model) return { reason: 'No axisymmetric coil model (loop, thick coil, solenoid, coil pair, dipole) converged, so there is no field map.' };
   const notes: string[] = [];
   if (fit.model !== survey.best) notes.push(`Drawn with ${fit.model}, the best-ranked axisymmetric model; the best model overall (${survey.best ?? 'none'}) is not axisymmetric.`);
-  const readings = readingsFit(survey)?.points ?? [];
+  const offset = probeOffset(model, fit);
+  // readings drawn where they were sensed: ruler distance plus this model's probe offset
+  const readings = (readingsFit(survey)?.points ?? []).map((p) => ({ ...p, distance: p.distance + offset }));
   const thresholdDistances = survey.thresholds.filter((t) => t.model === fit.model).map((t) => t.distance?.value ?? 0);
   const maxReading = Math.max(0, ...readings.map((p) => p.distance));
   let maxDistance = Math.max(maxReading, ...thresholdDistances.filter((d) => d < maxReading * 20)) * 1.1;
@@ -109,7 +111,7 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   parts.push(colourKey(bottom, top, fieldUnit, survey.thresholds.map((t) => t.level.value)));
 
   const svg = html`<svg xmlns="http://www.w3.org/2000/svg" class="rf-fieldmap" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${`Map of |B| of the ${fit.model} fit around the coil, with threshold contours`}">${trusted(parts.join(''))}</svg>`;
-  notes.push(`Field of the coil alone (fitted background left out), ${fit.model} model; distances as measured on the survey (from the datum, the model applies the probe offset); the coil axis is the dashed line; white dots are reading positions (radial offset drawn on one side).`);
+  notes.push(`Field of the coil alone (fitted background left out), ${fit.model} model, at true positions: distance from the datum (winding plane or near face) to the point; the coil axis is the dashed line; white dots are where the readings were sensed (ruler distance plus the fitted probe offset; radial offsets drawn on one side).`);
   return { svg, model: fit.model, notes };
 }
 
@@ -132,12 +134,12 @@ function axes(
   for (const tick of niceTicks(0, maxDistance / length.factor, 8)) {
     const px = x(tick * length.factor);
     out.push(`<line x1="${px}" y1="${margin.top + innerHeight}" x2="${px}" y2="${margin.top + innerHeight + 5}" stroke="${palette.ink}"/>`);
-    out.push(text(px, margin.top + innerHeight + 18, 'middle', formatNumber(tick, 3)));
+    out.push(text(px, margin.top + innerHeight + 18, 'middle', tickLabel(tick)));
   }
   for (const tick of niceTicks(-maxRadial / length.factor, maxRadial / length.factor, 6)) {
     const py = y(tick * length.factor);
     out.push(`<line x1="${margin.left - 5}" y1="${py}" x2="${margin.left}" y2="${py}" stroke="${palette.ink}"/>`);
-    out.push(text(margin.left - 8, py + 4, 'end', formatNumber(tick, 3)));
+    out.push(text(margin.left - 8, py + 4, 'end', tickLabel(tick)));
   }
   out.push(text(margin.left + innerWidth / 2, height - 10, 'middle', `distance from datum along the axis (${length.symbol})`));
   out.push(`<text transform="translate(16 ${margin.top + innerHeight / 2}) rotate(-90)" text-anchor="middle" font-size="11" fill="${palette.ink}">radial offset (${length.symbol})</text>`);
@@ -158,7 +160,7 @@ function colourKey(bottom: number, top: number, unit: { symbol: string; factor: 
   for (let exponent = Math.ceil(bottom); exponent <= Math.floor(top); exponent++) {
     const py = yOf(exponent);
     out.push(`<line x1="${left + barWidth}" y1="${py.toFixed(1)}" x2="${left + barWidth + 3}" y2="${py.toFixed(1)}" stroke="${palette.ink}"/>`);
-    out.push(`<text x="${left + barWidth + 5}" y="${(py + 4).toFixed(1)}" font-size="10" fill="${palette.ink}">${formatNumber(10 ** exponent / unit.factor, 2)}</text>`);
+    out.push(`<text x="${left + barWidth + 5}" y="${(py + 4).toFixed(1)}" font-size="10" fill="${palette.ink}">${tickLabel(10 ** exponent / unit.factor)}</text>`);
   }
   for (const level of levels) {
     if (!(level > 0)) continue;
@@ -168,4 +170,9 @@ function colourKey(bottom: number, top: number, unit: { symbol: string; factor: 
   }
   out.push(`<text x="${left}" y="${margin.top + innerHeight + 18}" font-size="11" fill="${palette.ink}">|B| (${unit.symbol})</text>`);
   return out.join('');
+}
+
+/** A tick value without trailing zeros or float noise: 60, 0.1, 2.5. */
+function tickLabel(value: number): string {
+  return String(Number(value.toPrecision(6)));
 }

@@ -29,3 +29,15 @@ export function niceLogBound(value: number, direction: -1 | 1): number {
   }
   return direction < 0 ? power : 10 * power;
 }
+
+/**
+ * The smallest multiple of a 1-2-5 step at or above `value`, the step chosen for about
+ * eight ticks from 0: a round end for a linear axis.
+ * @example niceCeiling(203) // 250
+ */
+export function niceCeiling(value: number): number {
+  if (!(value > 0)) return value;
+  const ticks = niceTicks(0, value, 8);
+  const step = ticks.length > 1 ? ticks[1]! - ticks[0]! : value;
+  return Math.ceil(value / step - 1e-9) * step;
+}

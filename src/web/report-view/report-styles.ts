@@ -18,13 +18,14 @@ export const reportStyles = `
 .rf-facts { display: flex; flex-wrap: wrap; gap: .3rem 1.4rem; margin: 0; }
 .rf-facts div { display: flex; gap: .4rem; }
 .rf-facts dt { color: var(--rf-muted); }
-.rf-facts dd { margin: 0; font-weight: 600; overflow-wrap: anywhere; }
+.rf-facts dd { margin: 0; font-weight: 600; overflow-wrap: break-word; min-width: 0; }
 .rf-block { margin: 1rem 0; }
 .rf-sub { color: var(--rf-muted); font-size: .9rem; }
 .rf-note { color: var(--rf-muted); font-size: .85rem; }
 .rf-empty { font-style: italic; color: var(--rf-muted); }
 .rf-table { border-collapse: collapse; width: 100%; font-size: .9rem; margin: .3rem 0; }
-.rf-table th, .rf-table td { border-bottom: 1px solid var(--rf-line); padding: .25rem .5rem; text-align: left; vertical-align: top; overflow-wrap: anywhere; }
+.rf-table th, .rf-table td { border-bottom: 1px solid var(--rf-line); padding: .25rem .5rem; text-align: left; vertical-align: top; overflow-wrap: break-word; }
+.rf-table .rf-nowrap { white-space: nowrap; }
 .rf-table thead th { background: var(--rf-wash); font-weight: 600; }
 .rf-num { font-variant-numeric: tabular-nums; white-space: nowrap; }
 .rf-undetermined { color: var(--rf-undecided); font-style: italic; white-space: normal; }
@@ -42,9 +43,9 @@ export const reportStyles = `
 .rf-swatch-dashed { height: 0; border-top: 3px dashed var(--swatch); }
 .rf-swatch-band { background: var(--swatch); }
 .rf-status { font-weight: 700; text-transform: uppercase; letter-spacing: .03em; }
-.rf-status-pass .rf-status, .rf-status.rf-status-pass { color: var(--rf-pass); }
-.rf-status-fail .rf-status, .rf-status.rf-status-fail { color: var(--rf-fail); }
-.rf-status-inconclusive .rf-status, .rf-status.rf-status-inconclusive { color: var(--rf-undecided); }
+.rf-status.rf-status-pass { color: var(--rf-pass); }
+.rf-status.rf-status-fail { color: var(--rf-fail); }
+.rf-status.rf-status-inconclusive { color: var(--rf-undecided); }
 .rf-verdict { border-left: 6px solid var(--rf-undecided); padding: .5rem .8rem; background: var(--rf-wash); }
 .rf-verdict.rf-status-pass { border-left-color: var(--rf-pass); }
 .rf-verdict.rf-status-fail { border-left-color: var(--rf-fail); }

@@ -2,9 +2,9 @@ import type { ChartDataset } from 'chart.js';
 import type { FitResult } from '../../core/fit/fit-result';
 import type { SurveyReport } from '../../core/report/report';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
-import { niceLogBound } from './nice-ticks';
+import { niceCeiling, niceLogBound } from './nice-ticks';
 import { modelColour, palette } from './palette';
-import { bestFit, bestPowerLaw } from './survey-facts';
+import { bestFit, bestPowerLaw, chartFrame, type ModelLookup } from './survey-facts';
 
 /**
  * Residuals chart: each reading's residual y − f divided by its standard uncertainty
@@ -12,15 +12,16 @@ import { bestFit, bestPowerLaw } from './survey-facts';
  * model and the best power law. Systematic runs show where a model bends the wrong
  * way; |value| > 2 marks readings worth a second look. Null when there is no best fit.
  */
-export function residualsChart(survey: SurveyReport): ChartSpec | null {
+export function residualsChart(survey: SurveyReport, lookup: ModelLookup): ChartSpec | null {
   const best = bestFit(survey);
   if (!best) return null;
   const fits: FitResult[] = [best];
   const powerLaw = bestPowerLaw(survey);
   if (powerLaw && powerLaw.model !== best.model) fits.push(powerLaw);
   const notes: string[] = [];
-  const length = distanceUnitFor(Math.max(...best.points.map((p) => p.distance)));
-  const logAxis = best.points.every((p) => p.distance > 0);
+  const offset = chartFrame(survey, lookup).offset;
+  const length = distanceUnitFor(Math.max(...best.points.map((p) => p.distance + offset)));
+  const logAxis = best.points.every((p) => p.distance + offset > 0);
   const stated = best.points.some((p) => p.standardUncertainty !== null && p.standardUncertainty > 0);
   const datasets: ChartDataset<'scatter', { x: number; y: number }[]>[] = [];
   const legend: LegendItem[] = [];
@@ -33,7 +34,7 @@ export function residualsChart(survey: SurveyReport): ChartSpec | null {
       const scale = p.standardUncertainty !== null && p.standardUncertainty > 0 ? p.standardUncertainty : fit.stats.rmse;
       const y = scale > 0 ? p.residual / scale : 0;
       extreme = Math.max(extreme, Math.abs(y));
-      return { x: p.distance / length.factor, y };
+      return { x: (p.distance + offset) / length.factor, y };
     });
     const colour = modelColour(fit.model);
     datasets.push({ label: fit.model, data, backgroundColor: colour, borderColor: colour, pointRadius: 2.5, pointStyle: fit === best ? 'circle' : 'rect' });
@@ -41,7 +42,7 @@ export function residualsChart(survey: SurveyReport): ChartSpec | null {
   }
   const xs = datasets.flatMap((d) => d.data.map((p) => p.x));
   const xMin = logAxis ? niceLogBound(Math.min(...xs) / 1.05, -1) : Math.min(0, ...xs);
-  const xMax = logAxis ? niceLogBound(Math.max(...xs) * 1.05, 1) : Math.max(...xs) * 1.05;
+  const xMax = logAxis ? niceLogBound(Math.max(...xs) * 1.05, 1) : niceCeiling(Math.max(...xs) * 1.02);
   const guide = (y: number, dash: number[]): ChartDataset<'scatter', { x: number; y: number }[]> => ({
     label: y === 0 ? 'zero' : `${y > 0 ? '+' : '−'}2`, data: [{ x: xMin, y }, { x: xMax, y }], showLine: true, pointRadius: 0,
     borderColor: palette.zero, borderWidth: 1, borderDash: dash,
@@ -51,7 +52,7 @@ export function residualsChart(survey: SurveyReport): ChartSpec | null {
   if (extreme > 50) notes.push('Some residuals lie beyond ±50 and are clipped at the chart edge.');
   const options = baseOptions();
   options.scales = {
-    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum (${length.symbol})${logAxis ? ', log scale' : ''}` }, grid: { color: palette.grid } },
+    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum to sensing point (${length.symbol})${logAxis ? ', log scale' : ''}` }, grid: { color: palette.grid } },
     y: { type: 'linear', min: -limit, max: limit, title: { display: true, text: stated ? 'residual ÷ standard uncertainty' : 'residual ÷ RMS residual' }, grid: { color: palette.grid } },
   } as NonNullable<typeof options.scales>;
   return {

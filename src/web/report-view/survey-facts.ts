@@ -1,5 +1,6 @@
 import type { FitResult } from '../../core/fit/fit-result';
 import { getModel, isModelId, type FieldModel, type ModelId } from '../../core/models';
+import { probeOffset } from '../../core/report/curves';
 import type { SurveyReport } from '../../core/report/report';
 
 /** Finds the FieldModel for a catalog id (the core catalog's getModel, or a stand-in in tests). */
@@ -36,4 +37,17 @@ export function rankedFits(survey: SurveyReport): FitResult[] {
 /** Best-ranked power law (power-law, inverse-square, inverse-cube) among converged fits, or null. */
 export function bestPowerLaw(survey: SurveyReport): FitResult | null {
   return rankedFits(survey).find((fit) => fit.converged && ['power-law', 'inverse-square', 'inverse-cube'].includes(fit.model)) ?? null;
+}
+
+/**
+ * The distance axis every chart shares: from the datum to the sensing point, i.e. the
+ * ruler distance plus the probe offset of the model the threshold distances use (the
+ * best physical fit), so readings, curves, threshold distances and the field map line up.
+ */
+export function chartFrame(survey: SurveyReport, lookup: ModelLookup): { offset: number; model: ModelId | null } {
+  const thresholdModel = survey.thresholds[0]?.model;
+  const fit = rankedFits(survey).find((f) => f.converged && (thresholdModel ? f.model === thresholdModel : lookup(f.model)?.physical === true))
+    ?? bestFit(survey);
+  const model = fit ? lookup(fit.model) : undefined;
+  return fit && model ? { offset: probeOffset(model, fit), model: fit.model } : { offset: 0, model: null };
 }

@@ -22,7 +22,7 @@ const rejectedListed = 200;
 export function renderSurveySection(survey: SurveyReport, lookup: ModelLookup, id: string): SafeHtml {
   const best = bestFit(survey);
   const falloff = falloffChart(survey, lookup);
-  const residuals = residualsChart(survey);
+  const residuals = residualsChart(survey, lookup);
   const map = fieldMap(survey, lookup);
   const warnings = [...survey.warnings, ...survey.fits.flatMap((f) => f.warnings.map((w) => `${f.model}: ${w}`))];
   return html`<section class="rf-survey" id="${id}" aria-labelledby="${id}-heading">

@@ -10,11 +10,11 @@ const statusWords: Readonly<Record<SpecCheck['status'], string>> = {
 
 /** The spec verdict: status in words, findings, each check with its evidence sentence. */
 export function verdictSection(verdict: Verdict): SafeHtml {
-  return html`<section class="${`rf-block rf-verdict rf-status-${verdict.status}`}"><h3>Verdict: <span class="rf-status">${verdict.status}</span> — the coil ${statusWords[verdict.status]}</h3>
+  return html`<section class="${`rf-block rf-verdict rf-status-${verdict.status}`}"><h3>Verdict: <span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span> — the coil ${statusWords[verdict.status]}</h3>
 ${verdict.findings.length > 0 ? html`<p class="rf-findings">Findings: ${verdict.findings.map((f, i) => html`${i > 0 ? ', ' : ''}<strong>${f}</strong>`)}</p>` : ''}
 ${verdict.explanations.map((sentence) => html`<p>${sentence}</p>`)}
 ${verdict.checks.length > 0 ? html`<table class="rf-table"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th><th scope="col">evidence</th></tr></thead>
-<tbody>${verdict.checks.map((check) => html`<tr class="${`rf-status-${check.status}`}"><th scope="row">${check.what}</th><td><span class="rf-status">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? ` (${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)})` : ''}</td><td>${check.evidence}</td></tr>`)}</tbody></table>` : ''}
+<tbody>${verdict.checks.map((check) => html`<tr><th scope="row">${check.what}</th><td><span class="${`rf-status rf-status-${check.status}`}">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? ` (${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)})` : ''}</td><td>${check.evidence}</td></tr>`)}</tbody></table>` : ''}
 </section>`;
 }
 
