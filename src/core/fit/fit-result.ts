@@ -12,7 +12,10 @@ export interface ParameterEstimate {
   readonly value: number;
   /** Standard error, or null when fixed or not determined by the data. */
   readonly stderr: number | null;
-  /** t-based 95 % interval with n − k degrees of freedom, or null when fixed / undetermined. */
+  /**
+   * 95 % interval: θ̂ ± t_{0.975, n−k}·stderr when the scale was estimated from the residuals,
+   * θ̂ ± 1.96·stderr when σ were stated (parameter-uncertainty.ts); null when fixed / undetermined.
+   */
   readonly ci95: readonly [number, number] | null;
   readonly fixed: boolean;
   /** False when the data cannot determine this parameter (identifiability, DOMAIN §7.6). */

@@ -37,7 +37,7 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
         { value: instrument, where: `line ${readings[zero]!.line}` },
       );
     }
-    const notes = inFile > 0 ? [`The given uncertainty (${describe(instrument)}) replaced the file's uncertainty column.`] : [];
+    const notes = inFile > 0 ? [`The given uncertainty (${describeInstrument(instrument)}) replaced the file's uncertainty column.`] : [];
     return { standardUncertainty: sigma, source: 'option', notes };
   }
   if (inFile === readings.length && inFile > 0) {
@@ -50,7 +50,7 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
 }
 
 /** "1.5 % + 2 uT" for a relative-plus-absolute uncertainty. */
-export function describe(instrument: RelativePlusAbsolute): string {
+function describeInstrument(instrument: RelativePlusAbsolute): string {
   const parts: string[] = [];
   if (instrument.relative > 0) parts.push(formatPercent(instrument.relative));
   if (instrument.absolute > 0) parts.push(formatQuantity(instrument.absolute, 'field'));
