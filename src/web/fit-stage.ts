@@ -4,16 +4,15 @@ import { selectSpec } from '../core/analysis/spec/select-spec';
 import { verifySpec } from '../core/analysis/spec/verify-spec';
 import { thresholdCautions } from '../core/analysis/thresholds/threshold-cautions';
 import { thresholdDistances } from '../core/analysis/thresholds/threshold-distances';
-import { compareModels } from '../core/fit/compare-models';
 import { fitSurvey, fitSurveyNotes } from '../core/fit/fit-survey';
 import type { FitSurveyOptions } from '../core/fit/fit-survey-options';
+import { buildSurveyReport } from '../core/report/build-survey-report';
 import type { FleetSummary, SurveyReport } from '../core/report/report';
 import type { Survey } from '../core/survey/survey';
 import type { ParsedSettings } from './fit-settings';
 
-// TEMPORARY ADAPTER — builds the SurveyReport from the engine's fitSurvey and the
-// analyses (spec verdict, threshold distances) until the core report builder lands;
-// then this file keeps only the catalog helpers below and calls that builder.
+// The page's fit stage: the engine's fitSurvey, the analyses (spec verdict, threshold
+// distances, fleet history) and the core report builder, wired like the CLI's fit.
 
 /** SI unit of a parameter name in the first of `models` that has it, or undefined when none has it. */
 export function parameterUnit(name: string, models: readonly ModelId[] = modelIds): ParameterUnit | undefined {
@@ -24,8 +23,12 @@ export function parameterUnit(name: string, models: readonly ModelId[] = modelId
   return undefined;
 }
 
-/** Fit one survey with the parsed settings and build its SurveyReport. */
-export function fitStage(survey: Survey, parsed: ParsedSettings): SurveyReport {
+/**
+ * Fit one survey with the parsed settings and build its SurveyReport: the spec that
+ * names its coil (its model is fitted too, CONTRACT.md), the threshold distances with
+ * their cautions, and how the readings were weighted.
+ */
+export function fitStage(survey: Survey, parsed: ParsedSettings, fileNotes: readonly string[] = []): SurveyReport {
   const spec = selectSpec(parsed.specs, survey.coil);
   const models = spec && !parsed.models.includes(spec.model) ? [...parsed.models, spec.model] : parsed.models;
   const options: FitSurveyOptions = {
@@ -35,18 +38,18 @@ export function fitStage(survey: Survey, parsed: ParsedSettings): SurveyReport {
     ...(parsed.positionUncertainty !== null ? { positionUncertainty: parsed.positionUncertainty } : {}),
   };
   const fits = fitSurvey(survey, options);
-  const { best, comparison } = compareModels(fits);
   const thresholds = parsed.thresholds.length > 0 ? thresholdDistances(fits, parsed.thresholds, { readingType: survey.readingType }) : [];
-  return {
-    source: survey.source, coil: survey.coil, date: survey.date, readingType: survey.readingType,
-    readings: { total: survey.totalRows, used: survey.readings.length, rejected: survey.rejected },
-    fits, best, comparison,
+  return buildSurveyReport(survey, fits, {
     verdict: spec ? verifySpec(spec, fits, survey.readingType) : null,
     thresholds,
-    warnings: [],
     cautions: thresholds.length > 0 ? thresholdCautions : [],
-    notes: [...survey.notes, ...fitSurveyNotes(survey, options)],
-  };
+    notes: [...fileNotes, ...fitSurveyNotes(survey, options)],
+  });
+}
+
+/** The report of a survey that was not fitted, saying why. */
+export function unfittedReport(survey: Survey, reason: string, fileNotes: readonly string[] = []): SurveyReport {
+  return buildSurveyReport(survey, [], { warnings: [`Not fitted: ${reason}`], notes: fileNotes });
 }
 
 /** The fleet section for several surveys (coil histories, trends, flags). */

@@ -2,7 +2,7 @@ import { isRingfallError } from '../core/errors';
 import type { Report, SurveyReport } from '../core/report/report';
 import type { RejectedRow, Survey } from '../core/survey/survey';
 import { detectSurveyLayout, importSurveys, type ColumnMapping, type Detection, type ImportCounts } from '../io';
-import { fitStage, fleetStage, parameterUnit } from './fit-stage';
+import { fitStage, fleetStage, parameterUnit, unfittedReport } from './fit-stage';
 import { parseFitSettings, type FitSettings, type SettingError } from './fit-settings';
 
 /** One file handed to the pipeline, with the user's hand-made column mapping if any. */
@@ -58,7 +58,7 @@ export const rowsListed = 500;
 export function runPipeline(files: readonly PipelineFile[], settings: FitSettings, progress: (p: PipelineProgress) => void = () => {}): PipelineOutcome {
   const { parsed, errors } = parseFitSettings(settings, (name) => parameterUnit(name, settings.models));
   const outcomes: FileOutcome[] = [];
-  const surveys: Survey[] = [];
+  const surveys: { survey: Survey; notes: readonly string[]; skipped: string | null }[] = [];
   files.forEach((file, index) => {
     progress({ stage: 'import', done: index, total: files.length, label: `reading ${file.name}` });
     const options = {
@@ -69,7 +69,8 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
     };
     try {
       const result = importSurveys(file.text, options);
-      surveys.push(...result.surveys);
+      surveys.push(...result.surveys.map((survey) => ({ survey, notes: result.detection.notes, skipped: null })));
+      surveys.push(...result.skipped.map((s) => ({ survey: s.survey, notes: result.detection.notes, skipped: s.reason })));
       const rows = [
         ...result.surveys.flatMap((s) => s.rejected),
         ...result.skipped.flatMap((s) => [...s.survey.rejected, ...s.survey.readings.map((r) => ({ line: r.line, column: null, value: null, reason: s.reason }))]),
@@ -91,15 +92,19 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
   });
   const reports: SurveyReport[] = [];
   if (errors.length === 0) {
-    surveys.forEach((survey, index) => {
+    surveys.forEach(({ survey, notes, skipped }, index) => {
       progress({ stage: 'fit', done: index, total: surveys.length, label: `fitting ${survey.coil ?? survey.source}` });
+      if (skipped !== null) {
+        reports.push(unfittedReport(survey, skipped, notes));
+        return;
+      }
       try {
-        reports.push(fitStage(survey, parsed));
+        reports.push(fitStage(survey, parsed, notes));
       } catch (error) {
         if (!isRingfallError(error)) throw error;
         // a setting this survey cannot be fitted with (e.g. a position uncertainty and no reading uncertainty)
         if (!errors.some((e) => e.message === error.message)) errors.push({ field: settingFieldOf(error.code), message: error.message });
-        reports.push(unfittedReport(survey, error.message));
+        reports.push(unfittedReport(survey, error.message, notes));
       }
     });
   }
@@ -116,14 +121,6 @@ function settingFieldOf(code: string): string {
   if (code === 'FIT_UNKNOWN_PARAMETER' || code === 'FIT_FIXED_OUT_OF_BOUNDS') return 'fixes';
   if (code === 'MODEL_UNKNOWN') return 'models';
   return 'models';
-}
-
-function unfittedReport(survey: Survey, reason: string): SurveyReport {
-  return {
-    source: survey.source, coil: survey.coil, date: survey.date, readingType: survey.readingType,
-    readings: { total: survey.totalRows, used: survey.readings.length, rejected: survey.rejected },
-    fits: [], best: null, comparison: [], verdict: null, thresholds: [], warnings: [`Not fitted: ${reason}`], cautions: [], notes: survey.notes,
-  };
 }
 
 /** The detection of a file whose import failed, when its header can still be read. */

@@ -58,7 +58,7 @@ export const reportStyles = `
 .rf-doc-head p { color: var(--rf-muted); }
 @media (max-width: 640px) {
   .rf-survey, .rf-fleet { padding: .6rem; }
-  .rf-table { font-size: .8rem; }
+  .rf-table { font-size: .8rem; display: block; overflow-x: auto; }
   .rf-table th, .rf-table td { padding: .2rem .3rem; }
   .rf-num { white-space: normal; }
 }
