@@ -84,7 +84,8 @@ describe('parseThresholdLevel()', () => {
     const publicLevel = parseThresholdLevel('icnirp-public@50Hz');
     expectClose(publicLevel.value, 2e-4, { rel: 1e-12 });
     expect(publicLevel.readingType).toBe('rms');
-    expect(publicLevel.label).toContain('50 Hz');
+    expect(publicLevel.label).toBe('ICNIRP 2010 public, 50 Hz');
+    expect(publicLevel.notes[0]).toContain('25 Hz – 400 Hz');
     expectClose(parseThresholdLevel('ICNIRP-occupational@1 kHz').value, 3e-4, { rel: 1e-12 });
   });
 

@@ -20,42 +20,42 @@ export interface ThresholdLevel {
 export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = {
   'implant-static': {
     value: 5e-4,
-    label: 'implant screening line, static (ICNIRP 2009)',
+    label: 'implant line, static (ICNIRP 2009)',
     readingType: 'dc',
     flag: '[V] ICNIRP 2009, Health Physics 96:504–514: implant wearers generally unaffected below 0.5 mT (DOMAIN.md §4.1, §4.3)',
     notes: ['IEC 60601-2-33 ed. 4 uses 0.9 mT (preset "mr-implant") for inadvertent magnet-mode activation near MR equipment.'],
   },
   'mr-implant': {
     value: 9e-4,
-    label: 'MR equipment implant line (IEC 60601-2-33 ed. 4)',
+    label: 'MR implant line (IEC 60601-2-33)',
     readingType: 'dc',
     flag: '[V] IEC 60601-2-33 ed. 4.0 raised the MR magnet-mode line to 0.9 mT (DOMAIN.md §4.3)',
     notes: ['The general screening line for implant wearers is 0.5 mT (preset "implant-static").'],
   },
   'pacemaker-ac': {
     value: 1e-4,
-    label: 'pacemaker guidance, power frequency (ORNL)',
+    label: 'pacemaker, 60 Hz (ORNL)',
     readingType: 'rms',
     flag: '[V] ORNL guidance quoted in DOMAIN.md §4.3: 0.1 mT at 60 Hz',
     notes: ['Measured in-vivo interference thresholds at 50 Hz span a wide range; follow the device maker\'s guidance.'],
   },
   'static-public': {
     value: 0.4,
-    label: 'ICNIRP 2009 static limit, general public',
+    label: 'ICNIRP 2009 static, public',
     readingType: 'dc',
     flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
     notes: [],
   },
   'static-occupational': {
     value: 2,
-    label: 'ICNIRP 2009 static limit, occupational head and trunk',
+    label: 'ICNIRP 2009 static, workers',
     readingType: 'dc',
     flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
     notes: [],
   },
   'static-limbs': {
     value: 8,
-    label: 'ICNIRP 2009 static limit, occupational limbs',
+    label: 'ICNIRP 2009 static, limbs',
     readingType: 'dc',
     flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
     notes: [],
@@ -107,9 +107,9 @@ function icnirpLevel(group: ExposureGroup, frequencyText: string | undefined, te
   const reference = icnirp2010ReferenceLevel(frequency, group);
   return {
     value: reference.value,
-    label: `ICNIRP 2010 ${group === 'public' ? 'general public' : 'occupational'} reference level at ${match[1]} ${match[2]} (${reference.band})`,
+    label: `ICNIRP 2010 ${group === 'public' ? 'public' : 'workers'}, ${match[1]} ${match[2]}`,
     readingType: 'rms',
     flag: reference.flag,
-    notes: reference.notes,
+    notes: [`ICNIRP 2010 ${group === 'public' ? 'general public' : 'occupational'} reference level, table row ${reference.band}.`, ...reference.notes],
   };
 }
