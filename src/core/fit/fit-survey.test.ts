@@ -224,4 +224,19 @@ describe('fitSurvey(survey, options)', () => {
       expect(Object.values(same.params).map((p) => p.value)).toEqual(Object.values(fit.params).map((p) => p.value));
     }
   });
+  it('fitSurvey() on readings all at one distance marks every parameter undetermined and claims no moment (flat directions in JᵀWJ)', () => {
+    const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: [0.05, 0.05, 0.05, 0.05, 0.05, 0.05], noise: onePercent, seed: 3 });
+    const [fit] = fitSurvey(survey, { models: ['loop'] });
+    expect(Object.values(fit!.params).every((p) => !p.determined && p.ci95 === null)).toBe(true);
+    expect(fit!.covariance).toBeNull();
+    expect(fit!.warnings.join(' ')).toContain('cannot separate ampereTurns and radius');
+    expect(fit!.warnings.join(' ')).not.toContain('determine the moment');
+  });
+
+  it('fitSurvey() says why a power law with its offset fixed at 0 cannot be fitted to a reading at distance 0', () => {
+    const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: evenlySpaced(0, 0.2, 15), noise: onePercent, seed: 3 });
+    const [law] = fitSurvey(survey, { models: ['power-law'], fixed: { probeOffset: 0 } });
+    expect(law!.converged).toBe(false);
+    expect(law!.warnings[0]).toContain('a power law needs the sensing point beyond distance 0');
+  });
 });

@@ -38,8 +38,10 @@ export interface FitWarningInput {
 export function fitWarnings(input: FitWarningInput): string[] {
   const { model, solution, uncertainty, search, options } = input;
   const warnings: string[] = [];
-  if (!solution.converged) {
-    warnings.push(`The search did not converge (${solution.stopReason.replace(/\.$/, '')}); the values are the best found and may be far from the coil's.`);
+  if (solution.stopCode === 'non-finite-start') {
+    warnings.push(`Not fitted: the model cannot be evaluated at every reading from its start${model.physical ? '' : ' (a power law needs the sensing point beyond distance 0: leave probeOffset free or drop --fix probeOffset)'}.`);
+  } else if (!solution.converged) {
+    warnings.push(`The search did not converge (${solution.stopReason.replace(/^not converged: /, '').replace(/\.$/, '')}); the values are the best found and may be far from the coil's.`);
   }
   for (const name of Object.keys(options.fixed ?? {})) {
     if (!model.parameters.some((p) => p.name === name)) warnings.push(`--fix ${name} does not apply: this model has no parameter "${name}".`);

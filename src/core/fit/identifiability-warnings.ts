@@ -47,10 +47,12 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
     const names = joinWords(coil);
     const pair = coil.length === 2 ? correlationOf(coil[0]!, coil[1]!) : null;
     const correlation = pair === null ? '' : ` (correlation ${formatNumber(pair, 5)})`;
-    const momentText = moment === null || model.id === 'dipole'
+    // Claim the moment only when the data pin it down (a covariance exists and σ(m) ≤ |m|/4).
+    const momentKnown = moment !== null && moment.stderr !== null && moment.stderr <= 0.25 * Math.abs(moment.value);
+    const momentText = !momentKnown || model.id === 'dipole'
       ? ''
       : `the moment ${momentFormula[model.id] ?? 'N·I × area'} = ${formatParameter(moment.value, 'A·m²')}` +
-        (moment.stderr === null ? '' : ` (± ${formatParameter(moment.stderr, 'A·m²', 2)})`);
+        ` (± ${formatParameter(moment!.stderr!, 'A·m²', 2)})`;
     if (size !== null && nearest >= 2 * size.value && momentText !== '' && coil.length >= 2) {
       warnings.push(
         `These readings all lie in the far field (the nearest is ${formatNumber(nearest / size.value, 2)} × the ${size.name} from the coil): ` +
