@@ -1,15 +1,96 @@
+import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
+import { parseThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
+import { RingfallError } from '../../core/errors';
+import type { Report } from '../../core/report/report';
+import { toJsonReport } from '../../core/report/to-json-report';
+import { readSpecFile } from '../../io/spec';
+import type { BatchSettings } from '../batch/batch-settings';
+import { renderFleetSummary } from '../batch/render-fleet-summary';
+import { runBatch } from '../batch/run-batch';
+import { writeHtmlReports } from '../batch/write-html-reports';
+import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
+import { findSurveyFiles } from '../find-survey-files';
 import type { CommandContext } from '../main';
 
-/** `ringfall batch` (CONTRACT.md). Placeholder until its issue lands: exits 2 saying so. */
+/** Flags of `batch` besides the fitting options it shares with `fit`. */
+interface BatchFlags extends FitFlags {
+  readonly out?: string;
+  readonly workers?: string;
+}
+
+/** Exit status of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report it. */
+const interruptedStatus = 130;
+
+/**
+ * `ringfall batch DIR|FILE... [options]` (CONTRACT.md): fit every survey of every file in
+ * parallel on worker threads and print the fleet summary (or the JSON report with its
+ * fleet section, --json); --out DIR also writes one HTML report per coil and an index.
+ * Exit status: 0 all fitted and every check passed; 1 a file or survey could not be used,
+ * or a spec or history check failed; 2 a usage error; 130 stopped by Ctrl-C.
+ */
 export function registerBatch(program: Command, context: CommandContext): void {
-  program
-    .command('batch')
-    .description('not built yet')
-    .allowUnknownOption(true)
-    .allowExcessArguments(true)
-    .action(() => {
-      process.stderr.write('ringfall batch: not built yet.\n');
-      context.setExitCode(2);
+  addFitOptions(
+    program
+      .command('batch')
+      .description('fit many survey files in parallel: fleet summary, histories and what needs attention')
+      .argument('<paths...>', 'folders to search for survey files, or the files'),
+  )
+    .option('--out <dir>', 'also write one HTML report per coil and an index.html into this folder')
+    .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
+    .action(async (paths: string[], flags: BatchFlags) => {
+      const settings = await readBatchSettings(flags);
+      const workers = readWorkers(flags.workers);
+      const files = findSurveyFiles(paths);
+      const result = await runBatch(files, settings, { workers, progress: process.stderr });
+      const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
+      if (flags.json === true) {
+        const json = toJsonReport(result.report);
+        if (result.interrupted) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal };
+        process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+      } else {
+        process.stdout.write(renderFleetSummary(result.report, coverage));
+      }
+      if (flags.out !== undefined) {
+        const written = writeHtmlReports(flags.out, result.report, coverage);
+        process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
+      }
+      context.setExitCode(result.interrupted ? interruptedStatus : batchStatus(result.report));
     });
+}
+
+/** The options of `fit` that `batch` shares, read and checked, plus the parsed spec file. */
+async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
+  const options = readFitFlags(flags);
+  const refused = [options.html !== null ? '--html' : null, options.csv !== null ? '--csv' : null].filter((flag) => flag !== null);
+  if (refused.length > 0) {
+    throw new RingfallError('OPTION_VALUE', `${refused.join(', ')}: not an option of batch. Use --out DIR for one HTML report per coil, or --json.`, { value: refused, where: refused[0] ?? null });
+  }
+  return {
+    fit: options.fit,
+    import: options.import,
+    specs: options.spec === null ? [] : await readSpecFile(options.spec),
+    // readFitFlags has checked each level; parseThresholdLevel adds label, reading type and notes.
+    thresholds: (flags.threshold ?? []).map((text) => parseThresholdLevel(text)),
+    keepPoints: flags.out !== undefined,
+  };
+}
+
+function readWorkers(text: string | undefined): number {
+  if (text === undefined) return availableParallelism();
+  const workers = Number(text);
+  if (!Number.isInteger(workers) || workers < 1 || workers > 256) {
+    throw new RingfallError('OPTION_VALUE', `--workers: "${text}" is not usable. Give a whole number from 1 to 256.`, { value: text, where: '--workers' });
+  }
+  return workers;
+}
+
+/** 1 when a file or survey could not be used, a spec check failed, or a coil has a history flag; else 0 (CONTRACT.md). */
+export function batchStatus(report: Report): number {
+  const fleet = report.fleet;
+  const failed =
+    (fleet?.unreadable.length ?? 0) > 0 ||
+    report.surveys.some((survey) => survey.verdict?.status === 'fail') ||
+    (fleet?.coils ?? []).some((coil) => coil.flags.length > 0);
+  return failed ? 1 : 0;
 }

@@ -1,0 +1,38 @@
+/**
+ * Data that crosses between the batch's main thread and its worker threads. Everything
+ * here is plain data (structured-clonable): no functions, no class instances.
+ */
+import type { SurveyReport } from '../../core/report/report';
+
+/** One survey file to fit: its place in the sorted file list and its path as found. */
+export interface FileTask {
+  readonly index: number;
+  readonly path: string;
+}
+
+/** A file, or a part of one, that gave no fitted survey, and why (CONTRACT.md fleet.unreadable). */
+export interface UnreadableEntry {
+  readonly source: string;
+  readonly reason: string;
+}
+
+/** What became of one file: its survey reports in file order, and everything that could not be used. */
+export interface FileOutcome {
+  readonly index: number;
+  readonly source: string;
+  readonly reports: readonly SurveyReport[];
+  /** The file itself when it could not be read at all, or its coil/date groups that could not be fitted. */
+  readonly unreadable: readonly UnreadableEntry[];
+}
+
+/** Main thread → worker: fit these files and answer with one `ChunkDone`. */
+export interface ChunkRequest {
+  readonly kind: 'chunk';
+  readonly chunk: number;
+  readonly files: readonly FileTask[];
+}
+
+/** Worker → main thread. `ready` once the worker has loaded its modules. */
+export type WorkerMessage =
+  | { readonly kind: 'ready' }
+  | { readonly kind: 'done'; readonly chunk: number; readonly outcomes: readonly FileOutcome[] };

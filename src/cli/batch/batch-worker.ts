@@ -1,0 +1,31 @@
+import { parentPort, workerData } from 'node:worker_threads';
+import type { BatchSettings } from './batch-settings';
+import type { ChunkRequest, FileOutcome, FileTask, WorkerMessage } from './batch-types';
+import { failedOutcome } from './failed-outcome';
+import { fitSurveyFile } from './fit-survey-file';
+
+/**
+ * Fit one chunk of files in a worker: each file's outcome, in the order given. A bug
+ * thrown while fitting one file (not a RingfallError, which fitSurveyFile reports itself)
+ * becomes that file's unreadable entry, so one file cannot stop the batch.
+ */
+export function fitChunk(files: readonly FileTask[], settings: BatchSettings): FileOutcome[] {
+  return files.map((file) => {
+    try {
+      return fitSurveyFile(file, settings);
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      return failedOutcome(file, `internal error while fitting this file (${message})`);
+    }
+  });
+}
+
+if (parentPort !== null) {
+  const port = parentPort;
+  const settings = workerData as BatchSettings;
+  port.on('message', (request: ChunkRequest) => {
+    const message: WorkerMessage = { kind: 'done', chunk: request.chunk, outcomes: fitChunk(request.files, settings) };
+    port.postMessage(message);
+  });
+  port.postMessage({ kind: 'ready' } satisfies WorkerMessage);
+}

@@ -1,0 +1,47 @@
+import type { Report } from '../../core/report/report';
+import { html, type SafeHtml, trusted } from '../../web/report-view/html';
+import { reportStyles } from '../../web/report-view/report-styles';
+import { attentionList } from './attention-list';
+import { coilFigures, fleetRows } from './fleet-rows';
+import type { BatchCoverage } from './render-fleet-summary';
+
+/**
+ * The index page of `batch --out DIR`: one self-contained HTML file (inline CSS, no
+ * script, a Content Security Policy that forbids every outside request) with one table
+ * row per coil linking to its report page, what needs attention first, and the files that
+ * could not be used. Every text from a file (coil ids, file names, reasons) is escaped.
+ *
+ * @param pages file name of each row's page, in fleetRows order
+ */
+export function renderFleetIndexPage(report: Report, pages: readonly string[], coverage: BatchCoverage): string {
+  const rows = fleetRows(report);
+  const unreadable = report.fleet?.unreadable ?? [];
+  const attention = attentionList(rows, unreadable);
+  const page: SafeHtml = html`<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>ringfall fleet summary</title>
+<style>body { margin: 0 auto; padding: 1rem; max-width: 1000px; background: #f6f5f0; } @media print { body { background: #fff; padding: 0; } }${trusted(reportStyles)}</style>
+</head>
+<body class="rf-report">
+<header><h1>Fleet summary</h1>
+<p>${rows.length} coils and surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p></header>
+<section class="rf-fleet"><h2>Coils</h2>
+<table class="rf-table"><thead><tr><th scope="col">coil</th><th scope="col">surveys</th><th scope="col">latest</th><th scope="col">best model</th><th scope="col">coil as measured (95% interval)</th><th scope="col">spec</th><th scope="col">history</th></tr></thead>
+<tbody>${rows.map((row, i) => {
+    const figures = coilFigures(row.latest);
+    const verdict = row.latest.verdict;
+    return html`<tr><th scope="row"><a href="${pages[i] ?? ''}">${row.coil ?? `(no coil id) ${row.latest.source}`}</a></th><td class="rf-num">${row.surveys}</td><td class="rf-nowrap">${row.latest.date ?? '—'}</td><td>${row.latest.best ?? 'none converged'}</td><td>${figures ? `${figures.fit.model}: ${figures.figures.join('; ')}` : 'no physical model converged'}</td><td>${verdict ? html`<span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span>${verdict.findings.length ? ` (${verdict.findings.join(', ')})` : ''}` : 'no spec'}</td><td>${row.history ? row.history.flags.join(', ') || 'no flag' : 'no coil id'}</td></tr>`;
+  })}</tbody></table></section>
+<section class="rf-fleet"><h2>What needs attention first</h2>
+${attention.length === 0 ? html`<p>Nothing: every survey was fitted, no spec failed and no history flag is set.</p>` : html`<ol>${attention.map((item) => html`<li><strong>${item.subject}</strong>: ${item.reasons.join('; ')}<ul>${item.evidence.map((sentence) => html`<li>${sentence}</li>`)}</ul></li>`)}</ol>`}
+</section>
+${unreadable.length > 0 ? html`<section class="rf-fleet"><h2>Files or parts that could not be used</h2><ul>${unreadable.map((entry) => html`<li><strong>${entry.source}</strong>: ${entry.reason}</li>`)}</ul></section>` : ''}
+</body>
+</html>
+`;
+  return page.value;
+}

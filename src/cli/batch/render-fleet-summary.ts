@@ -1,0 +1,84 @@
+import { wrap } from '../../core/report/render-text';
+import type { Report } from '../../core/report/report';
+import { formatNumber } from '../../core/units';
+import { attentionList } from './attention-list';
+import { coilFigures, fleetRows, type FleetRow } from './fleet-rows';
+
+/** Evidence sentences printed per attention item (every unreadable file is always listed). */
+const evidenceShown = 3;
+
+/** How far a batch got, for the summary's first lines. */
+export interface BatchCoverage {
+  readonly filesDone: number;
+  readonly filesTotal: number;
+  /** True when the run was stopped (Ctrl-C) before every file was done. */
+  readonly interrupted: boolean;
+}
+
+/**
+ * The fleet summary of `ringfall batch` as text for an 80-column terminal: a heading with
+ * counts (and, for a stopped run, that it is partial), one entry per coil — latest
+ * survey, best model, the best physical model's amplitude and geometry with 95 %
+ * intervals, the latest spec verdict, the history flags and ampere-turn trend — then what
+ * needs attention first (attentionList), then every file or part that could not be used.
+ */
+export function renderFleetSummary(report: Report, coverage: BatchCoverage): string {
+  const rows = fleetRows(report);
+  const unreadable = report.fleet?.unreadable ?? [];
+  const lines: string[] = [];
+  if (coverage.interrupted) {
+    lines.push(`PARTIAL SUMMARY: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files; it covers those files only.`, '');
+  }
+  const coils = rows.filter((row) => row.coil !== null).length;
+  lines.push(`Fleet summary: ${plural(coils, 'coil')}, ${plural(report.surveys.length, 'survey')} from ${plural(coverage.filesDone, 'file')}`);
+  const extra = [
+    rows.length > coils ? `${plural(rows.length - coils, 'survey')} without a coil id` : '',
+    unreadable.length > 0 ? `${plural(unreadable.length, 'file or part', 'files or parts')} could not be used` : '',
+  ].filter((text) => text !== '');
+  if (extra.length > 0) lines.push(`  ${extra.join('; ')}`);
+  lines.push('');
+  for (const row of rows) lines.push(...rowLines(row));
+
+  const attention = attentionList(rows, unreadable);
+  lines.push('', 'What needs attention first');
+  if (attention.length === 0) lines.push('  Nothing: every survey was fitted, no spec failed and no history flag is set.');
+  attention.forEach((item, i) => {
+    lines.push(...wrap(`${i + 1}. ${item.subject}: ${item.reasons.join('; ')}`, 2, 5));
+    const shown = item.kind === 'unreadable' ? item.evidence : item.evidence.slice(0, evidenceShown);
+    for (const sentence of shown) lines.push(...wrap(`- ${sentence}`, 5, 7));
+    if (shown.length < item.evidence.length) lines.push(...wrap(`- … ${item.evidence.length - shown.length} more in the report (--json, or --out DIR).`, 5, 7));
+  });
+  return lines.join('\n') + '\n';
+}
+
+function rowLines(row: FleetRow): string[] {
+  const survey = row.latest;
+  const heading = row.coil === null
+    ? `(no coil id) ${survey.source}`
+    : `${row.coil}: ${plural(row.surveys, 'survey')}, latest ${survey.date ?? 'undated'}`;
+  const verdict = survey.verdict
+    ? `spec ${survey.verdict.status}${survey.verdict.findings.length ? ` (${survey.verdict.findings.join(', ')})` : ''}`
+    : 'no spec';
+  const lines = wrap(`${heading} · best ${survey.best ?? 'none converged'} · ${verdict}`, 0, 4);
+  const coil = coilFigures(survey);
+  if (coil) {
+    lines.push(...wrap(`${coil.fit.model === survey.best ? '' : `${coil.fit.model}: `}${coil.figures.join(' · ')}`, 4, 6));
+  } else {
+    lines.push('    no physical model converged on this survey');
+  }
+  lines.push(...wrap(`history: ${historyText(row)}`, 4, 6));
+  return lines;
+}
+
+function historyText(row: FleetRow): string {
+  if (row.history === null) return 'none (no coil id)';
+  const flags = row.history.flags.length > 0 ? row.history.flags.join(', ') : 'no flag';
+  const trend = row.history.trend.ampereTurnsPerYear;
+  if (trend === null) return row.surveys === 1 ? `${flags}; one survey, no trend` : `${flags}; no trend`;
+  const show = (x: number) => formatNumber(x, 3);
+  return `${flags}; ampere-turns ${show(trend.value)} A/yr (95 % ${show(trend.ci95[0])} to ${show(trend.ci95[1])})`;
+}
+
+function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}

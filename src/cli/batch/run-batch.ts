@@ -1,0 +1,82 @@
+import { fleetHistory } from '../../core/analysis/fleet/fleet-history';
+import type { Report } from '../../core/report/report';
+import { createBatchProgress, type ProgressStream } from './batch-progress';
+import type { BatchSettings } from './batch-settings';
+import type { FileOutcome } from './batch-types';
+import { runWorkerPool } from './worker-pool';
+
+/** How a batch runs (not what it computes: that is BatchSettings). */
+export interface BatchRunOptions {
+  readonly workers: number;
+  /** Where progress goes (stderr). */
+  readonly progress: ProgressStream;
+  /** Seconds between plain progress lines when `progress` is not a terminal. */
+  readonly progressInterval?: number;
+}
+
+/** A finished (or stopped) batch: the Report with its fleet section, and how far it got. */
+export interface BatchResult {
+  readonly report: Report;
+  readonly filesDone: number;
+  readonly filesTotal: number;
+  /** True when Ctrl-C stopped the run; the report then covers the files done only. */
+  readonly interrupted: boolean;
+}
+
+/** Chunks per worker aimed at: enough to balance uneven files, few enough to keep messages rare. */
+const chunksPerWorker = 8;
+/** Largest chunk: keeps progress moving and a crashed worker's retry small. */
+const largestChunk = 32;
+
+/**
+ * Fit every file on `workers` worker threads (worker-pool.ts) with progress on stderr,
+ * then assemble the Report: surveys ordered by file (the sorted list) then by their order
+ * in the file — never by which worker finished first — and the fleet section
+ * (fleetHistory: coils by first appearance in that order, trends and flags, unreadable
+ * files). So the report is the same byte for byte whatever the number of workers. Ctrl-C
+ * (SIGINT) terminates the workers and returns what was finished, marked interrupted; a
+ * second Ctrl-C ends the process at once.
+ */
+export async function runBatch(files: readonly string[], settings: BatchSettings, options: BatchRunOptions): Promise<BatchResult> {
+  const outcomes: (FileOutcome | undefined)[] = new Array(files.length);
+  const workers = Math.max(1, Math.min(options.workers, files.length));
+  const chunkSize = Math.max(1, Math.min(largestChunk, Math.ceil(files.length / (workers * chunksPerWorker))));
+  const progress = createBatchProgress(options.progress, files.length, workers, options.progressInterval === undefined ? {} : { intervalSeconds: options.progressInterval });
+  let done = 0;
+  const run = runWorkerPool(files.map((path, index) => ({ index, path })), {
+    workers,
+    chunkSize,
+    entry: new URL('./batch-worker-entry.mjs', import.meta.url),
+    workerData: settings,
+    onOutcomes: (finished) => {
+      for (const outcome of finished) outcomes[outcome.index] = outcome;
+      done += finished.length;
+      progress.update(done);
+    },
+  });
+  let interrupted = false;
+  const onInterrupt = () => {
+    interrupted = true;
+    void run.stop();
+  };
+  process.once('SIGINT', onInterrupt);
+  try {
+    await run.done;
+  } finally {
+    process.off('SIGINT', onInterrupt);
+  }
+  progress.finish(done, interrupted);
+  return { report: assembleReport(outcomes, settings), filesDone: done, filesTotal: files.length, interrupted };
+}
+
+/** The Report from outcomes indexed by file: surveys in file order, then the fleet section. */
+export function assembleReport(outcomes: readonly (FileOutcome | undefined)[], settings: BatchSettings): Report {
+  const finished = outcomes.filter((outcome): outcome is FileOutcome => outcome !== undefined);
+  const surveys = finished.flatMap((outcome) => outcome.reports);
+  const unreadable = finished.flatMap((outcome) => outcome.unreadable);
+  const fleet = fleetHistory(
+    surveys.map((s) => ({ source: s.source, coil: s.coil, date: s.date, fits: s.fits, verdict: s.verdict })),
+    { specs: settings.specs, unreadable },
+  );
+  return { surveys, fleet };
+}

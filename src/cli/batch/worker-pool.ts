@@ -1,0 +1,125 @@
+import { Worker } from 'node:worker_threads';
+import type { ChunkRequest, FileOutcome, FileTask, WorkerMessage } from './batch-types';
+import { failedOutcome } from './failed-outcome';
+
+/** How a {@link runWorkerPool} run is set up. */
+export interface WorkerPoolOptions {
+  /** Worker threads to start (at least 1). */
+  readonly workers: number;
+  /** Files per message sent to a worker. */
+  readonly chunkSize: number;
+  /** The worker's entry module (an .mjs that registers tsx, then loads the worker). */
+  readonly entry: URL;
+  /** Passed to every worker once, as `workerData` (the batch settings). */
+  readonly workerData: unknown;
+  /** Called with each finished chunk's outcomes, in the order chunks finish. */
+  readonly onOutcomes: (outcomes: readonly FileOutcome[]) => void;
+}
+
+/** A running pool: `done` settles when every file has an outcome or the pool was stopped. */
+export interface WorkerPoolRun {
+  readonly done: Promise<void>;
+  /** Terminate every worker now; files not finished get no outcome. */
+  stop(): Promise<void>;
+}
+
+/** Chunks kept in flight per worker, so a worker never waits for the next message. */
+const inFlightPerWorker = 2;
+
+/**
+ * Fit files on worker threads: the files are cut into chunks of `chunkSize` (one message
+ * per chunk, the worker reads each file itself), each worker keeps two chunks in flight.
+ * When a worker dies (a crash, not a RingfallError, which the worker reports as an
+ * outcome), its unfinished chunks are retried one file per chunk on a fresh worker; a
+ * file that kills a worker on its own gets an outcome saying so. The order outcomes
+ * arrive in depends on timing; callers order them by `index`.
+ *
+ * @throws (through `done`) when a worker dies before it has loaded: nothing could run.
+ */
+export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOptions): WorkerPoolRun {
+  const queue: { files: FileTask[]; retry: boolean }[] = [];
+  for (let start = 0; start < tasks.length; start += options.chunkSize) {
+    queue.push({ files: tasks.slice(start, start + options.chunkSize), retry: false });
+  }
+  const workers = new Set<Worker>();
+  let nextChunk = 0;
+  let pending = tasks.length;
+  let stopped = false;
+  let settle: { resolve: () => void; reject: (error: Error) => void } | null = null;
+  const done = new Promise<void>((resolve, reject) => {
+    settle = { resolve, reject };
+  });
+  const finish = (error?: Error) => {
+    if (settle === null) return;
+    const { resolve, reject } = settle;
+    settle = null;
+    void Promise.all([...workers].map((w) => w.terminate())).then(() => (error ? reject(error) : resolve()));
+  };
+
+  const start = () => {
+    const worker = new Worker(options.entry, { workerData: options.workerData });
+    const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
+    let ready = false;
+    workers.add(worker);
+    const feed = () => {
+      while (!stopped && inFlight.size < inFlightPerWorker && queue.length > 0) {
+        const chunk = queue.shift()!;
+        const id = nextChunk++;
+        inFlight.set(id, chunk);
+        const request: ChunkRequest = { kind: 'chunk', chunk: id, files: chunk.files };
+        worker.postMessage(request);
+      }
+    };
+    worker.on('message', (message: WorkerMessage) => {
+      if (message.kind === 'ready') {
+        ready = true;
+        return;
+      }
+      inFlight.delete(message.chunk);
+      pending -= message.outcomes.length;
+      options.onOutcomes(message.outcomes);
+      if (pending === 0) finish();
+      else feed();
+    });
+    let failure: Error | null = null;
+    worker.on('error', (error) => {
+      failure = error;
+    });
+    worker.on('exit', (code) => {
+      workers.delete(worker);
+      if (stopped || settle === null) return;
+      const reason = failure?.message ?? `it exited with status ${code}`;
+      if (!ready) {
+        finish(new Error(`A batch worker could not start: ${reason}`));
+        return;
+      }
+      const lost: FileOutcome[] = [];
+      for (const chunk of inFlight.values()) {
+        if (chunk.retry) {
+          lost.push(...chunk.files.map((file) => failedOutcome(file, `the worker fitting this file stopped (${reason})`)));
+        } else {
+          queue.unshift(...chunk.files.map((file) => ({ files: [file], retry: true })));
+        }
+      }
+      if (lost.length > 0) {
+        pending -= lost.length;
+        options.onOutcomes(lost);
+      }
+      if (pending === 0) finish();
+      else start();
+    });
+    feed();
+  };
+
+  const count = Math.max(1, Math.min(options.workers, queue.length));
+  if (tasks.length === 0) finish();
+  else for (let i = 0; i < count; i++) start();
+  return {
+    done,
+    stop: async () => {
+      stopped = true;
+      finish();
+      await done.catch(() => undefined);
+    },
+  };
+}
