@@ -1,10 +1,12 @@
 import type { ChartDataset } from 'chart.js';
 import type { ParameterEstimate } from '../../core/fit/fit-result';
 import { formatEstimate } from '../../core/report/render-text';
-import type { Report, SurveyReport } from '../../core/report/report';
+import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../../core/report/report';
+import { formatNumber, formatQuantity } from '../../core/units';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
+import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
 import { rankedFits } from './survey-facts';
 
@@ -20,18 +22,6 @@ export function ampereTurnsOf(survey: SurveyReport): { model: string; estimate: 
   return null;
 }
 
-/** Flags per coil from the report's fleet section, when the analyses supplied one. */
-function fleetFlags(report: Report): Map<string, string[]> {
-  const flags = new Map<string, string[]>();
-  const fleet = report.fleet as { coils?: unknown } | undefined;
-  if (fleet && Array.isArray(fleet.coils)) {
-    for (const entry of fleet.coils as { coil?: unknown; flags?: unknown }[]) {
-      if (typeof entry.coil === 'string' && Array.isArray(entry.flags)) flags.set(entry.coil, entry.flags.filter((f): f is string => typeof f === 'string'));
-    }
-  }
-  return flags;
-}
-
 /** Decimal year of an ISO date (2026-07-02 → 2026.5), or null. */
 export function decimalYear(date: string | null): number | null {
   const match = date ? /^(\d{4})-(\d{2})-(\d{2})/.exec(date) : null;
@@ -43,36 +33,68 @@ export function decimalYear(date: string | null): number | null {
   return Number.isFinite(day) ? year + (day - start + 43_200_000) / length : null;
 }
 
+const amperes = (value: number) => formatQuantity(value, 'current', { significant: 4 });
+
 /**
- * Fleet overview for a report with several surveys: one row per survey (coil, date,
- * best model, ampere-turns with interval, verdict, flags) linking to its section, and a
- * history chart of ampere-turns per coil over time. `surveyIds[i]` is survey i's anchor.
+ * Fleet overview for a report with several surveys: the coils (surveys, latest date,
+ * ampere-turn trend per year with interval, reference, flags and the sentences behind
+ * them) when the report has a fleet section; every survey with its best model,
+ * ampere-turns and verdict, linking to its section; and a history chart of ampere-turns
+ * per coil over time. `surveyIds[i]` is survey i's element id.
  */
 export function renderFleetSection(report: Report, surveyIds: readonly string[]): SafeHtml {
-  const flags = fleetFlags(report);
-  const history = historyChart(report.surveys);
-  return html`<section class="rf-fleet" aria-labelledby="rf-fleet-heading"><h2 id="rf-fleet-heading">Fleet: ${report.surveys.length} surveys</h2>
-<table class="rf-table rf-fleet-table"><thead><tr><th scope="col">coil</th><th scope="col">date</th><th scope="col">file</th><th scope="col">best model</th><th scope="col">ampere-turns (95% interval)</th><th scope="col">verdict</th><th scope="col">flags</th></tr></thead>
+  const history = historyChart(report);
+  return html`<section class="rf-fleet" aria-labelledby="rf-fleet-heading"><h2 id="rf-fleet-heading">Fleet: ${report.fleet ? `${report.fleet.coils.length} coils, ` : ''}${report.surveys.length} surveys</h2>
+${report.fleet ? coilsBlock(report.fleet) : ''}
+${history ? chartFigure('rf-fleet-history', 'History: ampere-turns of each coil over time', history) : html`<p class="rf-note">No history chart: no coil has two or more dated surveys with a fitted ampere-turns value.</p>`}
+<h3>Surveys</h3>
+<table class="rf-table rf-fleet-table"><thead><tr><th scope="col">coil</th><th scope="col">date</th><th scope="col">file</th><th scope="col">best model</th><th scope="col">ampere-turns (95% interval)</th><th scope="col">verdict</th></tr></thead>
 <tbody>${report.surveys.map((survey, i) => {
     const at = ampereTurnsOf(survey);
     const shown = at ? formatEstimate(at.estimate) : null;
-    return html`<tr><th scope="row"><a href="${`#${surveyIds[i] ?? ''}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a></th><td>${survey.date ?? '—'}</td><td>${survey.source}</td><td>${survey.best ?? 'none'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})${at && at.model !== survey.best ? ` from ${at.model}` : ''}` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td><td>${(survey.coil ? flags.get(survey.coil) ?? [] : []).join(', ') || '—'}</td></tr>`;
+    return html`<tr><th scope="row" class="rf-nowrap"><a href="${`#${surveyIds[i] ?? ''}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a></th><td class="rf-nowrap">${survey.date ?? '—'}</td><td>${survey.source}</td><td>${survey.best ?? 'none'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})${at && at.model !== survey.best ? ` from ${at.model}` : ''}` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td></tr>`;
   })}</tbody></table>
-${history ? chartFigure('rf-fleet-history', 'History: ampere-turns of each coil over time', history) : html`<p class="rf-note">No history chart: no coil has two or more dated surveys with a fitted ampere-turns value.</p>`}
 </section>`;
 }
 
-function historyChart(surveys: readonly SurveyReport[]): ChartSpec | null {
-  const byCoil = new Map<string, { x: number; value: number; low: number | null; high: number | null }[]>();
-  for (const survey of surveys) {
-    const x = decimalYear(survey.date);
-    const at = ampereTurnsOf(survey);
-    if (survey.coil === null || x === null || !at) continue;
-    const list = byCoil.get(survey.coil) ?? [];
-    list.push({ x, value: at.estimate.value, low: at.estimate.ci95?.[0] ?? null, high: at.estimate.ci95?.[1] ?? null });
-    byCoil.set(survey.coil, list);
+function coilsBlock(fleet: FleetSummary): SafeHtml {
+  const trend = (coil: FleetCoil) => {
+    const perYear = coil.trend.ampereTurnsPerYear;
+    return perYear ? `${formatNumber(perYear.value, 3)} A/yr (${formatNumber(perYear.ci95[0], 3)} to ${formatNumber(perYear.ci95[1], 3)})` : '—';
+  };
+  const reference = (coil: FleetCoil) => (coil.reference ? `${amperes(coil.reference.ampereTurns)} (${coil.reference.kind === 'spec' ? 'label' : 'first survey'})` : '—');
+  return html`<table class="rf-table rf-coils-table"><thead><tr><th scope="col">coil</th><th scope="col">surveys</th><th scope="col">latest</th><th scope="col">model</th><th scope="col">compared with</th><th scope="col">ampere-turn trend</th><th scope="col">flags</th></tr></thead>
+<tbody>${fleet.coils.map((coil) => html`<tr><th scope="row" class="rf-nowrap">${coil.coil}</th><td class="rf-num">${coil.surveys}</td><td class="rf-nowrap">${coil.latest ?? '—'}</td><td>${coil.model ?? '—'}</td><td class="rf-num">${reference(coil)}</td><td class="rf-num">${trend(coil)}</td><td>${coil.flags.length > 0 ? coil.flags.map((flag, i) => html`${i > 0 ? ', ' : ''}<strong class="rf-flag">${flag}</strong>`) : '—'}</td></tr>`)}</tbody></table>
+${fleet.coils.some((coil) => coil.explanations.length > 0) ? html`<ul class="rf-fleet-notes">${fleet.coils.flatMap((coil) => coil.explanations.map((sentence) => html`<li><strong>${coil.coil}</strong>: ${sentence}</li>`))}</ul>` : ''}
+${fleet.unreadable.length > 0 ? html`<p class="rf-note">Files not read: ${fleet.unreadable.map((u, i) => html`${i > 0 ? '; ' : ''}${u.source} (${u.reason})`)}</p>` : ''}
+${(fleet.ungrouped ?? []).length > 0 ? html`<p class="rf-note">Not in any coil's history: ${(fleet.ungrouped ?? []).map((u, i) => html`${i > 0 ? '; ' : ''}${u.source} (${u.reason})`)}</p>` : ''}`;
+}
+
+interface HistoryPoint { readonly x: number; readonly value: number; readonly low: number | null; readonly high: number | null }
+
+/** Ampere-turns per coil over time: from the fleet section when there is one, else from each survey's best fit. */
+function historySeries(report: Report): [string, HistoryPoint[]][] {
+  const byCoil = new Map<string, HistoryPoint[]>();
+  const add = (coil: string, date: string | null, value: number, ci95: readonly [number, number] | null) => {
+    const x = decimalYear(date);
+    if (x === null || !Number.isFinite(value)) return;
+    const list = byCoil.get(coil) ?? [];
+    list.push({ x, value, low: ci95?.[0] ?? null, high: ci95?.[1] ?? null });
+    byCoil.set(coil, list);
+  };
+  if (report.fleet) {
+    for (const coil of report.fleet.coils) for (const entry of coil.history) if (entry.ampereTurns) add(coil.coil, entry.date, entry.ampereTurns.value, entry.ampereTurns.ci95);
+  } else {
+    for (const survey of report.surveys) {
+      const at = ampereTurnsOf(survey);
+      if (survey.coil !== null && at) add(survey.coil, survey.date, at.estimate.value, at.estimate.ci95);
+    }
   }
-  const series = [...byCoil.entries()].filter(([, points]) => points.length >= 2);
+  return [...byCoil.entries()].filter(([, points]) => points.length >= 2);
+}
+
+function historyChart(report: Report): ChartSpec | null {
+  const series = historySeries(report);
   if (series.length === 0) return null;
   const datasets: ChartDataset<'scatter', { x: number; y: number | null }[]>[] = [];
   const legend: LegendItem[] = [];
@@ -84,11 +106,12 @@ function historyChart(surveys: readonly SurveyReport[]): ChartSpec | null {
     legend.push({ label: coil, colour, shape: 'line' });
   });
   const xs = series.flatMap(([, points]) => points.map((p) => p.x));
-  const span = Math.max(Math.max(...xs) - Math.min(...xs), 0.1);
+  const ticks = niceTicks(Math.min(...xs) - 0.05, Math.max(...xs) + 0.05, 6);
+  const step = ticks.length > 1 ? ticks[1]! - ticks[0]! : 0.25;
   const options = baseOptions();
   options.scales = {
-    x: { type: 'linear', min: Math.min(...xs) - span * 0.05, max: Math.max(...xs) + span * 0.05, title: { display: true, text: 'survey date (decimal year)' }, ticks: { format: { useGrouping: false, maximumFractionDigits: 2 } }, grid: { color: palette.grid } },
-    y: { type: 'linear', title: { display: true, text: 'ampere-turns (A), 95% interval bars' }, grid: { color: palette.grid } },
+    x: { type: 'linear', min: Math.floor(Math.min(...xs) / step) * step, max: Math.ceil(Math.max(...xs) / step) * step, title: { display: true, text: 'survey date (decimal year)' }, ticks: { stepSize: step, format: { useGrouping: false, maximumFractionDigits: 2 } }, grid: { color: palette.grid } },
+    y: { type: 'linear', title: { display: true, text: 'ampere-turns (A), bars: 95% interval' }, grid: { color: palette.grid } },
   } as NonNullable<typeof options.scales>;
   return {
     config: { type: 'scatter', data: { datasets }, options },
