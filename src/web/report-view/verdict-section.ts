@@ -35,17 +35,26 @@ export function quantity(value: number, unit: string): string {
 
 /**
  * Threshold distances: per level the best physical model's distance with its 95 %
- * interval, the naive power law's distance and the ratio between them, and the notes.
+ * interval, beside what inverse-square and the fitted power law would say and their
+ * ratios to it; extrapolations are marked; then the notes and the level's source.
  */
 export function thresholdSection(thresholds: readonly ThresholdResult[]): SafeHtml {
   const mm = (value: number) => quantity(value, 'm');
+  const beyond = html`<br><span class="rf-flag">beyond the surveyed range</span>`;
+  const naiveCell = (distance: { value: number } | null | undefined, ratio: number | null | undefined, extrapolated: boolean | undefined, label: string) =>
+    distance ? html`${mm(distance.value)} ${label}${ratio !== null && ratio !== undefined ? html`<br><span class="rf-sub">${formatNumber(ratio, 3)}× the model's</span>` : ''}${extrapolated ? beyond : ''}` : '—';
   return html`<section class="rf-block rf-thresholds"><h3>Where the field falls below a level</h3>
-<p class="rf-sub">On the coil axis, distance from the survey's datum, for the reading's detector type.</p>
-<table class="rf-table"><thead><tr><th scope="col">level</th><th scope="col">model</th><th scope="col">distance (95% interval)</th><th scope="col">naive power law</th><th scope="col">naive ÷ model</th></tr></thead>
+<p class="rf-sub">On the coil axis, from the datum to the field point, compared with the survey's detector type.</p>
+<table class="rf-table"><thead><tr><th scope="col">level</th><th scope="col">coil model: distance (95% interval)</th><th scope="col">inverse square says</th><th scope="col">fitted power law says</th></tr></thead>
 <tbody>${thresholds.map((t) => {
     const distance = t.distance;
-    const naive = t.naive?.distance ?? null;
-    return html`<tr><th scope="row">${formatQuantity(t.level.value, 'field', { significant: 3 })}${t.level.label ? html`<br><span class="rf-sub">${t.level.label}</span>` : ''}</th><td>${t.model}</td><td class="rf-num">${distance ? mm(distance.value) : 'not reached'}${distance?.ci95 ? ` (${mm(distance.ci95[0])} to ${mm(distance.ci95[1])})` : ''}${t.extrapolated ? html` <span class="rf-flag">beyond the surveyed range</span>` : ''}</td><td class="rf-num">${naive ? `${mm(naive.value)} (${t.naive?.model ?? ''})` : '—'}</td><td class="rf-num">${distance && naive && distance.value > 0 ? `${formatNumber(naive.value / distance.value, 3)}×` : '—'}</td></tr>`;
+    const naive = t.naive;
+    const power = t.powerLaw ?? null;
+    const naiveRatio = naive?.ratio ?? (distance && naive?.distance && distance.value > 0 ? naive.distance.value / distance.value : null);
+    return html`<tr><th scope="row">${formatQuantity(t.level.value, 'field', { significant: 3 })}${t.level.label ? html`<br><span class="rf-sub">${t.level.label}</span>` : ''}</th>
+<td class="rf-num">${t.model}: ${distance ? mm(distance.value) : 'not reached'}${distance?.ci95 ? html`<br><span class="rf-sub">${mm(distance.ci95[0])} to ${mm(distance.ci95[1])}${t.intervalMethod === 'monte-carlo' ? ' (Monte Carlo)' : ''}</span>` : ''}${t.extrapolated ? beyond : ''}</td>
+<td class="rf-num">${naiveCell(naive?.distance, naiveRatio, naive?.extrapolated, '')}</td>
+<td class="rf-num">${power ? naiveCell(power.distance, power.ratio, power.extrapolated, `(n = ${formatNumber(power.exponent, 3)})`) : '—'}</td></tr>`;
   })}</tbody></table>
 ${thresholds.flatMap((t) => t.notes).filter((note, i, all) => all.indexOf(note) === i).map((note) => html`<p class="rf-note">${note}</p>`)}
 </section>`;
