@@ -49,7 +49,12 @@ describe('readFitFlags(flags)', () => {
     expectClose(options.fit.instrumentUncertainty!.absolute, 2e-6, { rel: 1e-15 });
     expectClose(options.fit.positionUncertainty!, 5e-4, { rel: 1e-15 });
     // 5 G = 0.5 mT (DOMAIN.md §6)
-    expect(options.thresholds.map((t) => Number(t.toPrecision(12)))).toEqual([5e-4, 5e-4]);
+    expect(options.thresholds.map((t) => Number(t.value.toPrecision(12)))).toEqual([5e-4, 5e-4]);
+  });
+
+  it('readFitFlags() accepts a threshold preset by name (implant-static = 0.5 mT)', () => {
+    // ICNIRP 2009 implant screening line, DOMAIN.md §4.3 / §9 row 58
+    expect(parse('--threshold', 'implant-static').thresholds[0]?.value).toBe(5e-4);
   });
 
   it('readFitFlags() reads --robust, --seed, --json, unit options and the file paths of --spec, --html, --csv', () => {

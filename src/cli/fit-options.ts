@@ -1,4 +1,5 @@
 import type { Command } from 'commander';
+import { parseThresholdLevel, type ThresholdLevel } from '../core/analysis/thresholds/threshold-level';
 import { RingfallError } from '../core/errors';
 import { defaultModels, type FitSurveyOptions } from '../core/fit/fit-survey-options';
 import type { RobustLoss } from '../core/fit/robust-fit';
@@ -15,8 +16,8 @@ export interface FitCommandOptions {
   readonly json: boolean;
   /** `--spec FILE`, or null. */
   readonly spec: string | null;
-  /** `--threshold QTY` levels in T, in the order given. */
-  readonly thresholds: readonly number[];
+  /** `--threshold QTY|PRESET` levels, in the order given. */
+  readonly thresholds: readonly ThresholdLevel[];
   /** `--html FILE`, `--csv FILE`, or null. */
   readonly html: string | null;
   readonly csv: string | null;
@@ -58,9 +59,9 @@ export function addFitOptions(command: Command): Command {
     .option('--robust <loss>', 'robust loss that flags outliers: huber or soft-l1')
     .option('--seed <n>', 'seed of the multi-start (same seed, same report)', '1')
     .option('--spec <file>', 'check against a spec file')
-    .option('--threshold <qty>', 'report where the field falls below this level, e.g. 0.5mT (repeatable)', collect)
+    .option('--threshold <qty|preset>', 'report where the field falls below this level, e.g. 0.5mT or implant-static (repeatable)', collect)
     .option('--html <file>', 'also write a self-contained HTML report')
-    .option('--csv <file>', 'also write the fitted parameters as CSV');
+    .option('--csv <file>', 'also write each reading with every model\'s prediction and residual as CSV');
 }
 
 /**
@@ -86,11 +87,7 @@ export function readFitFlags(flags: FitFlags): FitCommandOptions {
     robust: readRobust(flags.robust),
     seed: readSeed(flags.seed ?? '1'),
   };
-  const thresholds = (flags.threshold ?? []).map((text) => {
-    const level = parseQuantity(text, 'field', '--threshold').value;
-    if (!(level > 0)) throw optionValue('--threshold', text, 'a field level above 0, e.g. 0.5mT');
-    return level;
-  });
+  const thresholds = (flags.threshold ?? []).map((text) => parseThresholdLevel(text));
   return {
     fit,
     import: {

@@ -4,7 +4,7 @@ import { h, replaceChildren, uniqueId } from './dom';
 import { downloadHtmlReport, downloadText } from './downloads';
 import type { PipelineProgress } from './pipeline';
 import { drawCharts, renderFleetSection, renderSurveySection, surveyElementId, type ModelLookup } from './report-view';
-import { reportCsv } from './report-csv';
+import { reportCsv } from '../core/report/report-csv';
 import { toJsonReport } from '../core/report/to-json-report';
 
 Chart.register(...registerables);

@@ -1,21 +1,29 @@
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import type { Command } from 'commander';
+import type { Spec } from '../../core/analysis/spec/spec';
 import { isRingfallError, RingfallError } from '../../core/errors';
-import { fitSurvey, fitSurveyNotes } from '../../core/fit/fit-survey';
-import { buildSurveyReport } from '../../core/report/build-survey-report';
+import { analyseSurvey, unfittedSurveyReport, type SurveyAnalysisSettings } from '../../core/report/analyse-survey';
 import { renderTextReport } from '../../core/report/render-text';
-import type { SurveyReport } from '../../core/report/report';
+import type { Report, SurveyReport } from '../../core/report/report';
+import { reportCsv } from '../../core/report/report-csv';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { importSurveys } from '../../io';
+import { readSpecFile } from '../../io/spec';
+import { renderReportDocument } from '../../web/report-view';
+import { chartLibrarySource } from '../../web/report-view/chart-library-node';
 import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } from '../fit-options';
 import { findSurveyFiles } from '../find-survey-files';
 import type { CommandContext } from '../main';
+import { checksStatus } from '../checks-status';
 
 /**
  * `ringfall fit FILE... [options]` (CONTRACT.md): import every survey in the files (folders
- * are searched), fit each requested model, compare them and print the report — text for
- * people, or the JSON report with --json. A file that cannot be read or imported is named
- * on stderr in one line and the exit status becomes 2; the other files are still reported.
+ * are searched), fit each requested model, compare them, check the spec and find the
+ * threshold distances when asked, and print the report — text for people, or the JSON
+ * report with --json; --html and --csv also write those files. A file that cannot be read
+ * or imported is named on stderr in one line and the exit status becomes 2; the other
+ * files are still reported. Exit 1 when a spec check failed or was inconclusive, or a
+ * threshold level was not reached by the fitted curve.
  */
 export function registerFit(program: Command, context: CommandContext): void {
   addFitOptions(
@@ -23,30 +31,51 @@ export function registerFit(program: Command, context: CommandContext): void {
       .command('fit')
       .description('fit coil models to survey files and print the report')
       .argument('<files...>', 'survey CSV files, or folders to search for them'),
-  ).action((files: string[], flags: FitFlags) => {
+  ).action(async (files: string[], flags: FitFlags) => {
     const options = readFitFlags(flags);
-    refuseUnwired(options);
-    const { reports, problems } = fitFiles(findSurveyFiles(files), options);
+    const specs = options.spec === null ? [] : await readSpecFile(options.spec);
+    const { reports, problems } = fitFiles(findSurveyFiles(files), options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${problem}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;
-    const report = { surveys: reports };
+    const report: Report = { surveys: reports };
+    writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
+    context.setExitCode(checksStatus(report));
   });
 }
 
+/** --html and --csv: write the self-contained HTML report and the per-reading CSV. */
+export function writeSideFiles(report: Report, options: Pick<FitCommandOptions, 'html' | 'csv'>): void {
+  if (options.html !== null) {
+    const first = report.surveys[0];
+    const title = report.surveys.length === 1 ? `ringfall report — ${first?.coil ?? first?.source ?? ''}` : `ringfall report — ${report.surveys.length} surveys`;
+    writeOutput(options.html, '--html', renderReportDocument(report, { chartLibrary: chartLibrarySource(), title }));
+  }
+  if (options.csv !== null) writeOutput(options.csv, '--csv', reportCsv(report));
+}
+
+function writeOutput(path: string, option: string, text: string): void {
+  try {
+    writeFileSync(path, text, 'utf8');
+  } catch (cause) {
+    throw new RingfallError('OUTPUT_UNWRITABLE', `${option}: cannot write "${path}": ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}. Choose a folder that exists and can be written.`, { value: path, cause });
+  }
+}
+
 /**
- * Import and fit every survey of the given files: one SurveyReport per survey (surveys
+ * Import and analyse every survey of the given files: one SurveyReport per survey (surveys
  * with too few readings get a report with no fits and a warning saying why; rows that
  * belong to no survey are named in the first report's warnings), and one message per file
  * that could not be read or imported.
  */
-export function fitFiles(paths: readonly string[], options: FitCommandOptions): { reports: SurveyReport[]; problems: string[] } {
+export function fitFiles(paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = []): { reports: SurveyReport[]; problems: string[] } {
+  const settings: SurveyAnalysisSettings = { fit: options.fit, specs, thresholds: options.thresholds };
   const reports: SurveyReport[] = [];
   const problems: string[] = [];
   for (const path of paths) {
     try {
-      reports.push(...fitFile(path, options));
+      reports.push(...fitFile(path, options, settings));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       problems.push(error.message);
@@ -55,7 +84,7 @@ export function fitFiles(paths: readonly string[], options: FitCommandOptions): 
   return { reports, problems };
 }
 
-function fitFile(path: string, options: FitCommandOptions): SurveyReport[] {
+function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings): SurveyReport[] {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
@@ -63,28 +92,12 @@ function fitFile(path: string, options: FitCommandOptions): SurveyReport[] {
     throw new RingfallError('INPUT_UNREADABLE', `Cannot read "${path}": ${(cause as Error).message}. Check the path and its permissions.`, { value: path, cause });
   }
   const imported = importSurveys(text, { source: path, ...options.import });
+  const notes = imported.detection.notes;
+  const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings, notes));
+  for (const skipped of imported.skipped) reports.push(unfittedSurveyReport(skipped.survey, skipped.reason, notes));
   const unassigned = imported.unassigned.map((row) => `Line ${row.line} belongs to no survey and was not used: ${row.reason}`);
-  const reports = imported.surveys.map((survey) =>
-    buildSurveyReport(survey, fitSurvey(survey, options.fit), { notes: [...imported.detection.notes, ...fitSurveyNotes(survey, options.fit)] }),
-  );
-  for (const skipped of imported.skipped) {
-    reports.push(buildSurveyReport(skipped.survey, [], { warnings: [`Not fitted: ${skipped.reason}`], notes: imported.detection.notes }));
-  }
   if (unassigned.length > 0 && reports[0] !== undefined) {
     reports[0] = { ...reports[0], warnings: [...unassigned, ...reports[0].warnings] };
   }
   return reports;
-}
-
-/** --spec, --threshold, --html and --csv are parsed but not yet acted on: say so rather than ignore them. */
-function refuseUnwired(options: FitCommandOptions): void {
-  const given = [
-    options.spec !== null ? '--spec' : null,
-    options.thresholds.length > 0 ? '--threshold' : null,
-    options.html !== null ? '--html' : null,
-    options.csv !== null ? '--csv' : null,
-  ].filter((flag) => flag !== null);
-  if (given.length > 0) {
-    throw new RingfallError('OPTION_NOT_READY', `${given.join(', ')}: not available in this version of ringfall fit yet. Run without ${given.length === 1 ? 'it' : 'them'}.`, { value: given });
-  }
 }

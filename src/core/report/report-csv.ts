@@ -1,4 +1,4 @@
-import type { Report } from '../core/report/report';
+import type { Report } from './report';
 
 /**
  * A text cell made safe for spreadsheets: a cell starting with = + - @ (or tab / CR)

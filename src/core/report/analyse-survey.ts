@@ -1,0 +1,48 @@
+import type { Spec } from '../analysis/spec/spec';
+import { selectSpec } from '../analysis/spec/select-spec';
+import { verifySpec } from '../analysis/spec/verify-spec';
+import { thresholdCautions } from '../analysis/thresholds/threshold-cautions';
+import { thresholdDistances } from '../analysis/thresholds/threshold-distances';
+import type { ThresholdLevel } from '../analysis/thresholds/threshold-level';
+import { fitSurvey, fitSurveyNotes } from '../fit/fit-survey';
+import type { FitSurveyOptions } from '../fit/fit-survey-options';
+import type { ModelId } from '../models';
+import type { Survey } from '../survey/survey';
+import { buildSurveyReport } from './build-survey-report';
+import type { SurveyReport } from './report';
+
+/** What to do with each survey: the fit options, the specs to check against, the levels to find distances for. */
+export interface SurveyAnalysisSettings {
+  readonly fit: FitSurveyOptions & { readonly models: readonly ModelId[] };
+  /** Parsed spec file(s); the one naming the survey's coil (else the one naming none) applies. */
+  readonly specs: readonly Spec[];
+  readonly thresholds: readonly ThresholdLevel[];
+}
+
+/**
+ * The whole per-survey pipeline, shared by `ringfall fit`, `ringfall batch` and the web
+ * page: pick the spec for the coil (its model is fitted too, CONTRACT.md), fit every model
+ * (fitSurvey), check the spec (verifySpec), find the threshold distances with their
+ * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport.
+ *
+ * @param importNotes the importer's file-level notes (units read, columns ignored, …)
+ * @throws RingfallError from fitSurvey for settings this survey cannot be fitted with
+ */
+export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings, importNotes: readonly string[] = []): SurveyReport {
+  const spec = selectSpec(settings.specs, survey.coil);
+  const models = spec && !settings.fit.models.includes(spec.model) ? [...settings.fit.models, spec.model] : settings.fit.models;
+  const options: FitSurveyOptions & { models: readonly ModelId[] } = { ...settings.fit, models };
+  const fits = fitSurvey(survey, options);
+  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
+  return buildSurveyReport(survey, fits, {
+    verdict: spec ? verifySpec(spec, fits, survey.readingType) : null,
+    thresholds,
+    cautions: thresholds.length > 0 ? thresholdCautions : [],
+    notes: [...importNotes, ...fitSurveyNotes(survey, options)],
+  });
+}
+
+/** The report of a survey that could not be fitted, saying why (nothing is dropped silently). */
+export function unfittedSurveyReport(survey: Survey, reason: string, importNotes: readonly string[] = []): SurveyReport {
+  return buildSurveyReport(survey, [], { warnings: [`Not fitted: ${reason}`], notes: importNotes });
+}
