@@ -4,6 +4,7 @@ import { fitEffectiveVariance } from './effective-variance';
 import { distanceSlope, fieldModelProblem } from './field-model-problem';
 import type { FitSurveyOptions } from './fit-survey-options';
 import type { LeastSquaresOptions, LeastSquaresSolution } from './least-squares-types';
+import { fitLeastSquares } from './least-squares';
 import { fitMultiStart } from './multi-start-fit';
 import { fitRobust } from './robust-fit';
 
@@ -62,6 +63,11 @@ export function searchModelFit(
   const base = leastSquaresOptions(model, points, initial, fixed, options);
   const weighted: LeastSquaresOptions = readingUncertainty === null ? base : { ...base, standardUncertainty: readingUncertainty };
   let solution = fitMultiStart(problem, weighted, { seed, starts: options.starts ?? 8 }).best;
+  const canonical = Float64Array.from(solution.params);
+  if (model.canonicalParameters?.(canonical, points, fixed)) {
+    // the mirror-image optimum (same χ²): re-solve from it so the Jacobian and covariance match
+    solution = fitLeastSquares(problem, { ...weighted, initial: canonical });
+  }
   let sigma = readingUncertainty;
   const pinned = solution.freeIndices.filter((j) => solution.atBound[j] === true);
   const refit: LeastSquaresOptions = pinned.length === 0 ? base : { ...base, fixed: fixed.map((f, j) => f || pinned.includes(j)) };
@@ -107,16 +113,23 @@ function leastSquaresOptions(
   // A power law with a free offset can drift to the exponential limit (δ, n → ∞ with n/δ
   // fixed), where χ² keeps falling without end; a descriptive fit is kept in a box:
   // offset at most the survey's reach, exponent at most 12. Ending on it is reported.
+  // Every model: the sensing point stays in front of the datum at the nearest reading
+  // (d + probeOffset ≥ −5 % of the reach, a margin for a misplaced datum that also keeps
+  // a zero start off the bound) and the offset is at most the survey's reach. Without this
+  // a far-field-only survey can "fit" with the probe far behind the coil (DOMAIN.md §3.1:
+  // the offset is a recess plus a housing, millimetres).
+  let nearest = Infinity;
+  for (let i = 0; i < points.n; i++) nearest = Math.min(nearest, points.distance[i]!);
   const upper = model.parameters.map((p) => {
-    if (model.physical) return p.upper;
     if (p.name === 'probeOffset') return Math.min(p.upper, reach);
-    if (p.name === 'exponent') return Math.min(p.upper, 12);
+    if (!model.physical && p.name === 'exponent') return Math.min(p.upper, 12);
     return p.upper;
   });
+  const lower = model.parameters.map((p) => (p.name === 'probeOffset' && Number.isFinite(nearest) ? Math.max(p.lower, -nearest - 0.05 * reach) : p.lower));
   return {
     initial,
     fixed,
-    lower: model.parameters.map((p) => p.lower),
+    lower,
     upper,
     typicalSize,
     ...(options.signal === undefined ? {} : { signal: options.signal }),

@@ -63,6 +63,12 @@ export interface FieldModel {
   /** Data-driven starting values (SI, order of `parameters`), DOMAIN §1.1 heuristics. */
   initialGuess(points: SurveyPoints): Float64Array;
   /**
+   * For a model whose readings cannot tell two parameter vectors apart (a rectangle on
+   * its axis: width and height swap), rewrite `params` in place to the canonical one and
+   * return true when it changed anything. `fixed[j]` marks parameters the user holds.
+   */
+  canonicalParameters?(params: Float64Array, points: SurveyPoints, fixed: readonly boolean[]): boolean;
+  /**
    * Field of the source alone (no background) at one survey position, with the model's
    * distance datum and probe offset applied: out[0] = axial component B_z, out[1] = radial
    * component B_ρ (T). Descriptive power laws have no direction: their value goes in

@@ -81,6 +81,18 @@ export const rectangleModel: FieldModel = {
       }
     }
   },
+  /**
+   * On the axis the field is symmetric in width and height (DOMAIN.md §1.6), so a survey
+   * with every reading on the axis reports the longer side as width.
+   */
+  canonicalParameters(params: Float64Array, points: SurveyPoints, fixed: readonly boolean[]): boolean {
+    for (let i = 0; i < points.n; i++) if (points.radial[i] !== 0) return false;
+    if (fixed[0] || fixed[1] || fixed[2] || !(params[1]! < params[2]!)) return false;
+    const width = params[1]!;
+    params[1] = params[2]!;
+    params[2] = width;
+    return true;
+  },
   initialGuess(points: SurveyPoints): Float64Array {
     return scanSize(rectangleModel, points, (size) => Float64Array.of(1, size, size, 0, 0), 0);
   },
