@@ -59,7 +59,14 @@ function renderSurvey(survey: SurveyReport): string {
   if (survey.verdict) lines.push(...verdictLines(survey.verdict), '');
   if (survey.thresholds.length > 0) lines.push(...thresholdLines(survey.thresholds), '');
 
-  const warnings = [...survey.warnings, ...survey.fits.flatMap((f) => f.warnings.map((w) => `${f.model}: ${w}`))];
+  // The survey's and the best model's warnings in full; the other models' are counted
+  // here and listed in full in --json and the HTML report (a terminal report stays readable).
+  const bestFit = survey.fits.find((f) => f.model === survey.best);
+  const warnings = [...survey.warnings, ...(bestFit?.warnings ?? []).map((w) => `${bestFit!.model}: ${w}`)];
+  const others = survey.fits.filter((f) => f !== bestFit && f.warnings.length > 0);
+  if (others.length > 0) {
+    warnings.push(`Other models: ${others.map((f) => `${f.model} ${f.warnings.length}`).join(', ')} warning(s); --json or --html lists them.`);
+  }
   if (warnings.length > 0) {
     lines.push('Warnings');
     for (const warning of warnings) lines.push(...wrap(`- ${warning}`, 2, 4));
