@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
-import { RingfallError } from '../../core/errors';
-import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment } from '../../core/models';
+import { isRingfallError, RingfallError } from '../../core/errors';
+import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, predictField } from '../../core/models';
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { CommandContext } from '../main';
@@ -92,19 +92,19 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
   }
   const distance = parseQuantity(flags.at, 'length', '--at').value;
   const radial = parseQuantity(flags.radial, 'length', '--radial').value;
-  const components = new Float64Array(2);
-  model.components!(params, distance, radial, components);
-  const axial = components[0]!;
-  const radialComponent = components[1]!;
-  const background = params[model.parameters.findIndex((p) => p.name === 'background')] ?? 0;
-  const field = Math.hypot(axial, radialComponent) + background;
-  if (![axial, radialComponent, field].every(Number.isFinite)) {
+  const assigned = Object.fromEntries(model.parameters.map((p, j) => [p.name, params[j]!]));
+  let prediction;
+  try {
+    prediction = predictField(model.id, assigned, { distance, radial });
+  } catch (error) {
+    if (!isRingfallError(error, 'PREDICT_SINGULAR')) throw error;
     throw new RingfallError(
       'PREDICT_SINGULAR',
       `Point: the ${model.id} field is undefined at ${flags.at} along the axis, ${flags.radial} off it (on the winding, or at the source itself). Move the point off the winding.`,
-      { value: [distance, radial], where: '--at' },
+      { value: [distance, radial], where: '--at', cause: error },
     );
   }
+  const { field, axial, radial: radialComponent } = prediction;
   return { model, params, distance, radial, field, axial, radialComponent };
 }
 
