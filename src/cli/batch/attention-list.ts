@@ -37,7 +37,7 @@ const severity = {
  * by the number of reasons, then by the fastest relative decline of ampere-turns, then
  * in summary order (stable, so the list is deterministic).
  */
-export function attentionList(rows: readonly FleetRow[], unreadable: readonly UnreadableEntry[]): AttentionItem[] {
+export function attentionList(rows: readonly FleetRow[], unreadable: readonly Pick<UnreadableEntry, 'source' | 'reason'>[]): AttentionItem[] {
   const items: { item: AttentionItem; decline: number; order: number }[] = [];
   rows.forEach((row, order) => {
     const reasons: { text: string; severity: number; evidence: readonly string[] }[] = [];

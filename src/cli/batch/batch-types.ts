@@ -14,6 +14,8 @@ export interface FileTask {
 export interface UnreadableEntry {
   readonly source: string;
   readonly reason: string;
+  /** Stable code for programs: the RingfallError code (IMPORT_…, FIT_…), or a BATCH_… / SURVEY_… code of the batch. */
+  readonly code: string;
 }
 
 /** What became of one file: its survey reports in file order, and everything that could not be used. */

@@ -15,7 +15,7 @@ export function fitChunk(files: readonly FileTask[], settings: BatchSettings): F
       return fitSurveyFile(file, settings);
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);
-      return failedOutcome(file, `internal error while fitting this file (${message})`);
+      return failedOutcome(file, 'BATCH_INTERNAL_ERROR', `internal error while fitting this file (${message})`);
     }
   });
 }

@@ -28,9 +28,9 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   try {
     imported = importSurveys(readFileSync(source, 'utf8'), { source, ...settings.import });
   } catch (error) {
-    const reason = isRingfallError(error) ? error.message : readFailure(error);
-    if (reason === null) throw error;
-    return { index: task.index, source, reports: [], unreadable: [{ source, reason }] };
+    const entry = isRingfallError(error) ? { source, reason: error.message, code: error.code } : readFailure(source, error);
+    if (entry === null) throw error;
+    return { index: task.index, source, reports: [], unreadable: [entry] };
   }
   const reports: SurveyReport[] = [];
   for (const survey of imported.surveys) {
@@ -38,17 +38,17 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
       reports.push(reportSurvey(survey, imported.detection.notes, settings));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
-      unreadable.push({ source: `${source} (${groupLabel(survey)})`, reason: error.message });
+      unreadable.push({ source: `${source} (${groupLabel(survey)})`, reason: error.message, code: error.code });
     }
   }
   for (const skipped of imported.skipped) {
-    unreadable.push({ source: `${source} (${groupLabel(skipped.survey)})`, reason: `Not fitted: ${skipped.reason}` });
+    unreadable.push({ source: `${source} (${groupLabel(skipped.survey)})`, reason: `Not fitted: ${skipped.reason}`, code: 'SURVEY_TOO_FEW_READINGS' });
   }
-  const unassigned = imported.unassigned.map((row) => `Line ${row.line} belongs to no survey and was not used: ${row.reason}`);
+  const unassigned = imported.unassigned.map((row) => ({ text: `Line ${row.line} belongs to no survey and was not used: ${row.reason}`, code: row.code ?? 'ROW_UNASSIGNED' }));
   if (unassigned.length > 0 && reports[0] !== undefined) {
-    reports[0] = { ...reports[0], warnings: [...unassigned, ...reports[0].warnings] };
-  } else if (unassigned.length > 0) {
-    unreadable.push(...unassigned.map((reason) => ({ source, reason })));
+    reports[0] = { ...reports[0], warnings: [...unassigned.map((row) => row.text), ...reports[0].warnings] };
+  } else {
+    unreadable.push(...unassigned.map((row) => ({ source, reason: row.text, code: row.code })));
   }
   return { index: task.index, source, reports, unreadable };
 }
@@ -73,9 +73,9 @@ function groupLabel(survey: Survey): string {
   return [survey.coil === null ? 'no coil id' : `coil ${survey.coil}`, survey.date ?? 'undated'].join(', ');
 }
 
-/** The message for a file the system could not read (missing, a folder, no permission), or null for anything else. */
-function readFailure(error: unknown): string | null {
+/** The entry for a file the system could not read (gone, a folder, no permission), or null for any other error. */
+function readFailure(source: string, error: unknown): UnreadableEntry | null {
   const code = (error as NodeJS.ErrnoException | null)?.code;
   if (typeof code !== 'string' || !/^E[A-Z]+$/.test(code)) return null;
-  return `Cannot read the file: ${code} (${(error as Error).message}). Check that it exists and can be read.`;
+  return { source, code: 'INPUT_UNREADABLE', reason: `Cannot read the file: ${code} (${(error as Error).message}). Check that it exists and can be read.` };
 }

@@ -36,8 +36,7 @@ export function renderFleetSummary(report: Report, coverage: BatchCoverage): str
     unreadable.length > 0 ? `${plural(unreadable.length, 'file or part', 'files or parts')} could not be used` : '',
   ].filter((text) => text !== '');
   if (extra.length > 0) lines.push(`  ${extra.join('; ')}`);
-  lines.push('');
-  for (const row of rows) lines.push(...rowLines(row));
+  for (const row of rows) lines.push(...(row === rows[0] ? [''] : []), ...rowLines(row));
 
   const attention = attentionList(rows, unreadable);
   lines.push('', 'What needs attention first');

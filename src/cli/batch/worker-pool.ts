@@ -96,7 +96,7 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
       const lost: FileOutcome[] = [];
       for (const chunk of inFlight.values()) {
         if (chunk.retry) {
-          lost.push(...chunk.files.map((file) => failedOutcome(file, `the worker fitting this file stopped (${reason})`)));
+          lost.push(...chunk.files.map((file) => failedOutcome(file, 'BATCH_WORKER_STOPPED', `the worker fitting this file stopped (${reason})`)));
         } else {
           queue.unshift(...chunk.files.map((file) => ({ files: [file], retry: true })));
         }
