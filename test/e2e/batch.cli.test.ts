@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeFleet } from '../../bench/make-fleet';
+import { launchBrowser, outsideRequests } from './support/browser';
 
 const root = join(import.meta.dirname, '..', '..');
 const spec = 'sample-data/specs/all-coils.spec.json';
@@ -122,6 +123,22 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
       expect(html).not.toMatch(/<script[^>]+src=|<link[^>]+href="http/);
     }
     expect(index).toContain('no-field-unit.csv');
+  });
+
+  it('batch --out pages open offline in Chromium: the index links to a coil page that draws its charts, with no console error and no outside request', async () => {
+    const browser = await launchBrowser();
+    try {
+      const page = await browser.newPage();
+      await page.goto(`file://${join(out, 'index.html')}`);
+      await expect(page.locator('h1').innerText()).resolves.toBe('Fleet summary');
+      await page.getByRole('link', { name: 'QA-107' }).click();
+      await page.waitForURL(/qa-107\.html$/);
+      await page.waitForFunction(() => document.querySelectorAll('canvas').length >= 2 && [...document.querySelectorAll('canvas')].every((c) => (window as unknown as { Chart: { getChart(c: HTMLCanvasElement): unknown } }).Chart.getChart(c)));
+      expect(browser.errors).toEqual([]);
+      expect(outsideRequests(browser.requests)).toEqual([]);
+    } finally {
+      await browser.close();
+    }
   });
 
   it('batch output is the same byte for byte with 1 worker as with 2 (JSON and text)', () => {

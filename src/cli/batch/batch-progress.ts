@@ -27,7 +27,8 @@ const barRedrawMs = 100;
 /**
  * Progress for `ringfall batch` (files done, rate, time left). On a terminal: one bar
  * redrawn in place with "\r"; otherwise one plain line every `intervalSeconds` (2 s), so
- * logs stay readable. Time left = files left / mean rate so far. Writes nothing to stdout.
+ * logs stay readable. Time left = files left / rate since the first finished chunk (worker
+ * start-up left out). Writes nothing to stdout.
  */
 export function createBatchProgress(stream: ProgressStream, total: number, workers: number, options: BatchProgressOptions = {}): BatchProgress {
   const now = options.now ?? (() => performance.now());
@@ -38,19 +39,24 @@ export function createBatchProgress(stream: ProgressStream, total: number, worke
   let barShown = false;
   stream.write(`ringfall batch: ${count(total, 'survey file')} on ${count(workers, 'worker')}\n`);
 
+  // The rate is measured from the first finished chunk, so worker start-up does not inflate the time left.
+  let first: { at: number; done: number } | null = null;
   const figures = (done: number) => {
-    const seconds = (now() - started) / 1000;
-    const rate = seconds > 0 ? done / seconds : 0;
+    const at = now();
+    const seconds = (at - started) / 1000;
+    const since = first === null ? 0 : (at - first.at) / 1000;
+    const rate = first !== null && since > 0 ? (done - first.done) / since : 0;
     const left = rate > 0 ? (total - done) / rate : null;
     return { seconds, rate, left };
   };
   return {
     update(done) {
       const at = now();
+      first ??= { at, done };
       if (tty) {
         if (at - lastDraw < barRedrawMs && done < total) return;
         lastDraw = at;
-        stream.write(`\r${bar(done, total, figures(done), stream.columns ?? 80)}`);
+        stream.write(`\r${bar(done, total, figures(done), stream.columns || 80)}`);
         barShown = true;
       } else if (at - lastDraw >= interval) {
         lastDraw = at;
@@ -60,7 +66,8 @@ export function createBatchProgress(stream: ProgressStream, total: number, worke
     },
     finish(done, interrupted) {
       if (barShown) stream.write('\r\x1b[K');
-      const { seconds, rate } = figures(done);
+      const seconds = (now() - started) / 1000;
+      const rate = seconds > 0 ? done / seconds : 0;
       stream.write(interrupted
         ? `ringfall batch: stopped after ${done} of ${total} files (${formatSeconds(seconds)}); the summary covers those only.\n`
         : `ringfall batch: ${count(done, 'file')} in ${formatSeconds(seconds)} (${formatRate(rate)})\n`);
@@ -69,7 +76,7 @@ export function createBatchProgress(stream: ProgressStream, total: number, worke
 }
 
 function bar(done: number, total: number, figures: { rate: number; left: number | null }, columns: number): string {
-  const text = ` ${done}/${total} files · ${formatRate(figures.rate)} · ${figures.left === null ? '…' : `${formatSeconds(figures.left)} left`}`;
+  const text = ` ${done}/${total} files · ${figures.rate > 0 ? formatRate(figures.rate) : '… files/s'} · ${figures.left === null ? '…' : `${formatSeconds(figures.left)} left`}`;
   const width = Math.max(10, Math.min(40, columns - text.length - 3));
   const filled = total > 0 ? Math.round((done / total) * width) : width;
   return `[${'█'.repeat(filled)}${'░'.repeat(width - filled)}]${text}\x1b[K`;
