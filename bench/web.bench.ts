@@ -9,7 +9,7 @@ import { launchBrowser, startWebServer } from '../test/e2e/support/browser';
 
 const targets: readonly { readings: number; targetMs: number; runs: number }[] = [
   { readings: 1_000, targetMs: 300, runs: 7 },
-  { readings: 100_000, targetMs: 3_000, runs: 3 },
+  { readings: 100_000, targetMs: 3_000, runs: 1 },
 ];
 
 /** A loop survey (120 A, 45 mm, 3 mm probe recess, DOMAIN.md §1.1) with seeded ±1 % noise, 0–200 mm. */
@@ -42,6 +42,7 @@ try {
   await page.waitForSelector('#report-body[data-report-count]', { timeout: 60_000 });
   for (const { readings, targetMs, runs } of targets) {
     const times: number[] = [];
+    const workerTimes: number[] = [];
     for (let run = 0; run < runs; run++) {
       const text = surveyText(readings, 1000 + run);
       const elapsed = await page.evaluate(async ({ text, name }) => {
@@ -55,17 +56,19 @@ try {
         document.querySelector('#drop-zone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
         // no named inner functions here: tsx would wrap them in a helper the page lacks
         while (!(body.getAttribute('data-report-count') !== before && body.getAttribute('data-state') === 'ready')) {
-          await new Promise((resolve) => requestAnimationFrame(resolve));
+          if (performance.now() - started > 300_000) return { total: Number.NaN, worker: Number.NaN };
+          await new Promise((resolve) => setTimeout(resolve, 5));
         }
-        return performance.now() - started;
+        return { total: performance.now() - started, worker: Number(body.getAttribute('data-pipeline-ms')) };
       }, { text, name: `bench-${readings}.csv` });
-      times.push(elapsed);
+      times.push(elapsed.total);
+      workerTimes.push(elapsed.worker);
     }
-    times.sort((a, b) => a - b);
-    const median = times[Math.floor(times.length / 2)]!;
+    const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
     process.stdout.write(
-      `drop → report, ${readings.toLocaleString('en')} readings: median ${median.toFixed(0)} ms ` +
-        `(runs: ${times.map((t) => t.toFixed(0)).join(', ')}); target ${targetMs} ms; ratio ${(median / targetMs).toFixed(2)}\n`,
+      `drop → report, ${readings.toLocaleString('en')} readings: median ${median(times).toFixed(0)} ms ` +
+        `(runs: ${times.map((t) => t.toFixed(0)).join(', ')}), of which import + fit in the worker ${median(workerTimes).toFixed(0)} ms; ` +
+        `target ${targetMs} ms; ratio ${(median(times) / targetMs).toFixed(2)}\n`,
     );
   }
 } finally {

@@ -49,6 +49,8 @@ export const reportStyles = `
 .rf-verdict { border-left: 6px solid var(--rf-undecided); padding: .5rem .8rem; background: var(--rf-wash); }
 .rf-verdict.rf-status-pass { border-left-color: var(--rf-pass); }
 .rf-verdict.rf-status-fail { border-left-color: var(--rf-fail); }
+.rf-checks .rf-check tr:first-child th, .rf-checks .rf-check tr:first-child td { border-bottom: none; padding-bottom: 0; }
+.rf-evidence td { color: var(--rf-muted); font-size: .85rem; padding-left: 1.2rem; }
 .rf-flag { color: var(--rf-undecided); font-size: .8rem; font-weight: 600; }
 .rf-warnings { border-left: 4px solid var(--rf-undecided); padding-left: .7rem; }
 .rf-cautions { border: 1px dashed var(--rf-muted); padding: .5rem .8rem; font-size: .9rem; }

@@ -13,8 +13,9 @@ export function verdictSection(verdict: Verdict): SafeHtml {
   return html`<section class="${`rf-block rf-verdict rf-status-${verdict.status}`}"><h3>Verdict: <span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span> — the coil ${statusWords[verdict.status]}</h3>
 ${verdict.findings.length > 0 ? html`<p class="rf-findings">Findings: ${verdict.findings.map((f, i) => html`${i > 0 ? ', ' : ''}<strong>${f}</strong>`)}</p>` : ''}
 ${verdict.explanations.map((sentence) => html`<p>${sentence}</p>`)}
-${verdict.checks.length > 0 ? html`<table class="rf-table"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th><th scope="col">evidence</th></tr></thead>
-<tbody>${verdict.checks.map((check) => html`<tr><th scope="row">${check.what}</th><td><span class="${`rf-status rf-status-${check.status}`}">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? ` (${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)})` : ''}</td><td>${check.evidence}</td></tr>`)}</tbody></table>` : ''}
+${verdict.checks.length > 0 ? html`<table class="rf-table rf-checks"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th></tr></thead>
+${verdict.checks.map((check) => html`<tbody class="rf-check"><tr><th scope="row">${check.what}</th><td><span class="${`rf-status rf-status-${check.status}`}">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? html`<br><span class="rf-sub">${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)}</span>` : ''}</td></tr>
+<tr class="rf-evidence"><td colspan="4">${check.evidence}</td></tr></tbody>`)}</table>` : ''}
 </section>`;
 }
 
