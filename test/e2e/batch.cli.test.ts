@@ -141,6 +141,14 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     }
   });
 
+  it('batch fits a survey exactly as ringfall fit does (same seed and options, whatever file or worker it lands in)', () => {
+    const file = 'sample-data/qa-107-2026-03-10-degraded.csv';
+    const alone = (JSON.parse(ringfall('fit', file, '--json').stdout) as { surveys: Record<string, unknown>[] }).surveys[0]!;
+    const inBatch = (JSON.parse(json.stdout) as { surveys: Record<string, unknown>[] }).surveys.find((s) => s['source'] === file)!;
+    // the spec of QA-107 names the loop, one of the default models, so the same models are fitted
+    for (const key of ['fits', 'best', 'comparison', 'readings', 'notes']) expect(JSON.stringify(inBatch[key]), key).toBe(JSON.stringify(alone[key]));
+  });
+
   it('batch output is the same byte for byte with 1 worker as with 2 (JSON and text)', () => {
     const one = ringfall('batch', 'sample-data', '--spec', spec, '--json', '--workers', '1');
     expect(one.stdout).toBe(json.stdout);
