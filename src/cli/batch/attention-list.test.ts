@@ -55,6 +55,13 @@ describe('attentionList()', () => {
     expect(items[0]!.evidence).toEqual(['first verdict sentence.', 'degrading: evidence for BOTH.', 'second verdict sentence.']);
   });
 
+  it('attentionList() names a threshold level the fitted curve never reaches (a reason `fit` exits 1 for), with the analysis\'s sentence', () => {
+    const base = row('TH-1', []);
+    const threshold = { level: { value: 100, unit: 'T' as const }, model: 'loop' as const, distance: null, extrapolated: false, naive: null, notes: ['The fitted loop field stays below 100 T everywhere.', 'On the coil axis.'] };
+    const items = attentionList([{ ...base, latest: { ...base.latest, thresholds: [threshold] } }], []);
+    expect(items).toMatchObject([{ subject: 'TH-1', reasons: ['a threshold level was not found on the fitted curve'], evidence: ['The fitted loop field stays below 100 T everywhere.'] }]);
+  });
+
   it('attentionList() of a healthy fleet with no unreadable file is empty', () => {
     expect(attentionList([row('OK-1', []), row('OK-2', [], null, 3)], [])).toEqual([]);
   });

@@ -18,8 +18,8 @@ export interface AttentionItem {
  * Severity of each reason, highest first. A coil that fails its label now is out of spec
  * in service; a geometry change means the unit on the bench is not the one on record
  * (swapped or mislabeled); a degrading trend is beyond tolerance but found by the trend;
- * a file that could not be used leaves its coil unchecked; an inconclusive check or an
- * unfitted survey needs another measurement before anything can be said. Our own ranking (common practice: act on failures before trends before gaps).
+ * a file that could not be used leaves its coil unchecked; an inconclusive check, a
+ * threshold not found or an unfitted survey needs another look before anything can be said. Our own ranking (common practice: act on failures before trends before gaps).
  */
 const severity = {
   failedSpec: 5,
@@ -32,7 +32,8 @@ const severity = {
 
 /**
  * What needs attention first: every coil (or survey without a coil id) with a failed
- * spec, a history flag, an inconclusive spec check or no converged model, and one item
+ * spec, a history flag, an inconclusive spec check, a threshold level not found on its
+ * fitted curve or no converged model — the reasons `fit` and `batch` exit 1 for — and one item
  * for the files or parts that could not be used; ordered by the most severe reason, then
  * by the number of reasons, then by the fastest relative decline of ampere-turns, then
  * in summary order (stable, so the list is deterministic).
@@ -61,6 +62,10 @@ export function attentionList(rows: readonly FleetRow[], unreadable: readonly Pi
     }
     if (verdict?.status === 'inconclusive') {
       reasons.push({ text: 'spec check inconclusive', severity: severity.inconclusive, evidence: verdict.explanations });
+    }
+    const missing = row.latest.thresholds.filter((t) => t.distance === null);
+    if (missing.length > 0) {
+      reasons.push({ text: `${missing.length === 1 ? 'a threshold level was' : `${missing.length} threshold levels were`} not found on the fitted curve`, severity: severity.notFitted, evidence: missing.flatMap((t) => t.notes.slice(0, 1)) });
     }
     if (row.latest.best === null) {
       reasons.push({ text: 'no model converged on the latest survey', severity: severity.notFitted, evidence: row.latest.warnings });

@@ -1,21 +1,15 @@
-import type { Spec } from '../../core/analysis/spec/spec';
-import type { ThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
-import type { FitSurveyOptions } from '../../core/fit/fit-survey-options';
-import type { ModelId } from '../../core/models';
+import type { SurveyAnalysisSettings } from '../../core/report/analyse-survey';
 
 /**
  * Everything a batch worker needs to turn a survey file into reports, parsed and checked
- * once on the main thread and sent to each worker as `workerData` (plain data only).
+ * once on the main thread and sent to each worker as `workerData` (plain data only): the
+ * per-survey analysis settings shared with `ringfall fit` (fit options without an abort
+ * signal — a stopped batch terminates its workers —, specs, threshold levels), the import
+ * options, and whether to keep the per-reading points.
  */
-export interface BatchSettings {
-  /** For fitSurvey (no abort signal: a stopped batch terminates its workers). */
-  readonly fit: Omit<FitSurveyOptions, 'signal'> & { readonly models: readonly ModelId[] };
+export interface BatchSettings extends SurveyAnalysisSettings {
   /** For importSurveys: units of headers that state none. */
   readonly import: { readonly fieldUnit?: string; readonly distanceUnit?: string };
-  /** Parsed `--spec` file; empty when none. */
-  readonly specs: readonly Spec[];
-  /** `--threshold` levels; empty when none. */
-  readonly thresholds: readonly ThresholdLevel[];
   /**
    * Keep each fit's per-reading points (needed for HTML charts only). Without `--out` they
    * are dropped in the worker: the text and JSON reports do not show them, and they are

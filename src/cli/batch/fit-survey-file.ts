@@ -1,11 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { selectSpec } from '../../core/analysis/spec/select-spec';
-import { verifySpec } from '../../core/analysis/spec/verify-spec';
-import { thresholdCautions } from '../../core/analysis/thresholds/threshold-cautions';
-import { thresholdDistances } from '../../core/analysis/thresholds/threshold-distances';
 import { isRingfallError } from '../../core/errors';
-import { fitSurvey, fitSurveyNotes } from '../../core/fit/fit-survey';
-import { buildSurveyReport } from '../../core/report/build-survey-report';
+import { analyseSurvey } from '../../core/report/analyse-survey';
 import type { SurveyReport } from '../../core/report/report';
 import type { Survey } from '../../core/survey/survey';
 import { importSurveys } from '../../io';
@@ -14,8 +9,8 @@ import type { FileOutcome, FileTask, UnreadableEntry } from './batch-types';
 
 /**
  * Read one survey file and report every survey in it: import (CONTRACT.md CSV forms),
- * then per survey the spec that applies (its model fitted too), fitSurvey, the spec
- * verdict, the threshold distances and the SurveyReport. Never throws for a problem in
+ * then per survey the pipeline `ringfall fit` uses (analyseSurvey: spec, fits, verdict,
+ * threshold distances, SurveyReport). Never throws for a problem in
  * the file: a file that cannot be read or imported, a coil/date group with too few
  * readings, or a survey the fit refuses is listed in `unreadable` with the reason, and
  * the other surveys go on. Rows that belong to no survey are named in the first report's
@@ -35,7 +30,8 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   const reports: SurveyReport[] = [];
   for (const survey of imported.surveys) {
     try {
-      reports.push(reportSurvey(survey, imported.detection.notes, settings));
+      const report = analyseSurvey(survey, settings, imported.detection.notes);
+      reports.push(settings.keepPoints ? report : { ...report, fits: report.fits.map((fit) => ({ ...fit, points: [] })) });
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       unreadable.push({ source: `${source} (${groupLabel(survey)})`, reason: error.message, code: error.code });
@@ -51,21 +47,6 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
     unreadable.push(...unassigned.map((row) => ({ source, reason: row.text, code: row.code })));
   }
   return { index: task.index, source, reports, unreadable };
-}
-
-function reportSurvey(survey: Survey, importNotes: readonly string[], settings: BatchSettings): SurveyReport {
-  const spec = selectSpec(settings.specs, survey.coil);
-  const models = spec && !settings.fit.models.includes(spec.model) ? [...settings.fit.models, spec.model] : settings.fit.models;
-  const options = { ...settings.fit, models };
-  const fits = fitSurvey(survey, options);
-  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
-  const report = buildSurveyReport(survey, fits, {
-    verdict: spec ? verifySpec(spec, fits, survey.readingType) : null,
-    thresholds,
-    cautions: thresholds.length > 0 ? thresholdCautions : [],
-    notes: [...importNotes, ...fitSurveyNotes(survey, options)],
-  });
-  return settings.keepPoints ? report : { ...report, fits: report.fits.map((fit) => ({ ...fit, points: [] })) };
 }
 
 /** "coil QA-107, 2026-03-10" for a group inside a file. */

@@ -1,5 +1,6 @@
 import { wrap } from '../../core/report/render-text';
-import type { Report } from '../../core/report/report';
+import { describeValue } from '../../core/analysis/describe-value';
+import type { Report, ThresholdResult } from '../../core/report/report';
 import { formatNumber } from '../../core/units';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows, type FleetRow } from './fleet-rows';
@@ -19,7 +20,8 @@ export interface BatchCoverage {
  * The fleet summary of `ringfall batch` as text for an 80-column terminal: a heading with
  * counts (and, for a stopped run, that it is partial), one entry per coil — latest
  * survey, best model, the best physical model's amplitude and geometry with 95 %
- * intervals, the latest spec verdict, the history flags and ampere-turn trend — then what
+ * intervals, the latest spec verdict, threshold distances when asked, the history flags
+ * and ampere-turn trend — then what
  * needs attention first (attentionList), then every file or part that could not be used.
  */
 export function renderFleetSummary(report: Report, coverage: BatchCoverage): string {
@@ -65,8 +67,16 @@ function rowLines(row: FleetRow): string[] {
   } else {
     lines.push('    no physical model converged on this survey');
   }
+  for (const threshold of survey.thresholds) lines.push(...wrap(thresholdText(threshold), 4, 6));
   lines.push(...wrap(`history: ${historyText(row)}`, 4, 6));
   return lines;
+}
+
+/** "below 0.5 mT beyond 80.2 mm (76.8–83.7) on axis (loop)", marked when extrapolated. */
+function thresholdText(threshold: ThresholdResult): string {
+  const level = describeValue(threshold.level.value, 'field') + (threshold.level.label ? ` (${threshold.level.label})` : '');
+  if (threshold.distance === null) return `below ${level}: not found on the fitted ${threshold.model} curve`;
+  return `below ${level} beyond ${describeValue(threshold.distance.value, 'length', threshold.distance.ci95)} on axis (${threshold.model}${threshold.extrapolated ? ', extrapolated beyond the survey' : ''})`;
 }
 
 function historyText(row: FleetRow): string {

@@ -1,6 +1,5 @@
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
-import { parseThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
 import { RingfallError } from '../../core/errors';
 import type { Report } from '../../core/report/report';
 import { toJsonReport } from '../../core/report/to-json-report';
@@ -10,6 +9,7 @@ import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
+import { checksStatus } from '../checks-status';
 import { findSurveyFiles } from '../find-survey-files';
 import type { CommandContext } from '../main';
 
@@ -27,7 +27,8 @@ const interruptedStatus = 130;
  * parallel on worker threads and print the fleet summary (or the JSON report with its
  * fleet section, --json); --out DIR also writes one HTML report per coil and an index.
  * Exit status: 0 all fitted and every check passed; 1 a file or survey could not be used,
- * or a spec or history check failed; 2 a usage error; 130 stopped by Ctrl-C.
+ * or a check failed as for `fit` (spec failed or inconclusive, threshold not reached,
+ * history flag); 2 a usage error; 130 stopped by Ctrl-C.
  */
 export function registerBatch(program: Command, context: CommandContext): void {
   addFitOptions(
@@ -74,8 +75,7 @@ async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
     fit: options.fit,
     import: options.import,
     specs: options.spec === null ? [] : await readSpecFile(options.spec),
-    // readFitFlags has checked each level; parseThresholdLevel adds label, reading type and notes.
-    thresholds: (flags.threshold ?? []).map((text) => parseThresholdLevel(text)),
+    thresholds: options.thresholds,
     keepPoints: flags.out !== undefined,
   };
 }
@@ -89,12 +89,7 @@ function readWorkers(text: string | undefined): number {
   return workers;
 }
 
-/** 1 when a file or survey could not be used, a spec check failed, or a coil has a history flag; else 0 (CONTRACT.md). */
+/** 1 when a file or survey could not be used, or a check failed as `fit` counts it (checksStatus); else 0 (CONTRACT.md). */
 export function batchStatus(report: Report): number {
-  const fleet = report.fleet;
-  const failed =
-    (fleet?.unreadable.length ?? 0) > 0 ||
-    report.surveys.some((survey) => survey.verdict?.status === 'fail') ||
-    (fleet?.coils ?? []).some((coil) => coil.flags.length > 0);
-  return failed ? 1 : 0;
+  return (report.fleet?.unreadable.length ?? 0) > 0 ? 1 : checksStatus(report);
 }
