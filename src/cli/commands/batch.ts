@@ -31,12 +31,15 @@ const interruptedStatus = 130;
  * history flag); 2 a usage error; 130 stopped by Ctrl-C.
  */
 export function registerBatch(program: Command, context: CommandContext): void {
-  addFitOptions(
+  const command = addFitOptions(
     program
       .command('batch')
       .description('fit many survey files in parallel: fleet summary, histories and what needs attention')
       .argument('<paths...>', 'folders to search for survey files, or the files'),
-  )
+  );
+  // fit's single-report files; batch writes one report per coil with --out instead (refused below if given).
+  for (const option of command.options) if (option.long === '--html' || option.long === '--csv') option.hideHelp();
+  command
     .option('--out <dir>', 'also write one HTML report per coil and an index.html into this folder')
     .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
     .action(async (paths: string[], flags: BatchFlags) => {
