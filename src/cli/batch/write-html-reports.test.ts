@@ -14,6 +14,10 @@ describe('pageNames()', () => {
     ]);
   });
 
+  it('pageNames() TSDoc example', () => {
+    expect(pageNames(['QA-107', 'qa 107', '<img>'])).toEqual(['qa-107.html', 'qa-107-2.html', 'img.html']);
+  });
+
   it('pageNames() is at most 60 characters before ".html"', () => {
     expect(pageNames(['x'.repeat(200)])[0]).toBe(`${'x'.repeat(60)}.html`);
   });
