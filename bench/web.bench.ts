@@ -65,6 +65,10 @@ try {
       workerTimes.push(elapsed.worker);
     }
     const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+    if (times.some((t) => Number.isNaN(t))) {
+      process.stdout.write(`drop → report, ${readings.toLocaleString('en')} readings: no report within 300 s; target ${targetMs} ms\n`);
+      continue;
+    }
     process.stdout.write(
       `drop → report, ${readings.toLocaleString('en')} readings: median ${median(times).toFixed(0)} ms ` +
         `(runs: ${times.map((t) => t.toFixed(0)).join(', ')}), of which import + fit in the worker ${median(workerTimes).toFixed(0)} ms; ` +

@@ -5,6 +5,7 @@ import { verifySpec } from '../core/analysis/spec/verify-spec';
 import { thresholdCautions } from '../core/analysis/thresholds/threshold-cautions';
 import { thresholdDistances } from '../core/analysis/thresholds/threshold-distances';
 import { fitSurvey, fitSurveyNotes } from '../core/fit/fit-survey';
+import type { FitResult } from '../core/fit/fit-result';
 import type { FitSurveyOptions } from '../core/fit/fit-survey-options';
 import { buildSurveyReport } from '../core/report/build-survey-report';
 import type { FleetSummary, SurveyReport } from '../core/report/report';
@@ -28,7 +29,12 @@ export function parameterUnit(name: string, models: readonly ModelId[] = modelId
  * names its coil (its model is fitted too, CONTRACT.md), the threshold distances with
  * their cautions, and how the readings were weighted.
  */
-export function fitStage(survey: Survey, parsed: ParsedSettings, fileNotes: readonly string[] = []): SurveyReport {
+export function fitStage(
+  survey: Survey,
+  parsed: ParsedSettings,
+  fileNotes: readonly string[] = [],
+  onModel: (model: ModelId, index: number, count: number) => void = () => {},
+): SurveyReport {
   const spec = selectSpec(parsed.specs, survey.coil);
   const models = spec && !parsed.models.includes(spec.model) ? [...parsed.models, spec.model] : parsed.models;
   const options: FitSurveyOptions = {
@@ -37,13 +43,34 @@ export function fitStage(survey: Survey, parsed: ParsedSettings, fileNotes: read
     ...(parsed.uncertainty ? { instrumentUncertainty: parsed.uncertainty } : {}),
     ...(parsed.positionUncertainty !== null ? { positionUncertainty: parsed.positionUncertainty } : {}),
   };
-  const fits = fitSurvey(survey, options);
+  const fits = fitModels(survey, options, models, onModel);
   const thresholds = parsed.thresholds.length > 0 ? thresholdDistances(fits, parsed.thresholds, { readingType: survey.readingType }) : [];
   return buildSurveyReport(survey, fits, {
     verdict: spec ? verifySpec(spec, fits, survey.readingType) : null,
     thresholds,
     cautions: thresholds.length > 0 ? thresholdCautions : [],
     notes: [...fileNotes, ...fitSurveyNotes(survey, options)],
+  });
+}
+
+/**
+ * fitSurvey one model at a time, so the page can say which model it is fitting. The
+ * result is the same as one call with every model: each model's multi-start is seeded by
+ * its catalog index, not its place in the list, and the comparison (Akaike weights) is
+ * redone over all fits by buildSurveyReport. When a fixed parameter belongs to only some
+ * of the models, fitSurvey itself notes that in the other models' warnings, so such a
+ * run is left to a single call.
+ */
+function fitModels(survey: Survey, options: FitSurveyOptions, models: readonly ModelId[], onModel: (model: ModelId, index: number, count: number) => void): FitResult[] {
+  const fixedNames = Object.keys(options.fixed ?? {});
+  const separable = fixedNames.every((name) => models.every((id) => getModel(id).parameters.some((p) => p.name === name)));
+  if (!separable) {
+    onModel(models[0]!, 0, 1);
+    return fitSurvey(survey, options);
+  }
+  return models.map((id, index) => {
+    onModel(id, index, models.length);
+    return fitSurvey(survey, { ...options, models: [id] })[0]!;
   });
 }
 

@@ -83,7 +83,9 @@ export function reportPanel(lookup: ModelLookup): {
       body.dataset['state'] = 'running';
       progress.hidden = false;
       progress.value = p.total === 0 ? 0 : (p.stage === 'import' ? 0.2 * p.done / p.total : 0.2 + 0.8 * p.done / p.total);
-      status.textContent = `${p.stage === 'import' ? 'Reading' : 'Fitting'}: ${p.label} (${p.done} of ${p.total})`;
+      status.textContent = p.stage === 'import'
+        ? `Reading ${p.label.replace(/^reading /, '')} (file ${p.done + 1} of ${p.total})`
+        : `${p.label.replace(/^fitting/, 'Fitting')} (survey ${Math.min(Math.floor(p.done) + 1, p.total)} of ${p.total})`;
     },
     showReport: (next, elapsedMs) => {
       report = next;

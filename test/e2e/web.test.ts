@@ -57,6 +57,16 @@ async function upload(paths: string[]): Promise<void> {
   }, before, { timeout: 60_000 });
 }
 
+/** Run `action` and wait until the report after it has been drawn. */
+async function andWaitForReport(action: () => Promise<void>): Promise<void> {
+  const before = await page.locator('#report-body').getAttribute('data-report-count');
+  await action();
+  await page.waitForFunction((count) => {
+    const body = document.querySelector('#report-body');
+    return body?.getAttribute('data-report-count') !== count && body?.getAttribute('data-state') !== 'running';
+  }, before, { timeout: 60_000 });
+}
+
 async function removeAllFiles(): Promise<void> {
   const button = page.getByRole('button', { name: 'Remove all files' });
   if (await button.isVisible()) await button.click();
@@ -147,8 +157,56 @@ describe('web page', () => {
     await view.close();
   });
 
+  it('holds a parameter fixed with its unit and adds an ICNIRP 2010 level, then refits', async () => {
+    await removeAllFiles();
+    await upload([scratchFile('fix-me.csv', loopSurveyText('FIX-1'))]);
+    await page.getByRole('button', { name: 'Hold a parameter fixed' }).click();
+    const row = page.locator('.fix-row').last();
+    await row.locator('select').selectOption('radius');
+    await andWaitForReport(async () => {
+      await row.locator('input').fill('45 mm');
+      await row.locator('input').press('Tab');
+    });
+    await page.getByLabel('Exposure group').selectOption('public');
+    await page.getByLabel('at', { exact: true }).fill('50 Hz');
+    await andWaitForReport(() => page.getByRole('button', { name: 'Add the ICNIRP 2010 reference level' }).click());
+    const radius = page.locator('.rf-params').first().locator('tr[data-param=radius]');
+    // the fixed value is reported as fixed, with no interval (DESIGN.md catalog rule)
+    expect(Number(await radius.getAttribute('data-value'))).toBe(0.045);
+    await expect(radius.innerText()).resolves.toContain('fixed');
+    // ICNIRP 2010 general public, 25–400 Hz: 200 µT (DOMAIN.md §4.2)
+    await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 uT');
+    await andWaitForReport(() => page.locator('.fix-row button').last().click());
+  });
+
+  it('keeps the page responsive while a large survey is fitted in the worker', async () => {
+    await removeAllFiles();
+    const rows = Array.from({ length: 5_000 }, (_, i) => `${(i / 25).toFixed(2)},${(1 / (1 + (i / 1000) ** 2) ** 1.5).toFixed(6)}`);
+    const big = scratchFile('big.csv', ['distance (mm),B (mT)', ...rows].join('\n') + '\n');
+    const before = await page.locator('#report-body').getAttribute('data-report-count');
+    await page.setInputFiles('#survey-files', [big]);
+    await page.waitForSelector('#report-body[data-state=running]', { state: 'attached' });
+    expect(await page.locator('#run-progress').isVisible()).toBe(true);
+    // a frame and a round trip while the fit runs: the main thread is free
+    const started = Date.now();
+    const frame = await page.evaluate(() => new Promise<number>((resolve) => requestAnimationFrame((t) => resolve(t))));
+    expect(frame).toBeGreaterThan(0);
+    expect(Date.now() - started).toBeLessThan(1000);
+    expect(await page.locator('#report-body').getAttribute('data-state')).toBe('running');
+    await page.waitForFunction((count) => document.querySelector('#report-body')?.getAttribute('data-report-count') !== count, before, { timeout: 120_000 });
+  });
+
+  it('shows the sample fleet with its coil table and history chart', async () => {
+    await andWaitForReport(() => page.getByRole('button', { name: 'Open the sample fleet' }).click());
+    // sample-data/README.md: the fleet log holds QA-107, QA-330 and QA-412
+    await expect(page.locator('.rf-coils-table').innerText()).resolves.toMatch(/QA-107[\s\S]*QA-330[\s\S]*QA-412/);
+    expect(await page.locator('#rf-fleet-history').count()).toBe(1);
+    await page.locator('.rf-fleet').screenshot({ path: join(artifactsDir, 'web-fleet.png') });
+  });
+
   it('reads well on a narrow screen', async () => {
     await page.setViewportSize({ width: 390, height: 844 });
+    await page.locator('.rf-survey').first().scrollIntoViewIfNeeded();
     await page.screenshot({ path: join(artifactsDir, 'web-narrow.png'), fullPage: false });
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);

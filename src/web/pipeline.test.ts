@@ -1,0 +1,58 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { fitSurvey } from '../core/fit/fit-survey';
+import { buildSurveyReport } from '../core/report/build-survey-report';
+import { importSurveys } from '../io';
+import { defaultSettings } from './fit-settings';
+import { runPipeline } from './pipeline';
+
+const sample = (name: string) => readFileSync(join(__dirname, '..', '..', 'sample-data', name), 'utf8');
+const healthy = 'qa-107-2025-03-11-healthy.csv';
+const plain = { ...defaultSettings, thresholds: [], spec: '' };
+
+describe('runPipeline()', () => {
+  it('fits each model as fitSurvey() does with every model at once (same fits, same Akaike weights)', () => {
+    const text = sample(healthy);
+    const outcome = runPipeline([{ id: 'a', name: healthy, text }], plain);
+    const survey = importSurveys(text, { source: healthy }).surveys[0]!;
+    // the reference: one fitSurvey call with the CONTRACT.md default models
+    const reference = buildSurveyReport(survey, fitSurvey(survey, { models: plain.models }));
+    const page = outcome.report.surveys[0]!;
+    expect(page.best).toBe(reference.best);
+    expect(page.fits.map((f) => f.model)).toEqual(reference.fits.map((f) => f.model));
+    page.fits.forEach((fit, i) => {
+      const other = reference.fits[i]!;
+      expect(fit.stats).toEqual(other.stats);
+      expect(Object.values(fit.params).map((p) => p.value)).toEqual(Object.values(other.params).map((p) => p.value));
+      expect(fit.warnings).toEqual(other.warnings);
+    });
+  });
+
+  it('reports a file it cannot read with the importer’s code and message, and fits the other file', () => {
+    const outcome = runPipeline([
+      { id: 'bad', name: 'no-unit.csv', text: 'distance (mm),B\n1,2\n3,4\n5,6\n' },
+      { id: 'good', name: healthy, text: sample(healthy) },
+    ], plain);
+    const bad = outcome.files.find((f) => f.id === 'bad')!;
+    expect(bad.error?.code).toBe('IMPORT_FIELD_UNIT_MISSING');
+    expect(bad.error?.message).toContain('"B"');
+    // the header could still be read, so the page can offer to set the unit by hand
+    expect(bad.detection?.columns.map((c) => c.header)).toEqual(['distance (mm)', 'B']);
+    expect(outcome.report.surveys.map((s) => s.coil)).toEqual(['QA-107']);
+  });
+
+  it('lists every row it did not use, with line and reason', () => {
+    const outcome = runPipeline([{ id: 'f', name: 'bad-rows.csv', text: sample('flawed/bad-rows.csv') }], plain);
+    const file = outcome.files[0]!;
+    // sample-data/README.md: bad-rows.csv has nine broken rows on purpose
+    expect(file.rowsNotUsedTotal).toBe(9);
+    expect(file.rowsNotUsed.every((row) => row.line > 0 && row.reason.length > 0)).toBe(true);
+  });
+
+  it('returns setting mistakes without fitting', () => {
+    const outcome = runPipeline([{ id: 'a', name: healthy, text: sample(healthy) }], { ...plain, uncertainty: '1.5 %+ two uT', thresholds: ['icnirp-public'] });
+    expect(outcome.settingErrors.map((e) => e.field)).toEqual(['uncertainty', 'threshold:0']);
+    expect(outcome.report.surveys).toEqual([]);
+  });
+});
