@@ -1,15 +1,59 @@
+import { readdirSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { join, relative } from 'node:path';
 import type { Command } from 'commander';
+import { parseThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
+import { defaultModels } from '../../core/fit/fit-survey-options';
+import { renderTextReport, wrap } from '../../core/report/render-text';
+import { toJsonReport } from '../../core/report/to-json-report';
+import { readSpecFile } from '../../io/spec';
+import type { BatchSettings } from '../batch/batch-settings';
+import { renderFleetSummary } from '../batch/render-fleet-summary';
+import { runBatch } from '../batch/run-batch';
 import type { CommandContext } from '../main';
 
-/** `ringfall demo` (CONTRACT.md). Placeholder until its issue lands: exits 2 saying so. */
-export function registerDemo(program: Command, context: CommandContext): void {
+/** The bundled sample data (invented: sample-data/README.md), next to the package root. */
+const sampleFolder = fileURLToPath(new URL('../../../sample-data/', import.meta.url));
+
+/** The survey shown in full: the applicator that lost amplitude (sample-data/TRUTH.json). */
+const featured = 'qa-107-2026-03-10-degraded.csv';
+
+const introduction =
+  'ringfall demo: the invented Quillfield Coil Bench fleet in sample-data/ (surveys of therapy ' +
+  'applicators, a mat and a thick coil, none of them real), fitted with the default models and ' +
+  'checked against sample-data/specs/all-coils.spec.json, with the 0.5 mT implant screening line. ' +
+  'The meter is taken as ±(1.5 % + 2 µT). First one survey in full, then the fleet.';
+
+/**
+ * `ringfall demo [--json]`: fit the bundled sample fleet and print the report (one survey
+ * in full, then the fleet summary), so a new user sees the whole tool in one command.
+ * Exit 0 when it ran: the fleet's failed checks are the point of the demo, not an error.
+ */
+export function registerDemo(program: Command, _context: CommandContext): void {
   program
     .command('demo')
-    .description('not built yet')
-    .allowUnknownOption(true)
-    .allowExcessArguments(true)
-    .action(() => {
-      process.stderr.write('ringfall demo: not built yet.\n');
-      context.setExitCode(2);
+    .description('fit the bundled sample fleet and print the report')
+    .option('--json', 'print the JSON report instead of text')
+    .action(async (flags: { json?: boolean }) => {
+      const files = readdirSync(sampleFolder).filter((name) => name.endsWith('.csv')).sort().map((name) => relative(process.cwd(), join(sampleFolder, name)) || name);
+      const settings: BatchSettings = {
+        fit: { models: defaultModels, instrumentUncertainty: { relative: 0.015, absolute: 2e-6 }, seed: 1 },
+        import: {},
+        specs: await readSpecFile(join(sampleFolder, 'specs', 'all-coils.spec.json')),
+        thresholds: [parseThresholdLevel('implant-static')],
+        keepPoints: false,
+      };
+      const result = await runBatch(files, settings, { workers: availableParallelism(), progress: process.stderr });
+      if (flags.json === true) {
+        process.stdout.write(`${JSON.stringify(toJsonReport(result.report), null, 2)}\n`);
+        return;
+      }
+      const shown = result.report.surveys.filter((survey) => survey.source.endsWith(featured));
+      process.stdout.write(`${wrap(introduction, 0).join('\n')}\n\n`);
+      process.stdout.write(renderTextReport({ surveys: shown }));
+      process.stdout.write(`\n${'═'.repeat(78)}\n\n`);
+      process.stdout.write(renderFleetSummary(result.report, { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted }));
+      process.stdout.write('\nNext: npx ringfall fit FILE --html report.html, or npm start for the web page.\n');
     });
 }
