@@ -1,8 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { fitSurvey } from '../core/fit/fit-survey';
-import { buildSurveyReport } from '../core/report/build-survey-report';
+import { analyseSurvey } from '../core/report/analyse-survey';
+import { parseThresholdLevel } from '../core/analysis/thresholds/threshold-level';
+import { parseSpecs } from '../io/spec/parse-specs';
 import { importSurveys } from '../io';
 import { defaultSettings } from './fit-settings';
 import { runPipeline } from './pipeline';
@@ -12,21 +13,19 @@ const healthy = 'qa-107-2025-03-11-healthy.csv';
 const plain = { ...defaultSettings, thresholds: [], spec: '' };
 
 describe('runPipeline()', () => {
-  it('fits each model as fitSurvey() does with every model at once (same fits, same Akaike weights)', () => {
+  it('gives the survey report `ringfall fit` builds (analyseSurvey) for the same file, spec, level and uncertainty', () => {
     const text = sample(healthy);
-    const outcome = runPipeline([{ id: 'a', name: healthy, text }], plain);
-    const survey = importSurveys(text, { source: healthy }).surveys[0]!;
-    // the reference: one fitSurvey call with the CONTRACT.md default models
-    const reference = buildSurveyReport(survey, fitSurvey(survey, { models: plain.models }));
-    const page = outcome.report.surveys[0]!;
-    expect(page.best).toBe(reference.best);
-    expect(page.fits.map((f) => f.model)).toEqual(reference.fits.map((f) => f.model));
-    page.fits.forEach((fit, i) => {
-      const other = reference.fits[i]!;
-      expect(fit.stats).toEqual(other.stats);
-      expect(Object.values(fit.params).map((p) => p.value)).toEqual(Object.values(other.params).map((p) => p.value));
-      expect(fit.warnings).toEqual(other.warnings);
-    });
+    const spec = sample('specs/qa-107.spec.json');
+    const settings = { ...plain, spec, thresholds: ['implant-static'], uncertainty: '1.5%+2uT' };
+    const outcome = runPipeline([{ id: 'a', name: healthy, text }], settings);
+    const imported = importSurveys(text, { source: healthy });
+    const reference = analyseSurvey(imported.surveys[0]!, {
+      fit: { models: plain.models, fixed: {}, instrumentUncertainty: { relative: 0.015, absolute: 2e-6 } },
+      specs: parseSpecs(spec, 'the spec'),
+      thresholds: [parseThresholdLevel('implant-static')],
+    }, imported.detection.notes);
+    expect(outcome.settingErrors).toEqual([]);
+    expect(outcome.report.surveys[0]).toEqual(reference);
   });
 
   it('reports a file it cannot read with the importer’s code and message, and fits the other file', () => {

@@ -99,10 +99,7 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
         return;
       }
       try {
-        const name = survey.coil ?? survey.source;
-        reports.push(fitStage(survey, parsed, notes, (model, step, count) => {
-          progress({ stage: 'fit', done: index + step / count, total: surveys.length, label: `fitting ${name}: ${model}` });
-        }));
+        reports.push(fitStage(survey, parsed, notes));
       } catch (error) {
         if (!isRingfallError(error)) throw error;
         // a setting this survey cannot be fitted with (e.g. a position uncertainty and no reading uncertainty)

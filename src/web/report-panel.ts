@@ -82,10 +82,12 @@ export function reportPanel(lookup: ModelLookup): {
     showProgress: (p) => {
       body.dataset['state'] = 'running';
       progress.hidden = false;
-      progress.value = p.total === 0 ? 0 : (p.stage === 'import' ? 0.2 * p.done / p.total : 0.2 + 0.8 * p.done / p.total);
+      // one survey gives no steps to count: an indeterminate bar still shows work going on
+      if (p.stage === 'fit' && p.total <= 1) progress.removeAttribute('value');
+      else progress.value = p.total === 0 ? 0 : p.stage === 'import' ? (0.2 * p.done) / p.total : 0.2 + (0.8 * p.done) / p.total;
       status.textContent = p.stage === 'import'
         ? `Reading ${p.label.replace(/^reading /, '')} (file ${p.done + 1} of ${p.total})`
-        : `${p.label.replace(/^fitting/, 'Fitting')} (survey ${Math.min(Math.floor(p.done) + 1, p.total)} of ${p.total})`;
+        : `${p.label.replace(/^fitting/, 'Fitting')} (survey ${Math.min(p.done + 1, p.total)} of ${p.total})`;
     },
     showReport: (next, elapsedMs) => {
       report = next;
