@@ -13,6 +13,12 @@ import { exitCodeFor } from './exit-codes';
  */
 export async function main(argv: readonly string[]): Promise<number> {
   const debug = argv.includes('--debug');
+  // A reader that stops early (`ringfall … | head`) closes the pipe: nothing more to say,
+  // so end quietly instead of printing a stack trace for EPIPE.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
   const program = new Command('ringfall')
     .description('Reconcile gaussmeter survey readings with coil physics.')
     .option('--debug', 'print stack traces on errors')

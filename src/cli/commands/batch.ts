@@ -48,10 +48,6 @@ export function registerBatch(program: Command, context: CommandContext): void {
       const files = findSurveyFiles(paths);
       const result = await runBatch(files, settings, { workers, progress: process.stderr });
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
-      // A reader that stops early (`| head`) closes the pipe: nothing more to do, so no stack trace for EPIPE.
-      process.stdout.on('error', (error: NodeJS.ErrnoException) => {
-        if (error.code !== 'EPIPE') throw error;
-      });
       if (flags.json === true) {
         const json = toJsonReport(result.report);
         if (result.interrupted) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal };

@@ -25,11 +25,11 @@ function renderSurvey(survey: SurveyReport): string {
     `${survey.readings.used} of ${survey.readings.total} rows used`,
   ];
   lines.push('  ' + facts.join(' · '));
-  for (const note of survey.notes) lines.push(`  note: ${note}`);
+  for (const note of survey.notes) lines.push(...wrap(`note: ${note}`, 2, 4));
   const rejected = survey.readings.rejected;
   if (rejected.length > 0) {
     lines.push(`  rows set aside (${rejected.length}):`);
-    for (const row of rejected.slice(0, rejectedListed)) lines.push(`    line ${row.line}: ${row.reason}`);
+    for (const row of rejected.slice(0, rejectedListed)) lines.push(...wrap(`line ${row.line}: ${row.reason}`, 4, 6));
     if (rejected.length > rejectedListed) {
       lines.push(`    … ${rejected.length - rejectedListed} more; --json lists every one.`);
     }
