@@ -69,7 +69,7 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   const measuredText = `${words} ${describeValue(value, kind, ci95)} vs ${labelText} on the label`;
   const verdicts = {
     pass: `${measuredText}: the whole interval lies within ${zone}.`,
-    fail: `${measuredText}: the whole interval lies ${side === 'low' ? 'below' : 'above'} ${zone}.`,
+    fail: `${measuredText}: the whole interval lies ${side === 'low' ? 'below' : 'above'} the tolerance zone ${zone}.`,
     inconclusive: `${measuredText}: the interval straddles a tolerance limit (zone ${zone}).`,
   };
   const check: SpecCheck = { ...base, status: decision.status, evidence: verdicts[decision.status] };
