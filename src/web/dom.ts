@@ -4,6 +4,7 @@
  */
 export type Child = Node | string | number | null | undefined | false | readonly Child[];
 
+/** Attributes (string/number/boolean; false and null leave them out) and `on…` event listeners. */
 export type Props = Record<string, string | number | boolean | null | undefined | EventListener>;
 
 /** Create an element with attributes, `on…` listeners and children. */
@@ -35,8 +36,9 @@ export function replaceChildren(parent: Element, ...children: Child[]): void {
   append(parent, children);
 }
 
-/** A page-unique id with a prefix, for label/aria wiring. */
 let counter = 0;
+
+/** A page-unique id with a prefix, for label/aria wiring. */
 export function uniqueId(prefix: string): string {
   counter += 1;
   return `${prefix}-${counter}`;

@@ -42,6 +42,7 @@ export interface SettingError {
   readonly message: string;
 }
 
+/** The settings in SI, ready for the fit (fitSurvey options, threshold levels, specs). */
 export interface ParsedSettings {
   readonly models: readonly ModelId[];
   /** Fixed parameters in SI. */

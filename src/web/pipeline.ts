@@ -33,6 +33,7 @@ export interface FileOutcome {
   readonly rowsNotUsedTotal: number;
 }
 
+/** Everything a run gives the page: per-file outcomes, the Report, and setting mistakes. */
 export interface PipelineOutcome {
   readonly files: readonly FileOutcome[];
   readonly report: Report;

@@ -17,6 +17,7 @@ export interface ChartSpec {
   readonly notes: readonly string[];
 }
 
+/** One entry of our HTML legend: label, colour and how the swatch is drawn. */
 export interface LegendItem {
   readonly label: string;
   readonly colour: string;
