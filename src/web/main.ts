@@ -56,6 +56,7 @@ replaceChildren(app,
     report.element));
 
 async function addFiles(list: readonly File[]): Promise<void> {
+  performance.mark('ringfall:files');
   const read = await Promise.all(list.map(async (file) => ({ name: file.name, text: await file.text() })));
   files = [...files, ...read.map((f) => ({ id: `f${nextId++}`, name: f.name, text: f.text, outcome: null, mapping: null }))];
   refit();
@@ -92,13 +93,18 @@ function refit(): void {
     return;
   }
   const request = files.map((f) => ({ id: f.id, name: f.name, text: f.text, ...(f.mapping ? { mapping: f.mapping } : {}) }));
+  // User Timing marks, for profiling in the browser's performance panel and the benchmark
+  performance.mark('ringfall:run');
   worker.run(request, settings, report.showProgress).then(({ outcome, elapsedMs }) => {
+    performance.mark('ringfall:result');
     files = files.map((f) => ({ ...f, outcome: outcome.files.find((o) => o.id === f.id) ?? f.outcome }));
     intake.showFiles(files);
     showColumns();
     settingsUi.showErrors(outcome.settingErrors);
     levels.showErrors(outcome.settingErrors);
+    performance.mark('ringfall:panels');
     report.showReport(outcome.report, elapsedMs);
+    performance.mark('ringfall:report');
   }, (error: Error) => {
     if (error.message !== 'superseded') report.showMessage(`Something went wrong while fitting: ${error.message}`, 'failed');
   });
