@@ -36,6 +36,13 @@ describe('compareModels(fits)', () => {
     expect(result.fits[0]!.stats.akaikeWeight).toBe(1);
   });
 
+  it('compareModels() ranks an exact fit (RSS = 0, AICc = −∞) first with all the weight, instead of dropping it', () => {
+    // AICc = n·ln(RSS/n) + … → −∞ as RSS → 0 (Burnham & Anderson 2002, §2.2): the likelihood is unbounded
+    const result = compareModels([fitWithAicc('inverse-square', -20), fitWithAicc('loop', -Infinity), fitWithAicc('dipole', -30)]);
+    expect(result.best).toBe('loop');
+    expect(result.fits.map((f) => f.stats.akaikeWeight)).toEqual([0, 1, 0]);
+  });
+
   it('compareModels() refuses fits to different readings (RangeError)', () => {
     expect(() => compareModels([fitWithAicc('loop', 1, 10), fitWithAicc('dipole', 1, 12)])).toThrow(RangeError);
   });

@@ -17,7 +17,8 @@ export interface ModelComparison {
 /**
  * Compare models fitted to the same readings with the same weights (DOMAIN.md §7.2):
  * Akaike weights wᵢ = exp(−Δᵢ/2)/Σ exp(−Δⱼ/2) from the AICc of the converged fits
- * (Burnham & Anderson 2002, §2.9), the best model = lowest AICc, and for each power law a
+ * (Burnham & Anderson 2002, §2.9), the best model = lowest AICc (a fit that reproduces
+ * every reading exactly, AICc = −∞, wins and shares the weight only with other exact fits), and for each power law a
  * sentence on its apparent exponent, the pattern of its residuals and its extrapolation
  * against the best physical model (DOMAIN.md §1.9).
  *
@@ -32,8 +33,12 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
       throw new RangeError(`compareModels: fits of ${first!.model} (n ${first!.stats.n}, ${first!.uncertaintyScale}) and ${fit.model} (n ${fit.stats.n}, ${fit.uncertaintyScale}) are not on the same readings and weights`);
     }
   }
-  const usable = (fit: FitResult) => fit.converged && Number.isFinite(fit.stats.aicc);
-  const weights = akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
+  // An exact fit (RSS = 0: AICc = −∞, unbounded likelihood) outranks every other one.
+  const usable = (fit: FitResult) => fit.converged && fit.stats.aicc < Infinity;
+  const exact = fits.filter((fit) => usable(fit) && fit.stats.aicc === -Infinity).length;
+  const weights = exact > 0
+    ? fits.map((fit) => (usable(fit) && fit.stats.aicc === -Infinity ? 1 / exact : 0))
+    : akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
   const weighted = fits.map((fit, i) => ({ ...fit, stats: { ...fit.stats, akaikeWeight: Number.isNaN(weights[i]!) ? null : weights[i]! } }));
   const lowest = (candidates: readonly FitResult[]) =>
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);

@@ -23,8 +23,13 @@ export interface FitSurveyOptions {
   readonly outlierCut?: number;
   /** Seed of the multi-start (same seed, same report). Default 1. */
   readonly seed?: number;
-  /** Extra starts besides the data-driven one. Default 8. */
+  /**
+   * Most extra starts besides the data-driven one. Default 8. They stop early when the
+   * first fit is settled or two of them agree (search-model-fit.ts), unless exhaustiveStarts.
+   */
   readonly starts?: number;
+  /** Run every one of the `starts` extra starts (slower; checks the adaptive rule). Default false. */
+  readonly exhaustiveStarts?: boolean;
   /** Checked between iterations: an aborted fit returns what it has, converged false. */
   readonly signal?: AbortFlag;
   /** Budget of cost evaluations per least-squares run (engine default 200·(k + 1)). */

@@ -224,6 +224,23 @@ describe('fitSurvey(survey, options)', () => {
       expect(Object.values(same.params).map((p) => p.value)).toEqual(Object.values(fit.params).map((p) => p.value));
     }
   });
+  it('fitSurvey() with the adaptive multi-start finds the same minima and best model as all 8 extra starts (20 noisy loop surveys)', () => {
+    // the exhaustive seeded multi-start is the reference search (common practice against local minima)
+    for (let s = 0; s < 20; s++) {
+      const survey = simulatedSurvey({
+        model: 'loop', params: { ...loopTruth, radius: 0.03 + 0.0025 * s }, distances: evenlySpaced(0, 0.2, 30), noise: { relative: 0.005, absolute: 1e-6 }, positionNoise: 0.0002, seed: 40 + s,
+      });
+      const adaptive = fitSurvey(survey, { seed: s });
+      const exhaustive = fitSurvey(survey, { seed: s, exhaustiveStarts: true });
+      adaptive.forEach((fit, m) => {
+        expect(fit.converged, fit.model).toBe(exhaustive[m]!.converged);
+        expect(fit.stats.chiSquare, `${fit.model} survey ${s}`).toBeLessThanOrEqual(exhaustive[m]!.stats.chiSquare * (1 + 1e-9));
+      });
+      const best = (fits: FitResult[]) => fits.reduce((a, b) => (b.stats.aicc < a.stats.aicc ? b : a)).model;
+      expect(best(adaptive)).toBe(best(exhaustive));
+    }
+  });
+
   it('fitSurvey() on readings all at one distance marks every parameter undetermined and claims no moment (flat directions in JᵀWJ)', () => {
     const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: [0.05, 0.05, 0.05, 0.05, 0.05, 0.05], noise: onePercent, seed: 3 });
     const [fit] = fitSurvey(survey, { models: ['loop'] });

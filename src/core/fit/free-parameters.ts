@@ -33,13 +33,17 @@ export interface FreeParameters {
 /** Buffers of length p that a FreeParameters map is written into (see the workspace). */
 export type FreeParameterBuffers = Omit<FreeParameters, 'count' | 'bounded'>;
 
-/** Where a start on or outside a bound is moved: this fraction of the range (or scale) inside. */
+/**
+ * Where a start on, outside or nearer than this to a bound is moved: this fraction of the
+ * range (or typical size) inside. The transforms are flat on the bound, so a start within
+ * rounding of it can make the first steps vanish and stop the search on the step test.
+ */
 const INSET = 1e-3;
 
 /**
  * Build the free-parameter map from the options into `buffers` and move any start that
- * sits on or outside its bounds just inside them (a transform has zero slope on the
- * bound), with a warning. `params` holds θ₀ on entry and the possibly moved start on return.
+ * sits on, outside or within INSET of its bounds to INSET inside them (a transform has zero
+ * slope on the bound), with a warning. `params` holds θ₀ on entry and the possibly moved start on return.
  * @throws RangeError when option lengths do not match p or a lower bound exceeds its upper.
  */
 export function freeParameters(
@@ -72,11 +76,12 @@ export function freeParameters(
     const typical = Math.abs(typicalSize === undefined ? 1 : typicalSize[at]!) || 1;
     const x = params[at]!;
     let moved = x;
-    if (kind === TWO_SIDED && !(x > lo && x < hi)) moved = x >= hi ? hi - INSET * (hi - lo) : lo + INSET * (hi - lo);
-    if (kind === LOWER_ONLY && !(x > lo)) moved = lo + INSET * typical;
-    if (kind === UPPER_ONLY && !(x < hi)) moved = hi - INSET * typical;
+    const inset = INSET * (kind === TWO_SIDED ? hi - lo : typical);
+    if (kind === TWO_SIDED && !(x >= lo + inset && x <= hi - inset)) moved = x > 0.5 * (lo + hi) ? hi - inset : lo + inset;
+    if (kind === LOWER_ONLY && !(x >= lo + inset)) moved = lo + inset;
+    if (kind === UPPER_ONLY && !(x <= hi - inset)) moved = hi - inset;
     if (moved !== x) {
-      warnings.push(`start of parameter ${at} (${x}) was on or outside its bounds [${lo}, ${hi}]; moved to ${moved}`);
+      warnings.push(`start of parameter ${at} (${x}) was on, outside or within ${INSET} of its range from its bounds [${lo}, ${hi}]; moved to ${moved}`);
       params[at] = moved;
     }
     buffers.index[k] = at;

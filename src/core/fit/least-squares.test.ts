@@ -102,6 +102,15 @@ describe('fitLeastSquares(problem, options)', () => {
     expectClose(fit.params[0]!, 3, { rel: 1e-8 });
   });
 
+  it('fitLeastSquares() moves a start within rounding of a two-sided bound inside, so the search does not stall there', () => {
+    // the sine transform is flat on the bound (bound-transform.ts); noiseless data: a = 3, b = 0.4 exactly
+    const fit = fitLeastSquares(decay, { initial: [1, 2 - 1e-15], lower: [-Infinity, 0], upper: [Infinity, 2] });
+    expect(fit.converged).toBe(true);
+    expect(fit.warnings[0]).toMatch(/start of parameter 1 .* moved to 1\.998/);
+    expectClose(fit.params[0]!, 3, { rel: 1e-10 });
+    expectClose(fit.params[1]!, 0.4, { rel: 1e-10 });
+  });
+
   it('fitLeastSquares() never throws on non-convergence: budget and abort give converged false and a reason', () => {
     const budget = fitLeastSquares(decay, { initial: [100, 5], maxEvaluations: 2 });
     expect(budget).toMatchObject({ converged: false, stopCode: 'max-evaluations' });

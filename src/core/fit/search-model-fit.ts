@@ -7,6 +7,7 @@ import type { LeastSquaresOptions, LeastSquaresSolution } from './least-squares-
 import { fitLeastSquares } from './least-squares';
 import { fitMultiStart } from './multi-start-fit';
 import { fitRobust } from './robust-fit';
+import { profileStart } from './profile-start';
 
 /** What the search for one model's best parameters found. */
 export interface ModelSearch {
@@ -30,8 +31,15 @@ export interface ModelSearch {
 
 /**
  * Find one model's best parameters for one survey: data-driven start
- * (`model.initialGuess`, DOMAIN.md §1.1), fixed values put in, then a seeded multi-start
- * keeping the lowest-χ² converged fit; with a position uncertainty the effective variance
+ * (`model.initialGuess`, DOMAIN.md §1.1), fixed values put in, refined by a profile scan
+ * of the probe offset with amplitude and background solved exactly (profile-start.ts; when
+ * the best offset is on the edge of its box the rest is first fitted with it held there),
+ * then a seeded multi-start keeping the lowest-χ² converged fit. The multi-start is
+ * adaptive: no extra start when the fit from the scanned start is settled (settledFit:
+ * converged to a stationary point inside the box, only the scanned offset allowed on its
+ * edge), otherwise extra starts until two agree with the best (sameMinimum), at most
+ * `options.starts` (8); `options.exhaustiveStarts` runs them all. Same inputs and seed,
+ * same answer. With a position uncertainty the effective variance
  * is iterated from there (DOMAIN.md §3.8); with a robust loss IRLS runs last, on those
  * weights. Never throws for a fit that fails: the solution says converged false and why.
  *
@@ -61,8 +69,26 @@ export function searchModelFit(
   }
   const problem = fieldModelProblem(model, points);
   const base = leastSquaresOptions(model, points, initial, fixed, options);
-  const weighted: LeastSquaresOptions = readingUncertainty === null ? base : { ...base, standardUncertainty: readingUncertainty };
-  let solution = fitMultiStart(problem, weighted, { seed, starts: options.starts ?? 8 }).best;
+  const profiled = profileStart(model, points, initial, fixed, base.lower as number[], base.upper as number[], readingUncertainty);
+  let start = profiled.initial;
+  if (profiled.offsetOnBound >= 0) {
+    // The best offset is on the box's edge: settle the rest there first, with the offset
+    // held (an active set), then release it; a transformed parameter crawls along its bound.
+    const held = fixed.map((f, j) => f || j === profiled.offsetOnBound);
+    const first = fitLeastSquares(problem, { ...base, fixed: held, initial: start, ...(readingUncertainty === null ? {} : { standardUncertainty: readingUncertainty }) });
+    if (first.converged && first.chiSquare <= profiled.chiSquare) start = first.params;
+  }
+  const startOptions = { ...base, initial: start };
+  const weighted: LeastSquaresOptions = readingUncertainty === null ? startOptions : { ...startOptions, standardUncertainty: readingUncertainty };
+  const adaptive = options.exhaustiveStarts !== true;
+  let solution = fitMultiStart(problem, weighted, {
+    seed,
+    starts: options.starts ?? 8,
+    ...(adaptive ? {
+      agreement: 2,
+      settled: (fit: LeastSquaresSolution) => profiled.scanned && settledFit(fit, readingUncertainty, profiled.scannedIndex, base.lower!, base.upper!),
+    } : {}),
+  }).best;
   const canonical = Float64Array.from(solution.params);
   if (model.canonicalParameters?.(canonical, points, fixed)) {
     // the mirror-image optimum (same χ²): re-solve from it so the Jacobian and covariance match
@@ -141,4 +167,42 @@ function evaluatesEverywhere(model: FieldModel, params: Float64Array, points: Su
   const out = new Float64Array(points.n);
   model.evaluate(params, points, out);
   return out.every(Number.isFinite);
+}
+
+/**
+ * The fit from a profile-scanned start needs no extra starts when it converged at a
+ * stationary point of χ² within the box (Karush–Kuhn–Tucker conditions): for every
+ * parameter inside its bounds the cosine between the weighted residuals and its Jacobian
+ * column is ≤ 1e-5 — moving that parameter alone could lower χ² by at most cos² = 1e-10
+ * relative, the fit's own cost tolerance, so this is a minimum and not a stall — and any
+ * parameter on a bound is pushed against it (χ² would fall beyond it). Only the scanned offset, whose whole range
+ * the scan searched, may end on a bound; any other parameter there calls for the extra
+ * starts.
+ */
+function settledFit(fit: LeastSquaresSolution, sigma: Float64Array | null, scanned: number, lower: ArrayLike<number>, upper: ArrayLike<number>): boolean {
+  if (!fit.converged || fit.stopCode === 'no-free-parameters') return false;
+  const k = fit.freeIndices.length;
+  const n = fit.residuals.length;
+  if (fit.jacobian.length !== n * k || !(fit.chiSquare > 0)) return fit.jacobian.length === n * k;
+  const norm = Math.sqrt(fit.chiSquare);
+  for (let c = 0; c < k; c++) {
+    const j = fit.freeIndices[c]!;
+    let dot = 0;
+    let column = 0;
+    for (let i = 0; i < n; i++) {
+      const a = fit.jacobian[i * k + c]!;
+      dot += (a * fit.residuals[i]!) / (sigma === null ? 1 : sigma[i]!);
+      column += a * a;
+    }
+    // dχ²/dθⱼ = −2·dot (residuals are y − f)
+    if (fit.atBound[j] === true) {
+      if (j !== scanned) return false;
+      const x = fit.params[j]!;
+      const outward = Math.abs(x - upper[j]!) < Math.abs(x - lower[j]!) ? dot >= 0 : dot <= 0;
+      if (!outward) return false;
+    } else if (column > 0 && Math.abs(dot) / Math.sqrt(column) > 1e-5 * norm) {
+      return false;
+    }
+  }
+  return true;
 }
