@@ -27,19 +27,7 @@ export interface ModelComparison {
  *   or weights cannot be compared).
  */
 export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel): ModelComparison {
-  const first = fits[0];
-  for (const fit of fits) {
-    if (fit.stats.n !== first!.stats.n || fit.uncertaintyScale !== first!.uncertaintyScale) {
-      throw new RangeError(`compareModels: fits of ${first!.model} (n ${first!.stats.n}, ${first!.uncertaintyScale}) and ${fit.model} (n ${fit.stats.n}, ${fit.uncertaintyScale}) are not on the same readings and weights`);
-    }
-  }
-  // An exact fit (RSS = 0: AICc = −∞, unbounded likelihood) outranks every other one.
-  const usable = (fit: FitResult) => fit.converged && fit.stats.aicc < Infinity;
-  const exact = fits.filter((fit) => usable(fit) && fit.stats.aicc === -Infinity).length;
-  const weights = exact > 0
-    ? fits.map((fit) => (usable(fit) && fit.stats.aicc === -Infinity ? 1 / exact : 0))
-    : akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
-  const weighted = fits.map((fit, i) => ({ ...fit, stats: { ...fit.stats, akaikeWeight: Number.isNaN(weights[i]!) ? null : weights[i]! } }));
+  const weighted = withAkaikeWeights(fits);
   const lowest = (candidates: readonly FitResult[]) =>
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
   const best = lowest(weighted);
@@ -48,4 +36,30 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
     .filter((fit) => fit.converged && !modelOf(fit.model).physical)
     .map((fit) => describePowerLaw(fit, physical, modelOf));
   return { fits: weighted, best: best?.model ?? null, comparison };
+}
+
+/** A fit that takes part in the comparison: converged, with an AICc below +∞. */
+function usable(fit: FitResult): boolean {
+  return fit.converged && fit.stats.aicc < Infinity;
+}
+
+/**
+ * The fits with stats.akaikeWeight filled in, as {@link compareModels} gives them, without
+ * its sentences (what fitSurvey needs). An exact fit (RSS = 0: AICc = −∞, unbounded
+ * likelihood) outranks every other one and shares the weight only with other exact fits.
+ *
+ * @throws RangeError when the fits do not share n and the uncertainty scale.
+ */
+export function withAkaikeWeights(fits: readonly FitResult[]): FitResult[] {
+  const first = fits[0];
+  for (const fit of fits) {
+    if (fit.stats.n !== first!.stats.n || fit.uncertaintyScale !== first!.uncertaintyScale) {
+      throw new RangeError(`compareModels: fits of ${first!.model} (n ${first!.stats.n}, ${first!.uncertaintyScale}) and ${fit.model} (n ${fit.stats.n}, ${fit.uncertaintyScale}) are not on the same readings and weights`);
+    }
+  }
+  const exact = fits.filter((fit) => usable(fit) && fit.stats.aicc === -Infinity).length;
+  const weights = exact > 0
+    ? fits.map((fit) => (usable(fit) && fit.stats.aicc === -Infinity ? 1 / exact : 0))
+    : akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
+  return fits.map((fit, i) => ({ ...fit, stats: { ...fit.stats, akaikeWeight: Number.isNaN(weights[i]!) ? null : weights[i]! } }));
 }

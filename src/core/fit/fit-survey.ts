@@ -1,7 +1,7 @@
 import { RingfallError } from '../errors';
 import { getModel, modelIds } from '../models';
 import type { Survey } from '../survey/survey';
-import { compareModels } from './compare-models';
+import { withAkaikeWeights } from './compare-models';
 import type { FitResult } from './fit-result';
 import { fitModel } from './fit-model';
 import { checkFixedParameters, defaultModels, type FitSurveyOptions } from './fit-survey-options';
@@ -10,12 +10,13 @@ import { surveyPoints } from './survey-points';
 
 /**
  * Fit every requested catalog model to one survey (DOMAIN.md §7) and compare them: per
- * model a data-driven start and a seeded multi-start, weights from the stated reading
- * uncertainty (widened by the position uncertainty through the effective variance),
- * optional robust loss, covariance and intervals, identifiability and plausibility
- * warnings (fit-model.ts); then AICc, BIC and Akaike weights across the models
- * (compare-models.ts). Deterministic: model m uses seed + its catalog index, so the order
- * models are asked in does not change any fit.
+ * model a data-driven start, a profile scan of the probe offset and an adaptive seeded
+ * multi-start (search-model-fit.ts), weights from the stated reading uncertainty (widened
+ * by the position uncertainty through the effective variance), optional robust loss,
+ * covariance and intervals, identifiability and plausibility warnings (fit-model.ts);
+ * then AICc, BIC and Akaike weights across the models (withAkaikeWeights; compareModels
+ * adds the report's sentences). Deterministic: model m uses seed + its catalog index, so
+ * the order models are asked in does not change any fit.
  *
  * @param options models (default loop, dipole, power-law, inverse-square, inverse-cube),
  *   fixed parameters (SI), instrument and position uncertainty, robust loss, seed, budget.
@@ -45,7 +46,7 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
   const points = surveyPoints(survey);
   const seed = options.seed ?? 1;
   const fits = models.map((model) => fitModel(model, survey, points, uncertainty.standardUncertainty, options, seed + modelIds.indexOf(model.id)));
-  return [...compareModels(fits).fits];
+  return withAkaikeWeights(fits);
 }
 
 /**

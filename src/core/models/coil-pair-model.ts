@@ -56,6 +56,6 @@ export const coilPairModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(coilPairModel, points, (size) => Float64Array.of(1, size, size, 0, 0), 0);
+    return scanSize(coilPairModel, points, (size, out) => out.set([1, size, size, 0, 0]), 0);
   },
 };

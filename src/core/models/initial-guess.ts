@@ -53,23 +53,34 @@ export function surveyReach(points: SurveyPoints): number {
   return reach > 0 && Number.isFinite(reach) ? reach : 0.05;
 }
 
+/** Candidate sizes of {@link scanSize}: log-spaced over 1 % to 10× the survey's reach. */
+const SIZE_CANDIDATES = 16;
+/** Golden-section steps of {@link scanSize}: the bracket of two grid steps shrinks to ~2e-5 of the size. */
+const SIZE_REFINE = 22;
+const GOLDEN = (Math.sqrt(5) - 1) / 2;
+
 /**
  * Starting values for a coil model with one amplitude (linear) and one overall size: for
- * each candidate size s, `shape(s)` gives a parameter vector with amplitude 1, the model
- * predicts the survey, the amplitude A that best matches the readings in relative terms
- * is solved in closed form, A = Σ(f/y)/Σ(f²/y²) (minimising Σ(1 − A f/y)²), and the size
- * with the least misfit wins; then a golden-section search on ln s refines it. Candidates:
- * `hint` (e.g. the half-value estimate of DOMAIN.md §1.1) and 48 sizes spaced evenly in
- * ln s from 1 % to 10× the survey's reach. Deterministic, no randomness.
+ * each candidate size s, `shape(s, out)` writes a parameter vector with amplitude 1, the
+ * model predicts the survey, the amplitude A that best matches the readings in relative
+ * terms is solved in closed form, A = Σ(f/y)/Σ(f²/y²) (minimising Σ(1 − A f/y)²), and the
+ * size with the least misfit wins; then a golden-section search on ln s (one evaluation
+ * per step) refines it within a grid step either side. Candidates: `hint` (e.g. the
+ * half-value estimate of DOMAIN.md §1.1), the reach, and 16 sizes spaced evenly in ln s
+ * from 1 % to 10× the survey's reach. Deterministic, no randomness; two buffers allocated.
  *
  * @returns the winning parameter vector with the amplitude filled in
  */
 export function scanSize(
-  model: FieldModel, points: SurveyPoints, shape: (size: number) => Float64Array, amplitudeIndex: number, hint?: number,
+  model: FieldModel, points: SurveyPoints, shape: (size: number, out: Float64Array) => void, amplitudeIndex: number, hint?: number,
 ): Float64Array {
   const predicted = new Float64Array(points.n);
-  const misfit = (size: number): { cost: number; amplitude: number } => {
-    model.evaluate(shape(size), points, predicted);
+  const params = new Float64Array(model.parameters.length);
+  let amplitude = 1;
+  /** Relative misfit at `size`; leaves its best amplitude in `amplitude`. */
+  const misfit = (size: number): number => {
+    shape(size, params);
+    model.evaluate(params, points, predicted);
     let numerator = 0;
     let denominator = 0;
     for (let i = 0; i < points.n; i++) {
@@ -79,8 +90,9 @@ export function scanSize(
       numerator += f / y;
       denominator += (f * f) / (y * y);
     }
-    if (!(denominator > 0)) return { cost: Infinity, amplitude: 1 };
-    const amplitude = numerator / denominator;
+    amplitude = 1;
+    if (!(denominator > 0)) return Infinity;
+    amplitude = numerator / denominator;
     let cost = 0;
     for (let i = 0; i < points.n; i++) {
       const y = points.field[i]!;
@@ -88,36 +100,53 @@ export function scanSize(
       if (y === 0 || !Number.isFinite(y) || !Number.isFinite(f)) continue;
       cost += (1 - (amplitude * f) / y) ** 2;
     }
-    return { cost, amplitude };
+    return cost;
   };
   const reach = surveyReach(points);
   let bestSize = reach;
-  let best = misfit(reach);
-  const candidates: number[] = [];
-  for (let i = 0; i < 48; i++) candidates.push(reach * 0.01 * 1000 ** (i / 47));
-  if (hint !== undefined && hint > 0 && Number.isFinite(hint)) candidates.push(hint);
-  for (const size of candidates) {
-    const trial = misfit(size);
-    if (trial.cost < best.cost) {
-      best = trial;
+  let bestCost = misfit(reach);
+  let bestAmplitude = amplitude;
+  const consider = (size: number): void => {
+    const cost = misfit(size);
+    if (cost < bestCost) {
+      bestCost = cost;
       bestSize = size;
+      bestAmplitude = amplitude;
     }
-  }
+  };
+  const ratio = 1000 ** (1 / (SIZE_CANDIDATES - 1));
+  for (let i = 0; i < SIZE_CANDIDATES; i++) consider(reach * 0.01 * ratio ** i);
+  if (hint !== undefined && hint > 0 && Number.isFinite(hint)) consider(hint);
   // golden-section search on ln(size) within one grid step either side
-  const ratio = 1000 ** (1 / 47);
   let lo = Math.log(bestSize / ratio);
   let hi = Math.log(bestSize * ratio);
-  const golden = (Math.sqrt(5) - 1) / 2;
-  for (let i = 0; i < 30; i++) {
-    const left = hi - golden * (hi - lo);
-    const right = lo + golden * (hi - lo);
-    if (misfit(Math.exp(left)).cost <= misfit(Math.exp(right)).cost) hi = right;
-    else lo = left;
+  let left = hi - GOLDEN * (hi - lo);
+  let right = lo + GOLDEN * (hi - lo);
+  let leftCost = misfit(Math.exp(left));
+  let rightCost = misfit(Math.exp(right));
+  for (let i = 0; i < SIZE_REFINE; i++) {
+    if (leftCost <= rightCost) {
+      hi = right;
+      right = left;
+      rightCost = leftCost;
+      left = hi - GOLDEN * (hi - lo);
+      leftCost = misfit(Math.exp(left));
+    } else {
+      lo = left;
+      left = right;
+      leftCost = rightCost;
+      right = lo + GOLDEN * (hi - lo);
+      rightCost = misfit(Math.exp(right));
+    }
   }
   const refined = Math.exp(0.5 * (lo + hi));
-  const final = misfit(refined);
-  const size = final.cost <= best.cost ? refined : bestSize;
-  const params = shape(size);
-  params[amplitudeIndex] = final.cost <= best.cost ? final.amplitude : best.amplitude;
-  return params;
+  const refinedCost = misfit(refined);
+  if (refinedCost <= bestCost) {
+    bestSize = refined;
+    bestAmplitude = amplitude;
+  }
+  const result = new Float64Array(model.parameters.length);
+  shape(bestSize, result);
+  result[amplitudeIndex] = bestAmplitude;
+  return result;
 }

@@ -53,6 +53,6 @@ export const loopModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(loopModel, points, (radius) => Float64Array.of(1, radius, 0, 0), 0, halfValueRadius(points));
+    return scanSize(loopModel, points, (radius, out) => out.set([1, radius, 0, 0]), 0, halfValueRadius(points));
   },
 };

@@ -29,7 +29,10 @@ function rectangleComponents(params: Float64Array, distance: number, radial: num
  * exact (the field is linear in it) and the width, height and probe-offset columns are
  * central differences of the closed form with steps 6e-6 of the coil size (relative error
  * ≈ 1e-10), since the segment formula's derivatives are long and gain nothing here.
- * Initial guess: scan of a square of side s (width = height = s) with the best N·I.
+ * Initial guess: scan of a 1.25·s × 0.8·s rectangle (area s²) with the best N·I; not a
+ * square, where width and height trade places on the axis and the search would pick
+ * between the two mirror answers by rounding. Off the square the choice is made by the
+ * start: the mirror with the longer side as width, as fits report it (canonicalParameters).
  */
 export const rectangleModel: FieldModel = {
   id: 'rectangle',
@@ -94,6 +97,6 @@ export const rectangleModel: FieldModel = {
     return true;
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(rectangleModel, points, (size) => Float64Array.of(1, size, size, 0, 0), 0);
+    return scanSize(rectangleModel, points, (size, out) => out.set([1, 1.25 * size, 0.8 * size, 0, 0]), 0);
   },
 };

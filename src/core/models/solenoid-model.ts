@@ -85,6 +85,6 @@ export const solenoidModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(solenoidModel, points, (size) => Float64Array.of(1, size, size, 0, 0), 0);
+    return scanSize(solenoidModel, points, (size, out) => out.set([1, size, size, 0, 0]), 0);
   },
 };

@@ -95,6 +95,6 @@ export const thickCoilModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(thickCoilModel, points, (size) => Float64Array.of(1, 0.5 * size, 1.5 * size, size, 0, 0), 0);
+    return scanSize(thickCoilModel, points, (size, out) => out.set([1, 0.5 * size, 1.5 * size, size, 0, 0]), 0);
   },
 };
