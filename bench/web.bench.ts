@@ -59,18 +59,21 @@ try {
         document.querySelector('#drop-zone')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true, cancelable: true }));
         // no named inner functions here: tsx would wrap them in a helper the page lacks
         while (!(body.getAttribute('data-report-count') !== before && body.getAttribute('data-state') === 'ready')) {
-          if (performance.now() - started > 300_000) return { total: Number.NaN, worker: Number.NaN, view: Number.NaN };
+          if (performance.now() - started > 300_000 || body.getAttribute('data-state') === 'failed') {
+            return { total: Number.NaN, worker: Number.NaN, view: Number.NaN, failure: document.querySelector('#run-status')?.textContent ?? '' };
+          }
           await new Promise((resolve) => setTimeout(resolve, 5));
         }
-        return { total: performance.now() - started, worker: Number(body.getAttribute('data-pipeline-ms')), view: Number(body.getAttribute('data-render-ms')) + Number(body.getAttribute('data-charts-ms')) };
+        return { total: performance.now() - started, worker: Number(body.getAttribute('data-pipeline-ms')), view: Number(body.getAttribute('data-render-ms')) + Number(body.getAttribute('data-charts-ms')), failure: '' };
       }, { text, name: `bench-${readings}.csv` });
+      if (elapsed.failure) process.stdout.write(`  the page said: ${elapsed.failure}\n`);
       times.push(elapsed.total);
       workerTimes.push(elapsed.worker);
       viewTimes.push(elapsed.view);
     }
     const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
     if (times.some((t) => Number.isNaN(t))) {
-      process.stdout.write(`drop → report, ${readings.toLocaleString('en')} readings: no report within 300 s${targetMs === null ? '' : `; target ${targetMs} ms`}\n`);
+      process.stdout.write(`drop → report, ${readings.toLocaleString('en')} readings: no report (failed, or not within 300 s)${targetMs === null ? '' : `; target ${targetMs} ms`}\n`);
       continue;
     }
     process.stdout.write(

@@ -103,10 +103,15 @@ function refit(): void {
     settingsUi.showErrors(outcome.settingErrors);
     levels.showErrors(outcome.settingErrors);
     performance.mark('ringfall:panels');
-    report.showReport(outcome.report, elapsedMs);
+    try {
+      report.showReport(outcome.report, elapsedMs);
+    } catch (error) {
+      // a defect in drawing, not in the user's data: say so rather than leave the page waiting
+      report.showMessage(`The report could not be drawn (${String(error)}). The JSON and CSV exports still hold the results; please report this with the file.`, 'failed');
+    }
     performance.mark('ringfall:report');
   }, (error: Error) => {
-    if (error.message !== 'superseded') report.showMessage(`Something went wrong while fitting: ${error.message}`, 'failed');
+    if (error.message !== 'superseded') report.showMessage(`Something went wrong while fitting: ${error.message}. Please report this with the file.`, 'failed');
   });
 }
 

@@ -70,8 +70,8 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
     };
     try {
       const result = importSurveys(file.text, options);
-      surveys.push(...result.surveys.map((survey) => ({ survey, notes: result.detection.notes, skipped: null })));
-      surveys.push(...result.skipped.map((s) => ({ survey: s.survey, notes: result.detection.notes, skipped: s.reason })));
+      for (const survey of result.surveys) surveys.push({ survey, notes: result.detection.notes, skipped: null });
+      for (const group of result.skipped) surveys.push({ survey: group.survey, notes: result.detection.notes, skipped: group.reason });
       const rows = [
         ...result.surveys.flatMap((s) => s.rejected),
         ...result.skipped.flatMap((s) => [...s.survey.rejected, ...s.survey.readings.map((r) => ({ line: r.line, column: null, value: null, reason: s.reason }))]),

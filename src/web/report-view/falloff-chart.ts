@@ -7,6 +7,7 @@ import {
   type ChartSpec, type LegendItem,
 } from './chart-spec';
 import { niceLogBound } from './nice-ticks';
+import { largest, smallest } from './extent';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
 import { chartFrame, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
@@ -29,10 +30,10 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   if (positive.length === 0) return null;
   const notes: string[] = [];
 
-  const field = fieldUnitFor(Math.max(...positive.map((p) => p.field)));
-  const length = distanceUnitFor(Math.max(...positive.map((p) => at(p))));
-  let xMin = Math.min(...positive.map((p) => at(p)));
-  let xMax = Math.max(...positive.map((p) => at(p)));
+  const field = fieldUnitFor(largest(positive.map((p) => p.field)));
+  const length = distanceUnitFor(largest(positive.map(at)));
+  let xMin = smallest(positive.map(at));
+  let xMax = largest(positive.map(at));
   for (const t of survey.thresholds) {
     for (const d of [t.distance?.value, t.naive?.distance?.value]) {
       if (d !== undefined && d > 0 && d < xMax * 20) xMax = Math.max(xMax, d);
@@ -40,8 +41,8 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   }
   xMin = niceLogBound(xMin / 1.05, -1);
   xMax = niceLogBound(xMax * 1.05, 1);
-  const yMax = niceLogBound(Math.max(...positive.map((p) => p.field)) * 1.3, 1);
-  const yMin = niceLogBound(Math.max(Math.min(...positive.map((p) => p.field), ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
+  const yMax = niceLogBound(largest(positive.map((p) => p.field)) * 1.3, 1);
+  const yMin = niceLogBound(Math.max(Math.min(smallest(positive.map((p) => p.field)), ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
   const X = (d: number) => d / length.factor;
   const Y = (b: number): number | null => (b > 0 && Number.isFinite(b) ? b / field.factor : null);
 

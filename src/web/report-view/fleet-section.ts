@@ -6,6 +6,7 @@ import { formatNumber, formatQuantity } from '../../core/units';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
+import { largest, smallest } from './extent';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
 import { rankedFits } from './survey-facts';
@@ -106,11 +107,13 @@ function historyChart(report: Report): ChartSpec | null {
     legend.push({ label: coil, colour, shape: 'line' });
   });
   const xs = series.flatMap(([, points]) => points.map((p) => p.x));
-  const ticks = niceTicks(Math.min(...xs) - 0.05, Math.max(...xs) + 0.05, 6);
+  const first = smallest(xs);
+  const last = largest(xs);
+  const ticks = niceTicks(first - 0.05, last + 0.05, 6);
   const step = ticks.length > 1 ? ticks[1]! - ticks[0]! : 0.25;
   const options = baseOptions();
   options.scales = {
-    x: { type: 'linear', min: Math.floor(Math.min(...xs) / step) * step, max: Math.ceil(Math.max(...xs) / step) * step, title: { display: true, text: 'survey date (decimal year)' }, ticks: { stepSize: step, format: { useGrouping: false, maximumFractionDigits: 2 } }, grid: { color: palette.grid } },
+    x: { type: 'linear', min: Math.floor(first / step) * step, max: Math.ceil(last / step) * step, title: { display: true, text: 'survey date (decimal year)' }, ticks: { stepSize: step, format: { useGrouping: false, maximumFractionDigits: 2 } }, grid: { color: palette.grid } },
     y: { type: 'linear', title: { display: true, text: 'ampere-turns (A), bars: 95% interval' }, grid: { color: palette.grid } },
   } as NonNullable<typeof options.scales>;
   return {

@@ -36,6 +36,12 @@ describe('report view', () => {
     expect(markup).toMatch(/data-param="ampereTurns" data-value="120"><th scope="row">ampereTurns<\/th><td class="rf-num">120.0 A<\/td><td class="rf-num">117.6 to 122.4 A/);
   });
 
+  it('renderSurveySection() copes with 200,000 readings, drawing an even sample and saying so', () => {
+    // Math.max(...values) overflows V8's call stack near 10⁵ arguments; the view must not use it on readings
+    const markup = renderSurveySection(fabricatedReport('BIG', 200_000), standInLookup, 'rf-survey-1').value;
+    expect(markup).toContain('1500 of 200000 on-axis readings are drawn');
+  });
+
   it('renderReportDocument() is self-contained: inline library, CSP forbidding outside requests, no src/href to elsewhere', () => {
     const doc = renderReportDocument({ surveys: [fabricatedReport('A'), { ...fabricatedReport('A'), date: '2025-03-14' }] }, { chartLibrary: 'window.Chart = function () {}; "</script>";', lookup: standInLookup });
     expect(doc).toContain(`default-src 'none'`);

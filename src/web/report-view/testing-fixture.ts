@@ -85,9 +85,11 @@ export function fabricatedFit(
   };
 }
 
-/** A survey report of a 120 A, 45 mm loop read at 12 distances, with a coil id `coil`. */
-export function fabricatedReport(coil: string | null): SurveyReport {
-  const distances = [0.002, 0.005, 0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.09, 0.12, 0.15];
+/** A survey report of a 120 A, 45 mm loop read at 12 distances (or `count` from 2 to 150 mm), with a coil id `coil`. */
+export function fabricatedReport(coil: string | null, count?: number): SurveyReport {
+  const distances = count === undefined
+    ? [0.002, 0.005, 0.01, 0.015, 0.02, 0.03, 0.04, 0.05, 0.07, 0.09, 0.12, 0.15]
+    : Array.from({ length: count }, (_, i) => 0.002 + (0.148 * i) / (count - 1));
   const truth = [120, 0.045, 0.003, 0];
   const clean = new Float64Array(distances.length);
   loopStandIn.evaluate(Float64Array.from(truth), { n: distances.length, distance: Float64Array.from(distances), radial: new Float64Array(distances.length), field: clean, kind: 'magnitude' }, clean);
