@@ -33,16 +33,18 @@ export interface FreeParameters {
 /** Buffers of length p that a FreeParameters map is written into (see the workspace). */
 export type FreeParameterBuffers = Omit<FreeParameters, 'count' | 'bounded'>;
 
-/**
- * Where a start on, outside or nearer than this to a bound is moved: this fraction of the
- * range (or typical size) inside. The transforms are flat on the bound, so a start within
- * rounding of it can make the first steps vanish and stop the search on the step test.
- */
+/** Where a start on or outside a bound is moved: this fraction of the range (or typical size) inside. */
 const INSET = 1e-3;
+/**
+ * A start nearer a bound than this fraction of the range (or typical size) is moved to
+ * INSET too: the transforms are flat on the bound, and from within rounding of it the
+ * first steps can vanish and stop the search on the step test.
+ */
+const NEAR = 1e-10;
 
 /**
  * Build the free-parameter map from the options into `buffers` and move any start that
- * sits on, outside or within INSET of its bounds to INSET inside them (a transform has zero
+ * sits on, outside or within NEAR of its bounds to INSET inside them (a transform has zero
  * slope on the bound), with a warning. `params` holds θ₀ on entry and the possibly moved start on return.
  * @throws RangeError when option lengths do not match p or a lower bound exceeds its upper.
  */
@@ -76,12 +78,14 @@ export function freeParameters(
     const typical = Math.abs(typicalSize === undefined ? 1 : typicalSize[at]!) || 1;
     const x = params[at]!;
     let moved = x;
-    const inset = INSET * (kind === TWO_SIDED ? hi - lo : typical);
-    if (kind === TWO_SIDED && !(x >= lo + inset && x <= hi - inset)) moved = x > 0.5 * (lo + hi) ? hi - inset : lo + inset;
-    if (kind === LOWER_ONLY && !(x >= lo + inset)) moved = lo + inset;
-    if (kind === UPPER_ONLY && !(x <= hi - inset)) moved = hi - inset;
+    const size = kind === TWO_SIDED ? hi - lo : typical;
+    const near = NEAR * size;
+    const inset = INSET * size;
+    if (kind === TWO_SIDED && !(x > lo + near && x < hi - near)) moved = x > 0.5 * (lo + hi) ? hi - inset : lo + inset;
+    if (kind === LOWER_ONLY && !(x > lo + near)) moved = lo + inset;
+    if (kind === UPPER_ONLY && !(x < hi - near)) moved = hi - inset;
     if (moved !== x) {
-      warnings.push(`start of parameter ${at} (${x}) was on, outside or within ${INSET} of its range from its bounds [${lo}, ${hi}]; moved to ${moved}`);
+      warnings.push(`start of parameter ${at} (${x}) was on, outside or within rounding of its bounds [${lo}, ${hi}]; moved to ${moved}`);
       params[at] = moved;
     }
     buffers.index[k] = at;

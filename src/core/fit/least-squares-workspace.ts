@@ -77,3 +77,30 @@ export function createLeastSquaresWorkspace(m: number, p: number): LeastSquaresW
     free: { index: new Int32Array(p), kind: new Uint8Array(p), lower: vp(), upper: vp(), scale: vp(), typicalSize: vp() },
   };
 }
+
+/** Spare workspaces by size (m·p key), so fits without a workspace of their own allocate none. */
+const spare = new Map<string, LeastSquaresWorkspace[]>();
+/** Sizes kept, and spares per size: enough for a survey's models and a nested fit. */
+const MAX_SIZES = 16;
+const MAX_PER_SIZE = 2;
+
+/**
+ * A workspace for m observations and p parameters from the spares, or a new one. Give it
+ * back with {@link releaseWorkspace} once the fit's solution is built (solutions copy
+ * everything out). A workspace taken is not handed out again until released, so nested
+ * fits get their own.
+ */
+export function takeWorkspace(m: number, p: number): LeastSquaresWorkspace {
+  return spare.get(`${m}:${p}`)?.pop() ?? createLeastSquaresWorkspace(m, p);
+}
+
+/** Return a workspace from {@link takeWorkspace} to the spares (kept only up to a few per size). */
+export function releaseWorkspace(ws: LeastSquaresWorkspace): void {
+  const key = `${ws.m}:${ws.p}`;
+  const list = spare.get(key);
+  if (list !== undefined) {
+    if (list.length < MAX_PER_SIZE) list.push(ws);
+  } else if (spare.size < MAX_SIZES) {
+    spare.set(key, [ws]);
+  }
+}

@@ -6,7 +6,7 @@ import { evaluateCost, prepareLeastSquares } from './prepare-least-squares';
 import { applyQTransposeAndFinishR, qrFactorize } from './qr-factorize';
 import { weightedJacobian } from './weighted-jacobian';
 import type { AbortFlag, LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution, StopCode } from './least-squares-types';
-import type { LeastSquaresWorkspace } from './least-squares-workspace';
+import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';
 
 const EPSILON = 2.220446049250313e-16;
 
@@ -26,7 +26,8 @@ const EPSILON = 2.220446049250313e-16;
  * Bounds are honoured through smooth transforms (bound-transform.ts); fixed parameters
  * are removed from the problem. Never throws for non-convergence.
  *
- * @param workspace buffers to reuse (see createLeastSquaresWorkspace); allocated when absent.
+ * @param workspace buffers to reuse (see createLeastSquaresWorkspace); when absent one is
+ *   taken from the spares (takeWorkspace) and given back after the solution is copied out.
  * @throws RingfallError FIT_UNDERDETERMINED when there are fewer observations than free
  *   parameters; RangeError for malformed input (lengths, σ ≤ 0, non-finite data).
  * @example
@@ -39,6 +40,19 @@ export function fitLeastSquares(
   options: LeastSquaresOptions,
   workspace?: LeastSquaresWorkspace,
 ): LeastSquaresSolution {
+  const m = problem.observed.length;
+  const p = problem.parameterCount;
+  if (workspace !== undefined && workspace.m === m && workspace.p === p) return iterate(problem, options, workspace);
+  const borrowed = takeWorkspace(m, p);
+  try {
+    return iterate(problem, options, borrowed);
+  } finally {
+    releaseWorkspace(borrowed);
+  }
+}
+
+/** The Levenberg–Marquardt iteration of {@link fitLeastSquares} in a workspace of the right size. */
+function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, workspace: LeastSquaresWorkspace): LeastSquaresSolution {
   const setup = prepareLeastSquares(problem, options, workspace);
   const { ws, map, settings } = setup;
   const { m } = ws;

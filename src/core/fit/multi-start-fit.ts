@@ -2,7 +2,7 @@ import { normalRandom } from '../random/normal-random';
 import { mulberry32 } from '../random/mulberry32';
 import { fitLeastSquares } from './least-squares';
 import type { LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution } from './least-squares-types';
-import { createLeastSquaresWorkspace } from './least-squares-workspace';
+import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';
 
 /** Options of {@link fitMultiStart}. */
 export interface MultiStartOptions {
@@ -45,12 +45,21 @@ export interface MultiStartFit {
  * when `options.signal` is aborted, keeping the best so far.
  */
 export function fitMultiStart(problem: LeastSquaresProblem, options: LeastSquaresOptions, multi: MultiStartOptions): MultiStartFit {
+  const workspace = takeWorkspace(problem.observed.length, problem.parameterCount);
+  try {
+    return searchStarts(problem, options, multi, workspace);
+  } finally {
+    releaseWorkspace(workspace);
+  }
+}
+
+/** The starts of {@link fitMultiStart}, all in one workspace. */
+function searchStarts(problem: LeastSquaresProblem, options: LeastSquaresOptions, multi: MultiStartOptions, workspace: LeastSquaresWorkspace): MultiStartFit {
   const p = problem.parameterCount;
   const spread = multi.spread ?? 0.5;
   const count = multi.starts ?? 8;
   const needed = multi.agreement ?? Infinity;
   const gaussian = normalRandom(mulberry32(multi.seed));
-  const workspace = createLeastSquaresWorkspace(problem.observed.length, p);
   let best = fitLeastSquares(problem, options, workspace);
   let bestStart = 0;
   let convergedFits = best.converged ? 1 : 0;

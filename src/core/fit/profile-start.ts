@@ -1,4 +1,5 @@
 import type { FieldModel, SurveyPoints } from '../models/field-model';
+import { goldenSection } from '../models/initial-guess';
 
 /** Units of a source strength: every catalog model's reading is linear in it (Biot–Savart is linear in the current). */
 const amplitudeUnits: ReadonlySet<string> = new Set(['A', 'A·m²', 'T·m^n']);
@@ -6,7 +7,8 @@ const amplitudeUnits: ReadonlySet<string> = new Set(['A', 'A·m²', 'T·m^n']);
 const GRID = 10;
 /** Golden-section steps between the best grid offset's neighbours. */
 const REFINE = 6;
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
+/** Golden-section steps for a free exponent on [n/2, 2n] at the chosen offset: ~0.5 % of n. */
+const EXPONENT_REFINE = 12;
 
 /** A start refined by {@link profileStart}. */
 export interface ProfileStart {
@@ -36,12 +38,13 @@ export interface ProfileStart {
  * only δ is searched: the nearest sensing point at 10 log-spaced distances from 0.2 % of
  * the survey's reach out to the box's upper offset, then golden-section steps between the
  * best one's neighbours. A free power-law exponent is re-read at each δ as the log–log
- * slope of |B| against d + δ (DOMAIN.md §1.9). This searches the whole allowed range of the
- * offset, where the misfit of a model that does not describe the coil (a dipole or power
- * law in the near field) often has its minimum far from the start; the shape parameters
- * (radius, exponent) stay as the model's initialGuess set them. Deterministic, same weights
- * as the fit (1/σ², or 1). Returns the start unchanged (scanned false) when nothing applies,
- * and never a start worse than the one given.
+ * slope of |B| against d + δ (DOMAIN.md §1.9), then settled by golden-section steps on
+ * [n/2, 2n] at the chosen δ (the slope ignores the background). This searches the whole
+ * allowed range of the offset, where the misfit of a model that does not describe the coil
+ * (a dipole or power law in the near field) often has its minimum far from the start;
+ * other shape parameters (radius, lengths) stay as the model's initialGuess set them.
+ * Deterministic, same weights as the fit (1/σ², or 1). Returns the start unchanged
+ * (scanned false) when nothing applies, and never a start worse than the one given.
  *
  * @param sigma σᵢ (T) or null for equal weights; lower, upper the fit's box (model order).
  */
@@ -74,12 +77,12 @@ export function profileStart(
   for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
   let best = Float64Array.from(start);
   let bestCost = Infinity;
-  /** χ² at offset δ with A, b solved (and the exponent re-read); the winner is copied to best. */
-  const profile = (delta: number): number => {
+  /** χ² at offset δ with A, b solved and the exponent given or re-read; the winner is copied to best. */
+  const profile = (delta: number, power?: number): number => {
     trial.set(start);
     if (offset >= 0) trial[offset] = delta;
     if (freeExponent) {
-      const slope = logLogSlope(points, logField, offset >= 0 ? delta : 0);
+      const slope = power === undefined ? logLogSlope(points, logField, offset >= 0 ? delta : 0) : -power;
       if (slope < 0 && -slope < upper[exponent]!) trial[exponent] = -slope;
     }
     const cost = solveLinear(model, points, trial, shape, sigma, amplitude, background, freeAmplitude, freeBackground, sign);
@@ -114,25 +117,21 @@ export function profileStart(
       }
     }
     if (bestIndex >= 0 && Number.isFinite(gridCost)) {
-      let a = first + Math.max(0, bestIndex - 1) * step;
-      let b = first + Math.min(GRID - 1, bestIndex + 1) * step;
-      let x1 = b - GOLDEN * (b - a);
-      let x2 = a + GOLDEN * (b - a);
-      let f1 = profile(at(x1));
-      let f2 = profile(at(x2));
-      for (let s = 0; s < REFINE; s++) {
-        if (f1 <= f2) {
-          b = x2; x2 = x1; f2 = f1; x1 = b - GOLDEN * (b - a); f1 = profile(at(x1));
-        } else {
-          a = x1; x1 = x2; f1 = f2; x2 = a + GOLDEN * (b - a); f2 = profile(at(x2));
-        }
-      }
+      goldenSection((x) => profile(at(x)), first + Math.max(0, bestIndex - 1) * step, first + Math.min(GRID - 1, bestIndex + 1) * step, REFINE);
     }
     // Within rounding of an edge (exp and log of the grid): put it on the edge.
     const width = 1e-9 * (Number.isFinite(hi - lo) ? hi - lo : Math.abs(best[offset]!) + 1);
     if (best[offset]! >= hi - width) best[offset] = hi;
     if (best[offset]! <= lo + width) best[offset] = lo;
     if (best[offset] === hi || best[offset] === lo) onBound = offset;
+  }
+  if (freeExponent && Number.isFinite(bestCost)) {
+    // The log–log slope ignores the background: settle the exponent itself at the chosen offset.
+    const delta = offset >= 0 ? best[offset]! : 0;
+    const power = best[exponent]!;
+    bestCost = Infinity;
+    profile(delta, power);
+    goldenSection((x) => profile(delta, x), Math.max(lower[exponent]!, 0.5 * power), Math.min(upper[exponent]!, 2 * power), EXPONENT_REFINE);
   }
   if (!Number.isFinite(bestCost)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
   // The linear solve assumed the reading is linear in A for A of the start's sign; check with the model itself.

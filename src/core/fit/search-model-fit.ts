@@ -8,6 +8,7 @@ import { fitLeastSquares } from './least-squares';
 import { fitMultiStart } from './multi-start-fit';
 import { fitRobust } from './robust-fit';
 import { profileStart } from './profile-start';
+import { settledFit } from './settled-fit';
 
 /** What the search for one model's best parameters found. */
 export interface ModelSearch {
@@ -71,12 +72,18 @@ export function searchModelFit(
   const base = leastSquaresOptions(model, points, initial, fixed, options);
   const profiled = profileStart(model, points, initial, fixed, base.lower as number[], base.upper as number[], readingUncertainty);
   let start = profiled.initial;
-  if (profiled.offsetOnBound >= 0) {
-    // The best offset is on the box's edge: settle the rest there first, with the offset
-    // held (an active set), then release it; a transformed parameter crawls along its bound.
-    const held = fixed.map((f, j) => f || j === profiled.offsetOnBound);
+  const edge = profiled.offsetOnBound;
+  if (edge >= 0) {
+    // The best offset is on the box's edge: settle the rest there first with the offset held
+    // (an active set), then release it from 1e-9 of its range inside; from farther in, a
+    // sine-transformed parameter crawls back to its bound for many iterations.
+    const held = fixed.map((f, j) => f || j === edge);
     const first = fitLeastSquares(problem, { ...base, fixed: held, initial: start, ...(readingUncertainty === null ? {} : { standardUncertainty: readingUncertainty }) });
-    if (first.converged && first.chiSquare <= profiled.chiSquare) start = first.params;
+    if (first.converged && first.chiSquare <= profiled.chiSquare) {
+      start = first.params;
+      const inward = 1e-9 * (base.upper![edge]! - base.lower![edge]!);
+      start[edge] = start[edge] === base.upper![edge] ? start[edge]! - inward : start[edge]! + inward;
+    }
   }
   const startOptions = { ...base, initial: start };
   const weighted: LeastSquaresOptions = readingUncertainty === null ? startOptions : { ...startOptions, standardUncertainty: readingUncertainty };
@@ -86,7 +93,7 @@ export function searchModelFit(
     starts: options.starts ?? 8,
     ...(adaptive ? {
       agreement: 2,
-      settled: (fit: LeastSquaresSolution) => profiled.scanned && settledFit(fit, readingUncertainty, profiled.scannedIndex, base.lower!, base.upper!),
+      settled: (fit: LeastSquaresSolution) => profiled.scanned && settledFit(model, points, fit, readingUncertainty, profiled.scannedIndex, base),
     } : {}),
   }).best;
   const canonical = Float64Array.from(solution.params);
@@ -167,42 +174,4 @@ function evaluatesEverywhere(model: FieldModel, params: Float64Array, points: Su
   const out = new Float64Array(points.n);
   model.evaluate(params, points, out);
   return out.every(Number.isFinite);
-}
-
-/**
- * The fit from a profile-scanned start needs no extra starts when it converged at a
- * stationary point of χ² within the box (Karush–Kuhn–Tucker conditions): for every
- * parameter inside its bounds the cosine between the weighted residuals and its Jacobian
- * column is ≤ 1e-5 — moving that parameter alone could lower χ² by at most cos² = 1e-10
- * relative, the fit's own cost tolerance, so this is a minimum and not a stall — and any
- * parameter on a bound is pushed against it (χ² would fall beyond it). Only the scanned offset, whose whole range
- * the scan searched, may end on a bound; any other parameter there calls for the extra
- * starts.
- */
-function settledFit(fit: LeastSquaresSolution, sigma: Float64Array | null, scanned: number, lower: ArrayLike<number>, upper: ArrayLike<number>): boolean {
-  if (!fit.converged || fit.stopCode === 'no-free-parameters') return false;
-  const k = fit.freeIndices.length;
-  const n = fit.residuals.length;
-  if (fit.jacobian.length !== n * k || !(fit.chiSquare > 0)) return fit.jacobian.length === n * k;
-  const norm = Math.sqrt(fit.chiSquare);
-  for (let c = 0; c < k; c++) {
-    const j = fit.freeIndices[c]!;
-    let dot = 0;
-    let column = 0;
-    for (let i = 0; i < n; i++) {
-      const a = fit.jacobian[i * k + c]!;
-      dot += (a * fit.residuals[i]!) / (sigma === null ? 1 : sigma[i]!);
-      column += a * a;
-    }
-    // dχ²/dθⱼ = −2·dot (residuals are y − f)
-    if (fit.atBound[j] === true) {
-      if (j !== scanned) return false;
-      const x = fit.params[j]!;
-      const outward = Math.abs(x - upper[j]!) < Math.abs(x - lower[j]!) ? dot >= 0 : dot <= 0;
-      if (!outward) return false;
-    } else if (column > 0 && Math.abs(dot) / Math.sqrt(column) > 1e-5 * norm) {
-      return false;
-    }
-  }
-  return true;
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
-import { logLogLine } from './initial-guess';
+import { goldenSection, logLogLine } from './initial-guess';
 import { fitLeastSquares } from '../fit/least-squares';
 import { fieldModelProblem } from '../fit/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
@@ -58,6 +58,14 @@ describe('initialGuess()', () => {
       const points = synthetic(getModel('loop'), [400, 0.05, 0, 0], evenly(from, to, 15));
       expectClose(getModel('power-law').initialGuess(points)[1]!, exponent, { abs: 1e-3 }, `${from}–${to} m`);
     }
+  });
+
+  it('goldenSection() brackets the minimum of (x − 1)² on [0, 3] to 3·0.618^40 (its TSDoc example)', () => {
+    // the bracket shrinks by (√5 − 1)/2 per step (Kiefer 1953)
+    const visited: number[] = [];
+    const middle = goldenSection((x) => (visited.push(x), (x - 1) ** 2), 0, 3, 40);
+    expectClose(middle, 1, { abs: 3 * 0.618034 ** 40 });
+    expect(visited).toHaveLength(42);
   });
 
   it('logLogLine() returns slope −2 for exact inverse-square data and null with one usable point', () => {

@@ -118,28 +118,7 @@ export function scanSize(
   for (let i = 0; i < SIZE_CANDIDATES; i++) consider(reach * 0.01 * ratio ** i);
   if (hint !== undefined && hint > 0 && Number.isFinite(hint)) consider(hint);
   // golden-section search on ln(size) within one grid step either side
-  let lo = Math.log(bestSize / ratio);
-  let hi = Math.log(bestSize * ratio);
-  let left = hi - GOLDEN * (hi - lo);
-  let right = lo + GOLDEN * (hi - lo);
-  let leftCost = misfit(Math.exp(left));
-  let rightCost = misfit(Math.exp(right));
-  for (let i = 0; i < SIZE_REFINE; i++) {
-    if (leftCost <= rightCost) {
-      hi = right;
-      right = left;
-      rightCost = leftCost;
-      left = hi - GOLDEN * (hi - lo);
-      leftCost = misfit(Math.exp(left));
-    } else {
-      lo = left;
-      left = right;
-      leftCost = rightCost;
-      right = lo + GOLDEN * (hi - lo);
-      rightCost = misfit(Math.exp(right));
-    }
-  }
-  const refined = Math.exp(0.5 * (lo + hi));
+  const refined = Math.exp(goldenSection((x) => misfit(Math.exp(x)), Math.log(bestSize / ratio), Math.log(bestSize * ratio), SIZE_REFINE));
   const refinedCost = misfit(refined);
   if (refinedCost <= bestCost) {
     bestSize = refined;
@@ -149,4 +128,35 @@ export function scanSize(
   shape(bestSize, result);
   result[amplitudeIndex] = bestAmplitude;
   return result;
+}
+
+/**
+ * Golden-section search for the least f on [a, b] (J. Kiefer, Proc. AMS 4 (1953) 502):
+ * the bracket shrinks by 0.618 per step, one evaluation each, for a function with one
+ * minimum in it. f keeps track of its own best point.
+ *
+ * @returns the middle of the final bracket
+ * @example goldenSection((x) => (x - 1) ** 2, 0, 3, 40) // 1 (within 3·0.618^40)
+ */
+export function goldenSection(f: (x: number) => number, a: number, b: number, steps: number): number {
+  let x1 = b - GOLDEN * (b - a);
+  let x2 = a + GOLDEN * (b - a);
+  let f1 = f(x1);
+  let f2 = f(x2);
+  for (let s = 0; s < steps; s++) {
+    if (f1 <= f2) {
+      b = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = b - GOLDEN * (b - a);
+      f1 = f(x1);
+    } else {
+      a = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = a + GOLDEN * (b - a);
+      f2 = f(x2);
+    }
+  }
+  return 0.5 * (a + b);
 }
