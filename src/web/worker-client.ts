@@ -1,5 +1,6 @@
 import type { FitSettings } from './fit-settings';
 import type { PipelineFile, PipelineOutcome, PipelineProgress } from './pipeline';
+import { unpackReport } from './packed-report';
 import type { RunRequest, WorkerMessage } from './worker-protocol';
 
 /**
@@ -35,7 +36,11 @@ export class PipelineWorker {
         const message = event.data;
         if (message.job !== job) return;
         if (message.type === 'progress') onProgress(message.progress);
-        else if (message.type === 'result') { finish(); resolve({ outcome: message.outcome, elapsedMs: message.elapsedMs }); }
+        else if (message.type === 'result') {
+          finish();
+          const outcome: PipelineOutcome = { files: message.files, report: unpackReport(message.report), settingErrors: message.settingErrors };
+          resolve({ outcome, elapsedMs: message.elapsedMs });
+        }
         else { finish(); reject(new Error(message.message)); }
       };
       const onError = (event: ErrorEvent) => { finish(); reject(new Error(`The worker failed: ${event.message}`)); };

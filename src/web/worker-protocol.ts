@@ -1,5 +1,7 @@
 import type { FitSettings } from './fit-settings';
-import type { PipelineFile, PipelineOutcome, PipelineProgress } from './pipeline';
+import type { PackedReport } from './packed-report';
+import type { FileOutcome, PipelineFile, PipelineProgress } from './pipeline';
+import type { SettingError } from './fit-settings';
 
 /** Page → worker: run the pipeline on these files with these settings. */
 export interface RunRequest {
@@ -12,5 +14,13 @@ export interface RunRequest {
 /** Worker → page messages, tagged with the job they belong to. */
 export type WorkerMessage =
   | { readonly type: 'progress'; readonly job: number; readonly progress: PipelineProgress }
-  | { readonly type: 'result'; readonly job: number; readonly outcome: PipelineOutcome; readonly elapsedMs: number }
+  | {
+    readonly type: 'result';
+    readonly job: number;
+    /** The PipelineOutcome with the report's per-reading points packed (packed-report.ts). */
+    readonly files: readonly FileOutcome[];
+    readonly report: PackedReport;
+    readonly settingErrors: readonly SettingError[];
+    readonly elapsedMs: number;
+  }
   | { readonly type: 'failed'; readonly job: number; readonly message: string };

@@ -4,6 +4,7 @@
  * Receives a RunRequest, posts progress (throttled to one message per 50 ms) and the
  * outcome, or `failed` with the message of an unexpected error.
  */
+import { packReport } from './packed-report';
 import { runPipeline } from './pipeline';
 import type { RunRequest, WorkerMessage } from './worker-protocol';
 
@@ -22,7 +23,9 @@ scope.addEventListener('message', (event: MessageEvent<RunRequest>) => {
       lastProgress = now;
       post({ type: 'progress', job: request.job, progress });
     });
-    post({ type: 'result', job: request.job, outcome, elapsedMs: performance.now() - started });
+    const { message, transfer } = packReport(outcome.report);
+    const result: WorkerMessage = { type: 'result', job: request.job, files: outcome.files, report: message, settingErrors: outcome.settingErrors, elapsedMs: performance.now() - started };
+    scope.postMessage(result, transfer);
   } catch (error) {
     post({ type: 'failed', job: request.job, message: error instanceof Error ? `${error.name}: ${error.message}` : String(error) });
   }
