@@ -15,22 +15,47 @@ import { deltaMethodVariance } from '../stats/delta-method-variance';
  * @example farFieldMoment(loopModel, Float64Array.of(400, 0.05, 0, 0)) // 400·π·0.05² = 3.14159 A·m²
  */
 export function farFieldMoment(model: FieldModel, params: ArrayLike<number>): number | null {
-  if (!model.physical) return null;
-  const coil = Float64Array.from(params);
+  return model.physical ? momentAt(model, params, momentScratch(model)) : null;
+}
+
+/** Buffers of one far-field moment evaluation (three axial points). */
+interface MomentScratch {
+  readonly coil: Float64Array;
+  readonly points: SurveyPoints;
+  readonly field: Float64Array;
+}
+
+function momentScratch(model: FieldModel): MomentScratch {
+  const distance = new Float64Array(3);
+  return {
+    coil: new Float64Array(model.parameters.length),
+    points: { n: 3, distance, radial: new Float64Array(3), field: new Float64Array(3), kind: 'axial' },
+    field: new Float64Array(3),
+  };
+}
+
+/** farFieldMoment of a physical model in preallocated buffers. */
+function momentAt(model: FieldModel, params: ArrayLike<number>, scratch: MomentScratch): number | null {
+  const { coil, points, field } = scratch;
+  const distance = points.distance as Float64Array;
   let size = 0;
-  model.parameters.forEach((spec, j) => {
-    if (spec.name === 'probeOffset' || spec.name === 'background') coil[j] = 0;
-    else if (spec.unit === 'm') size = Math.max(size, Math.abs(coil[j]!));
-  });
+  for (let j = 0; j < coil.length; j++) {
+    const spec = model.parameters[j]!;
+    coil[j] = spec.name === 'probeOffset' || spec.name === 'background' ? 0 : params[j]!;
+    if (spec.unit === 'm' && spec.name !== 'probeOffset' && spec.name !== 'background') size = Math.max(size, Math.abs(coil[j]!));
+  }
   if (!(size > 0) || !Number.isFinite(size)) size = 1e-3;
-  const distance = Float64Array.of(100 * size, 200 * size, 400 * size);
-  const points: SurveyPoints = { n: 3, distance, radial: new Float64Array(3), field: new Float64Array(3), kind: 'axial' };
-  const field = new Float64Array(3);
+  distance[0] = 100 * size;
+  distance[1] = 200 * size;
+  distance[2] = 400 * size;
   model.evaluate(coil, points, field);
-  const g = Array.from(distance, (z, i) => (2 * Math.PI * z ** 3 * field[i]!) / vacuumPermeability);
+  const g0 = (2 * Math.PI * distance[0] ** 3 * field[0]!) / vacuumPermeability;
+  const g1 = (2 * Math.PI * distance[1] ** 3 * field[1]!) / vacuumPermeability;
+  const g2 = (2 * Math.PI * distance[2] ** 3 * field[2]!) / vacuumPermeability;
   // Richardson in h = 1/z with ratio 2: remove the O(h), then the O(h²) term.
-  const first = [2 * g[1]! - g[0]!, 2 * g[2]! - g[1]!];
-  const moment = (4 * first[1]! - first[0]!) / 3;
+  const first0 = 2 * g1 - g0;
+  const first1 = 2 * g2 - g1;
+  const moment = (4 * first1 - first0) / 3;
   return Number.isFinite(moment) ? moment : null;
 }
 
@@ -61,17 +86,21 @@ export function momentEstimate(
   covariance: ArrayLike<number> | null,
   coverageFactor: number,
 ): MomentEstimate | null {
-  const value = farFieldMoment(model, params);
+  if (!model.physical) return null;
+  const scratch = momentScratch(model);
+  const value = momentAt(model, params, scratch);
   if (value === null) return null;
   if (covariance === null) return { value, stderr: null, ci95: null };
+  const moved = Float64Array.from(params);
   const gradient = freeIndices.map((j) => {
     const x = params[j]!;
     const h = 1e-6 * (x !== 0 ? Math.abs(x) : 1e-3);
-    const up = Float64Array.from(params);
-    const down = Float64Array.from(params);
-    up[j] = x + h;
-    down[j] = x - h;
-    return ((farFieldMoment(model, up) ?? NaN) - (farFieldMoment(model, down) ?? NaN)) / (2 * h);
+    moved[j] = x + h;
+    const up = momentAt(model, moved, scratch) ?? NaN;
+    moved[j] = x - h;
+    const down = momentAt(model, moved, scratch) ?? NaN;
+    moved[j] = x;
+    return (up - down) / (2 * h);
   });
   const variance = deltaMethodVariance(gradient, Float64Array.from(covariance));
   if (!(variance >= 0) || !Number.isFinite(variance)) return { value, stderr: null, ci95: null };

@@ -61,7 +61,7 @@ export function fitModel(
     }
   }
   const criteria = stated ? chiSquareCriteria(n, k, chiSquare + logScale) : leastSquaresCriteria(n, k + 1, solution.rss);
-  const coverage = studentTQuantile(0.975, stated ? Infinity : Math.max(1, freedom));
+  const coverage = coverageFactor(stated ? Infinity : Math.max(1, freedom));
   const moment = momentEstimate(model, solution.params, solution.freeIndices, uncertainty.covariance, coverage);
   const fitPoints = survey.readings.map((reading, i) => ({
     line: reading.line,
@@ -99,4 +99,16 @@ export function fitModel(
     ...(moment === null ? {} : { moment }),
     warnings,
   };
+}
+
+/** t quantile 0.975 by degrees of freedom: the few values a batch asks for, kept (an iterative inversion each). */
+const coverageFactors = new Map<number, number>();
+
+function coverageFactor(freedom: number): number {
+  let value = coverageFactors.get(freedom);
+  if (value === undefined) {
+    value = studentTQuantile(0.975, freedom);
+    if (coverageFactors.size < 64) coverageFactors.set(freedom, value);
+  }
+  return value;
 }

@@ -1,14 +1,15 @@
 import type { FieldModel, SurveyPoints } from '../models/field-model';
-import { goldenSection } from '../models/initial-guess';
+import { brentMinimum } from '../models/initial-guess';
+import { scratchArray } from './scratch-array';
 
 /** Units of a source strength: every catalog model's reading is linear in it (Biot–Savart is linear in the current). */
 const amplitudeUnits: ReadonlySet<string> = new Set(['A', 'A·m²', 'T·m^n']);
 /** Offsets tried: nearest sensing point at this many log-spaced distances from the datum. */
 const GRID = 10;
-/** Golden-section steps between the best grid offset's neighbours. */
-const REFINE = 6;
-/** Golden-section steps for a free exponent on [n/2, 2n] at the chosen offset: ~0.5 % of n. */
-const EXPONENT_REFINE = 12;
+/** Most evaluations refining the best grid offset between its neighbours (Brent's method to 0.1 % of d + δ). */
+const REFINE = 8;
+/** Most evaluations settling a free exponent on [n/2, 2n] at the chosen offset (Brent's method to 0.1 % of n). */
+const EXPONENT_REFINE = 10;
 
 /** A start refined by {@link profileStart}. */
 export interface ProfileStart {
@@ -36,9 +37,9 @@ export interface ProfileStart {
  * (a 2×2 system; an offset where A would take the other sign than the start's, or where the
  * shape cannot be told from a constant, is passed over) and
  * only δ is searched: the nearest sensing point at 10 log-spaced distances from 0.2 % of
- * the survey's reach out to the box's upper offset, then golden-section steps between the
- * best one's neighbours. A free power-law exponent is re-read at each δ as the log–log
- * slope of |B| against d + δ (DOMAIN.md §1.9), then settled by golden-section steps on
+ * the survey's reach out to the box's upper offset, then Brent's method between the best
+ * one's neighbours. A free power-law exponent is re-read at each δ as the log–log
+ * slope of |B| against d + δ (DOMAIN.md §1.9), then settled by Brent's method on
  * [n/2, 2n] at the chosen δ (the slope ignores the background). This searches the whole
  * allowed range of the offset, where the misfit of a model that does not describe the coil
  * (a dipole or power law in the near field) often has its minimum far from the start;
@@ -63,7 +64,7 @@ export function profileStart(
   const offset = specs.findIndex((p) => p.name === 'probeOffset');
   const exponent = specs.findIndex((p) => p.name === 'exponent');
   const n = points.n;
-  const shape = new Float64Array(n);
+  const shape = scratchArray(n, 0);
   const trial = Float64Array.from(start);
   const freeAmplitude = amplitude >= 0 && !fixed[amplitude];
   const freeBackground = background >= 0 && !fixed[background];
@@ -73,9 +74,9 @@ export function profileStart(
   const freeOffset = offset >= 0 && !fixed[offset] && lower[offset]! < upper[offset]!;
   if (!freeOffset && !freeAmplitude && !freeBackground) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
 
-  const logField = new Float64Array(n);
+  const logField = scratchArray(n, 1);
   for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
-  let best = Float64Array.from(start);
+  const best = Float64Array.from(start);
   let bestCost = Infinity;
   /** χ² at offset δ with A, b solved and the exponent given or re-read; the winner is copied to best. */
   const profile = (delta: number, power?: number): number => {
@@ -117,7 +118,8 @@ export function profileStart(
       }
     }
     if (bestIndex >= 0 && Number.isFinite(gridCost)) {
-      goldenSection((x) => profile(at(x)), first + Math.max(0, bestIndex - 1) * step, first + Math.min(GRID - 1, bestIndex + 1) * step, REFINE);
+      const around = first + bestIndex * step;
+      brentMinimum((x) => profile(at(x)), around - (bestIndex > 0 ? step : 0), around + (bestIndex < GRID - 1 ? step : 0), 1e-3, REFINE, around, gridCost);
     }
     // Within rounding of an edge (exp and log of the grid): put it on the edge.
     const width = 1e-9 * (Number.isFinite(hi - lo) ? hi - lo : Math.abs(best[offset]!) + 1);
@@ -130,8 +132,8 @@ export function profileStart(
     const delta = offset >= 0 ? best[offset]! : 0;
     const power = best[exponent]!;
     bestCost = Infinity;
-    profile(delta, power);
-    goldenSection((x) => profile(delta, x), Math.max(lower[exponent]!, 0.5 * power), Math.min(upper[exponent]!, 2 * power), EXPONENT_REFINE);
+    const atPower = profile(delta, power);
+    brentMinimum((x) => profile(delta, x), Math.max(lower[exponent]!, 0.5 * power), Math.min(upper[exponent]!, 2 * power), 1e-3 * power, EXPONENT_REFINE, power, atPower);
   }
   if (!Number.isFinite(bestCost)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
   // The linear solve assumed the reading is linear in A for A of the start's sign; check with the model itself.

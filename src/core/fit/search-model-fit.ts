@@ -8,6 +8,7 @@ import { fitLeastSquares } from './least-squares';
 import { fitMultiStart } from './multi-start-fit';
 import { fitRobust } from './robust-fit';
 import { profileStart } from './profile-start';
+import { scratchArray } from './scratch-array';
 import { settledFit } from './settled-fit';
 
 /** What the search for one model's best parameters found. */
@@ -171,7 +172,7 @@ function leastSquaresOptions(
 }
 
 function evaluatesEverywhere(model: FieldModel, params: Float64Array, points: SurveyPoints): boolean {
-  const out = new Float64Array(points.n);
+  const out = scratchArray(points.n, 0);
   model.evaluate(params, points, out);
   return out.every(Number.isFinite);
 }

@@ -49,12 +49,15 @@ export const dipoleModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    const byDistance = Array.from({ length: points.n }, (_, i) => i)
-      .map((i) => ({ r: Math.hypot(points.distance[i]!, points.radial[i]!), b: Math.abs(points.field[i]!) }))
-      .filter((p) => p.r > 0 && Number.isFinite(p.r) && Number.isFinite(p.b))
-      .sort((p, q) => p.r - q.r);
-    const farther = byDistance.slice(Math.floor(byDistance.length / 2));
-    const moment = medianOf(farther.map((p) => (2 * Math.PI * p.b * p.r ** 3) / vacuumPermeability));
+    const r = new Float64Array(points.n);
+    const order: number[] = [];
+    for (let i = 0; i < points.n; i++) {
+      r[i] = Math.hypot(points.distance[i]!, points.radial[i]!);
+      if (r[i]! > 0 && Number.isFinite(r[i]!) && Number.isFinite(points.field[i]!)) order.push(i);
+    }
+    order.sort((i, j) => r[i]! - r[j]! || i - j);
+    const farther = order.slice(Math.floor(order.length / 2));
+    const moment = medianOf(farther.map((i) => (2 * Math.PI * Math.abs(points.field[i]!) * r[i]! ** 3) / vacuumPermeability));
     return Float64Array.of(readingSign(points) * (Number.isFinite(moment) && moment > 0 ? moment : 1), 0, 0);
   },
 };

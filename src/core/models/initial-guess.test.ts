@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
-import { goldenSection, logLogLine } from './initial-guess';
+import { brentMinimum, logLogLine } from './initial-guess';
 import { fitLeastSquares } from '../fit/least-squares';
 import { fieldModelProblem } from '../fit/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
@@ -60,12 +60,14 @@ describe('initialGuess()', () => {
     }
   });
 
-  it('goldenSection() brackets the minimum of (x − 1)² on [0, 3] to 3·0.618^40 (its TSDoc example)', () => {
-    // the bracket shrinks by (√5 − 1)/2 per step (Kiefer 1953)
-    const visited: number[] = [];
-    const middle = goldenSection((x) => (visited.push(x), (x - 1) ** 2), 0, 3, 40);
-    expectClose(middle, 1, { abs: 3 * 0.618034 ** 40 });
-    expect(visited).toHaveLength(42);
+  it('brentMinimum() finds the minimum of (x − 1)² on [0, 3] to 1e-8 (its TSDoc example), and of cos x on [2, 4] at π in few evaluations', () => {
+    // exact minima: x = 1; cos x is least at x = π (parabolic steps converge superlinearly, Brent 1973 ch. 5)
+    expectClose(brentMinimum((x) => (x - 1) ** 2, 0, 3, 1e-8, 50), 1, { abs: 1e-8 });
+    let evaluations = 0;
+    const x = brentMinimum((t) => (evaluations++, Math.cos(t)), 2, 4, 1e-7, 50);
+    expectClose(x, Math.PI, { abs: 1e-7 });
+    // golden section alone would need log(2/1e-7)/log(1.618) ≈ 35 evaluations
+    expect(evaluations).toBeLessThan(15);
   });
 
   it('logLogLine() returns slope −2 for exact inverse-square data and null with one usable point', () => {

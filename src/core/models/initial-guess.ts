@@ -34,16 +34,22 @@ export function logLogLine(distance: Float64Array, field: Float64Array): { slope
 }
 
 /** Median of the finite values (NaN when there are none). */
-export function medianOf(values: readonly number[]): number {
-  const sorted = values.filter(Number.isFinite).sort((a, b) => a - b);
-  if (sorted.length === 0) return NaN;
-  const middle = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[middle]! : 0.5 * (sorted[middle - 1]! + sorted[middle]!);
+export function medianOf(values: ArrayLike<number>): number {
+  const finite = new Float64Array(values.length);
+  let count = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (Number.isFinite(v)) finite[count++] = v;
+  }
+  if (count === 0) return NaN;
+  const sorted = finite.subarray(0, count).sort();
+  const middle = count >> 1;
+  return count % 2 === 1 ? sorted[middle]! : 0.5 * (sorted[middle - 1]! + sorted[middle]!);
 }
 
 /** Sign of the median reading: −1 when most signed (axial) readings are negative, else +1. */
 export function readingSign(points: SurveyPoints): 1 | -1 {
-  return points.kind === 'axial' && medianOf(Array.from(points.field)) < 0 ? -1 : 1;
+  return points.kind === 'axial' && medianOf(points.field) < 0 ? -1 : 1;
 }
 
 /** Largest distance of the survey from the datum, √(d² + ρ²), or 0.05 m when all are 0. */
@@ -55,17 +61,16 @@ export function surveyReach(points: SurveyPoints): number {
 
 /** Candidate sizes of {@link scanSize}: log-spaced over 1 % to 10× the survey's reach. */
 const SIZE_CANDIDATES = 16;
-/** Golden-section steps of {@link scanSize}: the bracket of two grid steps shrinks to ~2e-5 of the size. */
-const SIZE_REFINE = 22;
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
+/** Most evaluations of {@link scanSize}'s refinement (Brent's method to 1e-6 in ln s). */
+const SIZE_REFINE = 24;
 
 /**
  * Starting values for a coil model with one amplitude (linear) and one overall size: for
  * each candidate size s, `shape(s, out)` writes a parameter vector with amplitude 1, the
  * model predicts the survey, the amplitude A that best matches the readings in relative
  * terms is solved in closed form, A = Σ(f/y)/Σ(f²/y²) (minimising Σ(1 − A f/y)²), and the
- * size with the least misfit wins; then a golden-section search on ln s (one evaluation
- * per step) refines it within a grid step either side. Candidates: `hint` (e.g. the
+ * size with the least misfit wins; then Brent's method on ln s (brentMinimum) refines it
+ * within a grid step either side. Candidates: `hint` (e.g. the
  * half-value estimate of DOMAIN.md §1.1), the reach, and 16 sizes spaced evenly in ln s
  * from 1 % to 10× the survey's reach. Deterministic, no randomness; two buffers allocated.
  *
@@ -117,8 +122,8 @@ export function scanSize(
   const ratio = 1000 ** (1 / (SIZE_CANDIDATES - 1));
   for (let i = 0; i < SIZE_CANDIDATES; i++) consider(reach * 0.01 * ratio ** i);
   if (hint !== undefined && hint > 0 && Number.isFinite(hint)) consider(hint);
-  // golden-section search on ln(size) within one grid step either side
-  const refined = Math.exp(goldenSection((x) => misfit(Math.exp(x)), Math.log(bestSize / ratio), Math.log(bestSize * ratio), SIZE_REFINE));
+  // Brent's method on ln(size) within one grid step either side, from the best candidate
+  const refined = Math.exp(brentMinimum((x) => misfit(Math.exp(x)), Math.log(bestSize / ratio), Math.log(bestSize * ratio), 1e-6, SIZE_REFINE, Math.log(bestSize), bestCost));
   const refinedCost = misfit(refined);
   if (refinedCost <= bestCost) {
     bestSize = refined;
@@ -131,32 +136,81 @@ export function scanSize(
 }
 
 /**
- * Golden-section search for the least f on [a, b] (J. Kiefer, Proc. AMS 4 (1953) 502):
- * the bracket shrinks by 0.618 per step, one evaluation each, for a function with one
- * minimum in it. f keeps track of its own best point.
+ * Minimum of f on [a, b] by Brent's method (R. P. Brent, "Algorithms for Minimization
+ * without Derivatives", 1973, ch. 5, procedure localmin): parabolic interpolation through
+ * the three best points, with a golden-section step whenever the parabola is not trusted,
+ * so it never does worse than golden section and converges superlinearly on a smooth
+ * minimum. Stops when x is known to within `tolerance` (absolute, in x's units) or after
+ * `maxEvaluations`. f keeps track of its own best point.
  *
- * @returns the middle of the final bracket
- * @example goldenSection((x) => (x - 1) ** 2, 0, 3, 40) // 1 (within 3·0.618^40)
+ * @param start a point inside [a, b] to begin from (e.g. the best of a grid), with `startValue` = f(start) when known
+ * @returns the best x found
+ * @example brentMinimum((x) => (x - 1) ** 2, 0, 3, 1e-8, 50) // 1 (within 1e-8)
  */
-export function goldenSection(f: (x: number) => number, a: number, b: number, steps: number): number {
-  let x1 = b - GOLDEN * (b - a);
-  let x2 = a + GOLDEN * (b - a);
-  let f1 = f(x1);
-  let f2 = f(x2);
-  for (let s = 0; s < steps; s++) {
-    if (f1 <= f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - GOLDEN * (b - a);
-      f1 = f(x1);
+export function brentMinimum(
+  f: (x: number) => number, a: number, b: number, tolerance: number, maxEvaluations: number, start?: number, startValue?: number,
+): number {
+  const c = (3 - Math.sqrt(5)) / 2;
+  let x = start !== undefined && start > a && start < b ? start : a + c * (b - a);
+  let fx = start === x && startValue !== undefined ? startValue : f(x);
+  let evaluations = start === x && startValue !== undefined ? 0 : 1;
+  let w = x;
+  let v = x;
+  let fw = fx;
+  let fv = fx;
+  let d = 0;
+  let e = 0;
+  while (evaluations < maxEvaluations) {
+    const middle = 0.5 * (a + b);
+    const tol1 = 1.4901161193847656e-8 * Math.abs(x) + tolerance / 3;
+    const tol2 = 2 * tol1;
+    if (Math.abs(x - middle) <= tol2 - 0.5 * (b - a)) break;
+    let parabolic = false;
+    if (Math.abs(e) > tol1) {
+      let r = (x - w) * (fx - fv);
+      let q = (x - v) * (fx - fw);
+      let p = (x - v) * q - (x - w) * r;
+      q = 2 * (q - r);
+      if (q > 0) p = -p;
+      else q = -q;
+      r = e;
+      e = d;
+      if (Math.abs(p) < Math.abs(0.5 * q * r) && p > q * (a - x) && p < q * (b - x)) {
+        d = p / q;
+        const u = x + d;
+        if (u - a < tol2 || b - u < tol2) d = x < middle ? tol1 : -tol1;
+        parabolic = true;
+      }
+    }
+    if (!parabolic) {
+      e = (x < middle ? b : a) - x;
+      d = c * e;
+    }
+    const u = x + (Math.abs(d) >= tol1 ? d : d > 0 ? tol1 : -tol1);
+    const fu = f(u);
+    evaluations += 1;
+    if (fu <= fx) {
+      if (u < x) b = x;
+      else a = x;
+      v = w;
+      fv = fw;
+      w = x;
+      fw = fx;
+      x = u;
+      fx = fu;
     } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + GOLDEN * (b - a);
-      f2 = f(x2);
+      if (u < x) a = u;
+      else b = u;
+      if (fu <= fw || w === x) {
+        v = w;
+        fv = fw;
+        w = u;
+        fw = fu;
+      } else if (fu <= fv || v === x || v === w) {
+        v = u;
+        fv = fu;
+      }
     }
   }
-  return 0.5 * (a + b);
+  return x;
 }

@@ -77,7 +77,7 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       const exponent = fixedExponent ?? (line !== null && -line.slope > 0 ? -line.slope : 2);
       const amplitude = line !== null && -line.slope > 0
         ? Math.exp(line.intercept)
-        : medianOf(Array.from(points.distance, (d, i) => (d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN)));
+        : medianOf(points.distance.map((d, i) => (d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN)));
       const start = Number.isFinite(amplitude) && amplitude > 0 ? sign * amplitude : sign * 1e-6;
       return free ? Float64Array.of(start, exponent, 0, 0) : Float64Array.of(start, 0, 0);
     },
