@@ -63,8 +63,14 @@ export function probeOffsetOf(fitted: FittedModel): number {
 
 /** Surveyed distances moved to the field point (reading + offset), as [nearest, farthest], m; null without points. */
 export function surveyedFieldRange(fitted: FittedModel, offset = probeOffsetOf(fitted)): [number, number] | null {
-  const distances = fitted.fit.points.map((p) => p.distance + offset);
-  return distances.length === 0 ? null : [Math.min(...distances), Math.max(...distances)];
+  // A loop, not Math.min(...array): spreading 10⁵ readings overflows a worker's stack.
+  let nearest = Infinity;
+  let farthest = -Infinity;
+  for (const point of fitted.fit.points) {
+    nearest = Math.min(nearest, point.distance + offset);
+    farthest = Math.max(farthest, point.distance + offset);
+  }
+  return fitted.fit.points.length === 0 ? null : [nearest, farthest];
 }
 
 /** True when a field-point distance lies outside the surveyed range (relative slack 1e-9). */

@@ -32,7 +32,8 @@ export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget)
   if (fitted.covariance === null || coverage === null || k === 0) return 'Free the parameters in the fit so that it reports intervals.';
   const covariance = Float64Array.from(fitted.covariance);
   const u = fitted.freeIndex.map((j) => target.gradient[j]!);
-  const farthest = Math.max(...fitted.fit.points.map((p) => p.distance), 1e-3);
+  let farthest = 1e-3;
+  for (const point of fitted.fit.points) farthest = Math.max(farthest, point.distance);
   const candidates = Array.from({ length: candidateCount }, (_, i) => ({ distance: (1.5 * farthest * i) / (candidateCount - 1), radial: 0 }));
   const noise = noiseFromFit(fitted.fit);
   if (!(noise.relative > 0 || noise.absolute > 0)) return 'The fit gives no reading uncertainty to plan further readings with; give the meter\'s accuracy (--uncertainty).';
