@@ -28,21 +28,22 @@ export function choleskyFactorize(
   gradient: Float64Array,
   minimumRatio = 1e-4,
 ): boolean {
-  gram.fill(0, 0, k * k);
-  gradient.fill(0, 0, k);
-  // One pass over the rows keeps the k(k+1)/2 + k sums independent of each other.
-  for (let i = 0; i < m; i++) {
-    const f = residuals[i]!;
-    for (let a = 0; a < k; a++) {
-      const ja = J[i + a * m]!;
-      gradient[a]! += ja * f;
-      for (let b = 0; b <= a; b++) gram[a * k + b]! += ja * J[i + b * m]!;
-    }
-  }
+  // Each sum over the rows in a register (columns are contiguous); same order of additions
+  // as a row-by-row pass, so the same rounding.
   for (let a = 0; a < k; a++) {
+    const ca = a * m;
+    let g = 0;
+    for (let i = 0; i < m; i++) g += J[ca + i]! * residuals[i]!;
+    gradient[a] = g;
+    for (let b = 0; b <= a; b++) {
+      const cb = b * m;
+      let sum = 0;
+      for (let i = 0; i < m; i++) sum += J[ca + i]! * J[cb + i]!;
+      gram[a * k + b] = sum;
+      gram[b * k + a] = sum;
+    }
     columnNorms[a] = Math.sqrt(gram[a * k + a]!);
     pivot[a] = a;
-    for (let b = 0; b < a; b++) gram[b * k + a] = gram[a * k + b]!;
   }
   for (let j = 0; j < k; j++) {
     let q = j;
