@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../../test/support/expect-close';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
+import { getModel } from '../models';
 import { compareModels } from './compare-models';
+import { describePowerLaw, powerLawContext } from './describe-power-law';
 import type { FitResult } from './fit-result';
 import { fitSurvey } from './fit-survey';
 import { evenlySpaced, simulatedSurvey } from './testing/simulated-survey';
@@ -81,5 +83,17 @@ describe('compareModels(fits)', () => {
     // DOMAIN.md §1.1 at z = 300 mm: 22.3 µT (3 significant digits as printed)
     const expected = loopAxis(400, 0.05, 0.3);
     expect(result.comparison[0]).toContain(`where loop gives ${(expected * 1e6).toPrecision(3)} uT`);
+  });
+
+  it('describePowerLaw() says the same with the survey\'s shared context as when it works everything out for one law', () => {
+    // the readings, their log–log line and the physical model's far field do not depend on which law is described
+    const survey = simulatedSurvey({ model: 'loop', params: { ampereTurns: 400, radius: 0.05, probeOffset: 0.003, background: 2e-5 }, distances: evenlySpaced(0, 0.25, 16), noise: { relative: 0.01, absolute: 1e-6 }, seed: 12 });
+    const fits = fitSurvey(survey);
+    const loop = fits.find((f) => f.model === 'loop')!;
+    const shared = powerLawContext(fits[0]!, loop, getModel);
+    for (const law of fits.filter((f) => !getModel(f.model).physical)) {
+      expect(describePowerLaw(law, loop, getModel, shared)).toBe(describePowerLaw(law, loop, getModel));
+    }
+    expect(shared.order).toEqual(survey.readings.map((_, i) => i));
   });
 });

@@ -1,7 +1,7 @@
 import { getModel } from '../models';
 import type { FieldModel, ModelId } from '../models/field-model';
 import { akaikeWeights } from '../stats/akaike-weights';
-import { describePowerLaw } from './describe-power-law';
+import { describePowerLaw, powerLawContext } from './describe-power-law';
 import type { FitResult } from './fit-result';
 
 /** The fits with their Akaike weights, the best model and the power-law sentences. */
@@ -32,9 +32,9 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
   const best = lowest(weighted);
   const physical = lowest(weighted.filter((fit) => modelOf(fit.model).physical));
-  const comparison = weighted
-    .filter((fit) => fit.converged && !modelOf(fit.model).physical)
-    .map((fit) => describePowerLaw(fit, physical, modelOf));
+  const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical);
+  const shared = laws.length > 0 ? powerLawContext(laws[0]!, physical, modelOf) : null;
+  const comparison = laws.map((fit) => describePowerLaw(fit, physical, modelOf, shared!));
   return { fits: weighted, best: best?.model ?? null, comparison };
 }
 

@@ -19,13 +19,10 @@ const systematic = 0.05;
  *
  * @param physical the best converged physical fit, or null; modelOf the catalog lookup.
  */
-export function describePowerLaw(fit: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel): string {
-  const byDistance = [...fit.points].sort((a, b) => a.distance - b.distance);
-  const positive = byDistance.filter((p) => p.distance > 0);
-  const line = logLogLine(Float64Array.from(positive, (p) => p.distance), Float64Array.from(positive, (p) => p.field));
-  const span = line === null ? byDistance : positive;
-  const range = `${millimetres(span[0]?.distance ?? 0)}–${millimetres(span[span.length - 1]?.distance ?? 0)} mm`;
-  const farthest = byDistance[byDistance.length - 1]?.distance ?? 0;
+export function describePowerLaw(
+  fit: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel, shared: PowerLawContext = powerLawContext(fit, physical, modelOf),
+): string {
+  const { order, line, range, farthest } = shared;
   const exponent = fit.params['exponent'];
   const assumed = fit.model === 'inverse-square' ? 2 : fit.model === 'inverse-cube' ? 3 : null;
   const own = exponent
@@ -34,11 +31,11 @@ export function describePowerLaw(fit: FitResult, physical: FitResult | null, mod
   const head = line === null
     ? `${fit.model} (${own} over ${range})`
     : `${fit.model} (the readings' apparent exponent is ${formatNumber(-line.slope, 3)} over ${range}; ${own})`;
-  const residuals = byDistance.map((p) => p.residual);
+  const residuals = order.map((i) => fit.points[i]!.residual);
   const runs = runsTest(residuals);
   let pattern: string;
   if (runs.probability < systematic) {
-    const third = Math.max(1, Math.floor(byDistance.length / 3));
+    const third = Math.max(1, Math.floor(order.length / 3));
     pattern = `its residuals go systematic — ${runs.runs} runs of same-sign residuals by distance where ${formatNumber(runs.expected, 2)} are expected by chance (runs test p = ${formatNumber(runs.probability, 2)}); ` +
       `the curve runs ${side(residuals.slice(0, third), 'nearest')} and ${side(residuals.slice(-third), 'farthest')}`;
   } else {
@@ -49,7 +46,7 @@ export function describePowerLaw(fit: FitResult, physical: FitResult | null, mod
   if (physical !== null && farthest > 0) {
     const at = 2 * farthest;
     const power = coilField(fit, modelOf, at);
-    const coil = coilField(physical, modelOf, at);
+    const coil = shared.physicalField;
     if (Number.isFinite(power) && Number.isFinite(coil) && coil !== 0) {
       const ratio = power / coil;
       const verdict = ratio >= 1 ? `${formatNumber(ratio, 3)}× too high` : `${formatNumber((1 - ratio) * 100, 2)} % too low`;
@@ -57,6 +54,37 @@ export function describePowerLaw(fit: FitResult, physical: FitResult | null, mod
     }
   }
   return `${head}: ${pattern}${extrapolation}.`;
+}
+
+/** What every power-law sentence about one survey shares (see {@link powerLawContext}). */
+export interface PowerLawContext {
+  /** Indices of the readings ordered by distance (ties in survey order). */
+  readonly order: readonly number[];
+  /** Least-squares line of ln|B| on ln d over the readings with d > 0, or null. */
+  readonly line: { readonly slope: number; readonly intercept: number } | null;
+  /** "12.5–300 mm": the distances the apparent exponent is read over. */
+  readonly range: string;
+  readonly farthest: number;
+  /** The physical fit's coil field at twice the farthest distance (T), NaN without one. */
+  readonly physicalField: number;
+}
+
+/**
+ * The parts of {@link describePowerLaw} that depend only on the readings and the best
+ * physical fit, worked out once for all the power laws of a survey (compareModels).
+ *
+ * @param any one fit of the survey (its points give the readings)
+ */
+export function powerLawContext(any: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel): PowerLawContext {
+  const points = any.points;
+  const order = points.map((_, i) => i).sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
+  const positive = order.filter((i) => points[i]!.distance > 0);
+  const line = logLogLine(Float64Array.from(positive, (i) => points[i]!.distance), Float64Array.from(positive, (i) => points[i]!.field));
+  const span = line === null ? order : positive;
+  const range = `${millimetres(points[span[0]!]?.distance ?? 0)}–${millimetres(points[span[span.length - 1]!]?.distance ?? 0)} mm`;
+  const farthest = points[order[order.length - 1]!]?.distance ?? 0;
+  const physicalField = physical !== null && farthest > 0 ? coilField(physical, modelOf, 2 * farthest) : NaN;
+  return { order, line, range, farthest, physicalField };
 }
 
 /** "below 5 of the 6 nearest readings" (most residuals y − f positive) or "above …". */

@@ -49,5 +49,14 @@ export function runsTest(values: ArrayLike<number>): RunsTest {
 /** ln C(n, k), −Infinity outside 0 ≤ k ≤ n. */
 function logChoose(n: number, k: number): number {
   if (k < 0 || k > n || n < 0) return -Infinity;
-  return logGamma(n + 1) - logGamma(k + 1) - logGamma(n - k + 1);
+  return logFactorial(n) - logFactorial(k) - logFactorial(n - k);
+}
+
+/** ln n! = ln Γ(n + 1), kept as computed: a survey's tests ask for the same few again and again. */
+const logFactorials: number[] = [];
+
+function logFactorial(n: number): number {
+  if (n >= 4096) return logGamma(n + 1);
+  for (let i = logFactorials.length; i <= n; i++) logFactorials.push(logGamma(i + 1));
+  return logFactorials[n]!;
 }
