@@ -10,11 +10,16 @@ import type { Survey } from '../survey/survey';
  */
 export function surveyPoints(survey: Survey): SurveyPoints {
   const readings = survey.readings;
-  return {
-    n: readings.length,
-    distance: Float64Array.from(readings, (r) => r.distance),
-    radial: Float64Array.from(readings, (r) => r.radial),
-    field: Float64Array.from(readings, (r) => r.field),
-    kind: survey.fieldKind === 'axial' ? 'axial' : 'magnitude',
-  };
+  const n = readings.length;
+  const distance = new Float64Array(n);
+  const radial = new Float64Array(n);
+  const field = new Float64Array(n);
+  // Plain loops: Float64Array.from with a map function goes through the iterator protocol.
+  for (let i = 0; i < n; i++) {
+    const reading = readings[i]!;
+    distance[i] = reading.distance;
+    radial[i] = reading.radial;
+    field[i] = reading.field;
+  }
+  return { n, distance, radial, field, kind: survey.fieldKind === 'axial' ? 'axial' : 'magnitude' };
 }

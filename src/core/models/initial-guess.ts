@@ -81,6 +81,12 @@ export function scanSize(
 ): Float64Array {
   const predicted = new Float64Array(points.n);
   const params = new Float64Array(model.parameters.length);
+  // 1/y of the usable readings (0 marks one to skip): products instead of divisions per candidate.
+  const inverse = new Float64Array(points.n);
+  for (let i = 0; i < points.n; i++) {
+    const y = points.field[i]!;
+    inverse[i] = y === 0 || !Number.isFinite(y) ? 0 : 1 / y;
+  }
   let amplitude = 1;
   /** Relative misfit at `size`; leaves its best amplitude in `amplitude`. */
   const misfit = (size: number): number => {
@@ -89,21 +95,20 @@ export function scanSize(
     let numerator = 0;
     let denominator = 0;
     for (let i = 0; i < points.n; i++) {
-      const y = points.field[i]!;
-      const f = predicted[i]!;
-      if (y === 0 || !Number.isFinite(y) || !Number.isFinite(f)) continue;
-      numerator += f / y;
-      denominator += (f * f) / (y * y);
+      const q = predicted[i]! * inverse[i]!;
+      predicted[i] = q;
+      if (inverse[i] === 0 || !Number.isFinite(q)) continue;
+      numerator += q;
+      denominator += q * q;
     }
     amplitude = 1;
     if (!(denominator > 0)) return Infinity;
     amplitude = numerator / denominator;
     let cost = 0;
     for (let i = 0; i < points.n; i++) {
-      const y = points.field[i]!;
-      const f = predicted[i]!;
-      if (y === 0 || !Number.isFinite(y) || !Number.isFinite(f)) continue;
-      cost += (1 - (amplitude * f) / y) ** 2;
+      const q = predicted[i]!;
+      if (inverse[i] === 0 || !Number.isFinite(q)) continue;
+      cost += (1 - amplitude * q) ** 2;
     }
     return cost;
   };
