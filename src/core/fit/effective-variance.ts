@@ -50,7 +50,8 @@ export interface EffectiveVarianceFit {
  * Least squares with errors in both variables by iterated effective variance
  * (DOMAIN.md §3.8): σ_eff from the slope at the start, fit, recompute σ_eff from the
  * slope at the fitted θ, refit from there, until σ_eff settles (usually 2–3 rounds).
- * `options.standardUncertainty` is ignored: the σ come from `effective`.
+ * `options.standardUncertainty` is ignored: the σ come from `effective`. A reading whose
+ * slope is not finite keeps σ_B, and the fit then reports the weights as not settled.
  *
  * @throws RangeError when a σ_B is not > 0 or lengths differ (as fitLeastSquares).
  */
@@ -72,6 +73,8 @@ export function fitEffectiveVariance(
   let params: Float64Array = Float64Array.from(options.initial);
   effective.slope(params, slope);
   effectiveUncertainty(effective.readingUncertainty, slope, effective.positionUncertainty, sigma);
+  // A slope the model cannot give (not finite) leaves that reading at σ_B, and the weights unsettled.
+  let defined = keepDefined(sigma, effective.readingUncertainty);
   let solution = fitLeastSquares(problem, { ...options, initial: params, standardUncertainty: sigma }, workspace);
   let rounds = 1;
   let settled = false;
@@ -79,10 +82,11 @@ export function fitEffectiveVariance(
     params = solution.params;
     effective.slope(params, slope);
     effectiveUncertainty(effective.readingUncertainty, slope, effective.positionUncertainty, next);
+    defined = keepDefined(next, effective.readingUncertainty) && defined;
     let change = 0;
     for (let i = 0; i < n; i++) change = Math.max(change, Math.abs(next[i]! - sigma[i]!) / sigma[i]!);
     if (change <= tolerance) {
-      settled = true;
+      settled = defined;
       break;
     }
     sigma.set(next);
@@ -90,4 +94,16 @@ export function fitEffectiveVariance(
     rounds += 1;
   }
   return { solution, effectiveUncertainty: sigma, rounds, settled };
+}
+
+/** Replace σ_eff entries that are not finite and > 0 by σ_B; true when none had to be. */
+function keepDefined(sigma: Float64Array, reading: ArrayLike<number>): boolean {
+  let all = true;
+  for (let i = 0; i < sigma.length; i++) {
+    if (!(sigma[i]! > 0 && sigma[i]! < Infinity)) {
+      sigma[i] = reading[i]!;
+      all = false;
+    }
+  }
+  return all;
 }

@@ -23,8 +23,10 @@ export function fieldModelProblem(model: FieldModel, points: SurveyPoints): Leas
 /**
  * Slope of each prediction with respect to its own distance, ∂fᵢ/∂dᵢ (T/m), by central
  * differences with hᵢ = ε^(1/3)·max(|dᵢ|, 1 mm): two evaluations move every distance at
- * once, since a reading's prediction depends only on its own position. The input of the
- * effective-variance weights (effective-variance.ts, DOMAIN.md §3.7–3.8).
+ * once, since a reading's prediction depends only on its own position; where one side is
+ * not finite (a step across a power law's singularity at r = 0) a one-sided difference on
+ * the other side. The input of the effective-variance weights (effective-variance.ts,
+ * DOMAIN.md §3.7–3.8).
  *
  * @param out receives the slopes (length n).
  */
@@ -44,5 +46,20 @@ export function distanceSlope(model: FieldModel, params: Float64Array, points: S
   model.evaluate(params, { ...points, distance: shifted }, plus);
   for (let i = 0; i < n; i++) shifted[i] = points.distance[i]! - step[i]!;
   model.evaluate(params, { ...points, distance: shifted }, minus);
-  for (let i = 0; i < n; i++) out[i] = (plus[i]! - minus[i]!) / (2 * step[i]!);
+  let center: Float64Array | null = null;
+  for (let i = 0; i < n; i++) {
+    const up = plus[i]!;
+    const down = minus[i]!;
+    if (Number.isFinite(up) && Number.isFinite(down)) {
+      out[i] = (up - down) / (2 * step[i]!);
+      continue;
+    }
+    // A step across a singularity (a power law's sensing point at r = 0): one-sided on the finite side.
+    if (center === null) {
+      center = new Float64Array(n);
+      model.evaluate(params, points, center);
+    }
+    const here = center[i]!;
+    out[i] = Number.isFinite(up) ? (up - here) / step[i]! : (here - down) / step[i]!;
+  }
 }

@@ -177,6 +177,26 @@ describe('fitLeastSquares(problem, options)', () => {
     );
   });
 
+  it('fitLeastSquares() gives bit-identical results whatever a reused workspace held before (pooled workspaces keep batches deterministic)', () => {
+    // every buffer filled with garbage, including entries past the free-parameter count
+    const dirty = createLeastSquaresWorkspace(x.length, 2);
+    const fill = (value: unknown, garbage: number): void => {
+      if (value instanceof Float64Array || value instanceof Int32Array || value instanceof Uint8Array) value.fill(garbage);
+      else if (value !== null && typeof value === 'object') Object.values(value).forEach((inner) => fill(inner, garbage));
+    };
+    const bounded = { initial: [1, 1], lower: [0, 0.01], upper: [10, 5], standardUncertainty: sigma };
+    for (const options of [bounded, { ...bounded, fixed: [false, true] }]) {
+      for (const garbage of [NaN, 1e300, -3]) {
+        fill(dirty, garbage);
+        const fresh = fitLeastSquares(decay, options, createLeastSquaresWorkspace(x.length, 2));
+        const reused = fitLeastSquares(decay, options, dirty);
+        expect(Array.from(reused.params)).toEqual(Array.from(fresh.params));
+        expect(reused.jacobian).toEqual(fresh.jacobian);
+        expect(reused.evaluations).toBe(fresh.evaluations);
+      }
+    }
+  });
+
   it('fitLeastSquares() gives identical results with a reused workspace', () => {
     const workspace = createLeastSquaresWorkspace(x.length, 2);
     const first = fitLeastSquares(decay, { initial: [1, 1] }, workspace);

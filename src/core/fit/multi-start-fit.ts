@@ -19,6 +19,12 @@ export interface MultiStartOptions {
   readonly agreement?: number;
   /** When true for the fit from `options.initial`, no extra start runs (the caller vouches for that start). */
   readonly settled?: (fit: LeastSquaresSolution) => boolean;
+  /**
+   * Where the extra starts come from when not `options.initial` (e.g. the plain data-driven
+   * start when `initial` was refined from it): the first extra start is this point itself,
+   * then `starts` perturbed copies of it.
+   */
+  readonly origin?: ArrayLike<number>;
 }
 
 /** The best fit over all starts. */
@@ -35,7 +41,7 @@ export interface MultiStartFit {
 
 /**
  * Seeded multi-start: fit from `options.initial` and from up to `starts` perturbed copies
- * of it (free parameters only; θⱼ·exp(spread·z) keeps each start's sign and order of
+ * of it, or of `origin` after `origin` itself (free parameters only; θⱼ·exp(spread·z) keeps each start's sign and order of
  * magnitude, z ~ N(0, 1) from mulberry32 + Box–Muller), each start moved inside the bounds;
  * keep the converged fit with the lowest χ² (common practice against local minima).
  * Adaptive when asked: no extra start when `settled(first fit)` is true, and none after
@@ -67,7 +73,10 @@ function searchStarts(problem: LeastSquaresProblem, options: LeastSquaresOptions
   let agreeing = 0;
   let stoppedBy: MultiStartFit['stoppedBy'] = 'all-starts';
   if (count > 0 && multi.settled?.(best) === true) return { best, bestStart, fits, convergedFits, stoppedBy: 'settled' };
-  for (let s = 1; s <= count; s++) {
+  const origin = multi.origin ?? options.initial;
+  // The origin itself first when it is not the start already fitted.
+  const own = multi.origin !== undefined && Array.from(origin).some((x, j) => x !== options.initial[j]) ? 1 : 0;
+  for (let s = 1; s <= count + own; s++) {
     if (options.signal?.aborted === true) {
       stoppedBy = 'aborted';
       break;
@@ -76,8 +85,8 @@ function searchStarts(problem: LeastSquaresProblem, options: LeastSquaresOptions
       stoppedBy = 'agreement';
       break;
     }
-    const start = Float64Array.from(options.initial);
-    for (let j = 0; j < p; j++) {
+    const start = Float64Array.from(origin);
+    for (let j = 0; j < p && s > own; j++) {
       if (options.fixed?.[j] === true) continue;
       const z = gaussian();
       const x = start[j]!;

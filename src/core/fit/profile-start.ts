@@ -23,8 +23,10 @@ export interface ProfileStart {
   readonly scanned: boolean;
   /** Model index of the probe offset when the scan's best offset is on a bound of the box, else −1. */
   readonly offsetOnBound: number;
-  /** Model index of the parameter whose whole range was scanned (the probe offset), else −1. */
+  /** Model index of the parameter that was scanned (the probe offset), else −1. */
   readonly scannedIndex: number;
+  /** The offsets the scan covered, [first, last] (m); empty when none was scanned. */
+  readonly scannedRange: readonly number[];
   /** Weighted χ² at `initial`. */
   readonly chiSquare: number;
 }
@@ -36,9 +38,9 @@ export interface ProfileStart {
  * linearly, so for each trial δ they are solved exactly by weighted linear least squares
  * (a 2×2 system; an offset where A would take the other sign than the start's, or where the
  * shape cannot be told from a constant, is passed over) and
- * only δ is searched: the nearest sensing point at 10 log-spaced distances from 0.2 % of
- * the survey's reach out to the box's upper offset, then Brent's method between the best
- * one's neighbours. A free power-law exponent is re-read at each δ as the log–log
+ * only δ is searched, over the box in front of the nearest reading: the nearest sensing
+ * point at 10 log-spaced distances from 0.2 % of the survey's reach out to the box's upper
+ * offset, then Brent's method between the best one's neighbours. A free power-law exponent is re-read at each δ as the log–log
  * slope of |B| against d + δ (DOMAIN.md §1.9), then settled by Brent's method on
  * [n/2, 2n] at the chosen δ (the slope ignores the background). This searches the whole
  * allowed range of the offset, where the misfit of a model that does not describe the coil
@@ -72,7 +74,7 @@ export function profileStart(
   const sign = amplitude >= 0 && start[amplitude]! < 0 ? -1 : 1;
   const honest = chiSquareAt(model, points, start, shape, sigma);
   const freeOffset = offset >= 0 && !fixed[offset] && lower[offset]! < upper[offset]!;
-  if (!freeOffset && !freeAmplitude && !freeBackground) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
+  if (!freeOffset && !freeAmplitude && !freeBackground) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
 
   const logField = scratchArray(n, 1);
   for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
@@ -95,6 +97,7 @@ export function profileStart(
   };
   profile(offset >= 0 ? start[offset]! : 0);
   let onBound = -1;
+  let range: number[] = [];
   if (freeOffset) {
     let nearest = Infinity;
     let reach = 0;
@@ -104,22 +107,25 @@ export function profileStart(
     }
     const lo = lower[offset]!;
     const hi = upper[offset]!;
-    const first = Math.log(0.002 * (reach > 0 ? reach : 0.05));
-    const last = Math.log(Math.max(nearest + Math.min(hi, reach > 0 ? reach : 0.05), Math.exp(first) * 1.01));
-    const at = (x: number) => Math.min(hi, Math.max(lo, Math.exp(x) - nearest));
-    const step = (last - first) / (GRID - 1);
+    const closest = 0.002 * (reach > 0 ? reach : 0.05);
+    const first = Math.log(closest);
+    const last = Math.log(Math.max(nearest + Math.min(hi, reach > 0 ? reach : 0.05), closest * 1.01));
+    const grid: number[] = [];
+    for (let g = 0; g < GRID; g++) grid.push(Math.min(hi, Math.max(lo, Math.exp(first + (g * (last - first)) / (GRID - 1)) - nearest)));
+    range = [grid[0]!, grid[GRID - 1]!];
     let bestIndex = -1;
     let gridCost = Infinity;
-    for (let g = 0; g < GRID; g++) {
-      const cost = profile(at(first + g * step));
+    grid.forEach((delta, g) => {
+      const cost = profile(delta);
       if (cost < gridCost) {
         gridCost = cost;
         bestIndex = g;
       }
-    }
+    });
     if (bestIndex >= 0 && Number.isFinite(gridCost)) {
-      const around = first + bestIndex * step;
-      brentMinimum((x) => profile(at(x)), around - (bestIndex > 0 ? step : 0), around + (bestIndex < GRID - 1 ? step : 0), 1e-3, REFINE, around, gridCost);
+      const left = grid[Math.max(0, bestIndex - 1)]!;
+      const right = grid[Math.min(grid.length - 1, bestIndex + 1)]!;
+      brentMinimum(profile, left, right, 1e-3 * (right - left), REFINE, grid[bestIndex]!, gridCost);
     }
     // Within rounding of an edge (exp and log of the grid): put it on the edge.
     const width = 1e-9 * (Number.isFinite(hi - lo) ? hi - lo : Math.abs(best[offset]!) + 1);
@@ -135,12 +141,12 @@ export function profileStart(
     const atPower = profile(delta, power);
     brentMinimum((x) => profile(delta, x), Math.max(lower[exponent]!, 0.5 * power), Math.min(upper[exponent]!, 2 * power), 1e-3 * power, EXPONENT_REFINE, power, atPower);
   }
-  if (!Number.isFinite(bestCost)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
+  if (!Number.isFinite(bestCost)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
   // The linear solve assumed the reading is linear in A for A of the start's sign; check with the model itself.
   const cost = chiSquareAt(model, points, best, shape, sigma);
-  if (!(cost <= honest)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, chiSquare: honest };
+  if (!(cost <= honest)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
   const onlyLinear = fixed.every((f, j) => f || j === amplitude || j === background);
-  return { initial: best, scanned: freeOffset || onlyLinear, offsetOnBound: onBound, scannedIndex: freeOffset ? offset : -1, chiSquare: cost };
+  return { initial: best, scanned: freeOffset || onlyLinear, offsetOnBound: onBound, scannedIndex: freeOffset ? offset : -1, scannedRange: range, chiSquare: cost };
 }
 
 /** Weighted χ² of the model at θ (Infinity when any prediction is not finite). `out` is scratch. */

@@ -92,9 +92,12 @@ export function searchModelFit(
   let solution = fitMultiStart(problem, weighted, {
     seed,
     starts: options.starts ?? 8,
+    // Extra starts around the plain data-driven start, as before the scan: the search with
+    // every start is then a superset of the one without the scan.
+    origin: initial,
     ...(adaptive ? {
       agreement: 2,
-      settled: (fit: LeastSquaresSolution) => profiled.scanned && settledFit(model, points, fit, readingUncertainty, profiled.scannedIndex, base),
+      settled: (fit: LeastSquaresSolution) => profiled.scanned && settledFit(model, points, fit, readingUncertainty, profiled.scannedIndex, profiled.scannedRange, base),
     } : {}),
   }).best;
   const canonical = Float64Array.from(solution.params);

@@ -17,7 +17,7 @@ function readings(theta: number[]): SurveyPoints {
   return points;
 }
 
-describe('settledFit(model, points, fit, sigma, scanned, box)', () => {
+describe('settledFit(model, points, fit, sigma, scanned, range, box)', () => {
   const points = readings([4e-6, 0.01, 2e-6]);
   const problem = fieldModelProblem(square, points);
 
@@ -26,9 +26,9 @@ describe('settledFit(model, points, fit, sigma, scanned, box)', () => {
     const box = { lower: [-Infinity, -0.02, -Infinity], upper: [Infinity, 0.3, Infinity] };
     const fit = fitLeastSquares(problem, { initial: [1e-6, 0.005, 0], ...box });
     expect(fit.converged).toBe(true);
-    expect(settledFit(square, points, fit, null, 1, box)).toBe(true);
+    expect(settledFit(square, points, fit, null, 1, [0, 0.3], box)).toBe(true);
     const early = fitLeastSquares(problem, { initial: [1e-6, 0.005, 0], ...box, maxEvaluations: 2 });
-    expect(settledFit(square, points, early, null, 1, box)).toBe(false);
+    expect(settledFit(square, points, early, null, 1, [0, 0.3], box)).toBe(false);
   });
 
   it('settledFit() accepts the scanned offset on the bound it is pushed against, and no other parameter there', () => {
@@ -36,8 +36,10 @@ describe('settledFit(model, points, fit, sigma, scanned, box)', () => {
     const box = { lower: [-Infinity, -0.02, -Infinity], upper: [Infinity, 0.005, Infinity] };
     const fit = fitLeastSquares(problem, { initial: [1e-6, 0.004, 0], ...box });
     expect(fit.atBound[1]).toBe(true);
-    expect(settledFit(square, points, fit, null, 1, box)).toBe(true);
-    expect(settledFit(square, points, fit, null, -1, box)).toBe(false);
+    expect(settledFit(square, points, fit, null, 1, [0, 0.005], box)).toBe(true);
+    expect(settledFit(square, points, fit, null, -1, [], box)).toBe(false);
+    // a bound the scan never reached is no evidence
+    expect(settledFit(square, points, fit, null, 1, [0, 0.004], box)).toBe(false);
   });
 
   it('settledFit() refuses a fit whose source part has shrunk below 1e-3 of the largest reading (a constant)', () => {
@@ -45,6 +47,6 @@ describe('settledFit(model, points, fit, sigma, scanned, box)', () => {
     const box = { lower: [-Infinity, -0.02, -Infinity], upper: [Infinity, 0.3, Infinity] };
     const flat = fitLeastSquares(problem, { initial: [1e-12, 0.01, 0], fixed: [true, true, false], ...box });
     expect(flat.converged).toBe(true);
-    expect(settledFit(square, points, flat, null, -1, box)).toBe(false);
+    expect(settledFit(square, points, flat, null, -1, [], box)).toBe(false);
   });
 });

@@ -60,7 +60,7 @@ export function surveyReach(points: SurveyPoints): number {
 }
 
 /** Candidate sizes of {@link scanSize}: log-spaced over 1 % to 10× the survey's reach. */
-const SIZE_CANDIDATES = 16;
+const SIZE_CANDIDATES = 48;
 /** Most evaluations of {@link scanSize}'s refinement (Brent's method to 1e-6 in ln s). */
 const SIZE_REFINE = 24;
 
