@@ -1,5 +1,5 @@
 import type { FieldModel, SurveyPoints } from '../models/field-model';
-import { brentMinimum } from '../models/initial-guess';
+import { brentMinimum, radialDistance } from '../models/initial-guess';
 import { scratchArray } from './scratch-array';
 
 /** Units of a source strength: every catalog model's reading is linear in it (Biot–Savart is linear in the current). */
@@ -103,7 +103,7 @@ export function profileStart(
     let reach = 0;
     for (let i = 0; i < n; i++) {
       nearest = Math.min(nearest, points.distance[i]!);
-      reach = Math.max(reach, Math.hypot(points.distance[i]!, points.radial[i]!));
+      reach = Math.max(reach, radialDistance(points.distance[i]!, points.radial[i]!));
     }
     const lo = lower[offset]!;
     const hi = upper[offset]!;
@@ -168,7 +168,7 @@ function logLogSlope(points: SurveyPoints, logField: Float64Array, delta: number
   let sxx = 0;
   let sxy = 0;
   for (let i = 0; i < points.n; i++) {
-    const r = Math.hypot(points.distance[i]! + delta, points.radial[i]!);
+    const r = radialDistance(points.distance[i]! + delta, points.radial[i]!);
     const y = logField[i]!;
     if (!(r > 0) || !Number.isFinite(y)) continue;
     const x = Math.log(r);

@@ -1,7 +1,7 @@
 import { dipoleField, dipoleFieldGradient } from '../physics/dipole-field';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
 import type { FieldModel, SurveyPoints } from './field-model';
-import { medianOf, readingSign } from './initial-guess';
+import { medianOf, radialDistance, readingSign } from './initial-guess';
 import { backgroundParameter, evaluateFromComponents, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
 const field = new Float64Array(4);
@@ -52,7 +52,7 @@ export const dipoleModel: FieldModel = {
     const r = new Float64Array(points.n);
     const order: number[] = [];
     for (let i = 0; i < points.n; i++) {
-      r[i] = Math.hypot(points.distance[i]!, points.radial[i]!);
+      r[i] = radialDistance(points.distance[i]!, points.radial[i]!);
       if (r[i]! > 0 && Number.isFinite(r[i]!) && Number.isFinite(points.field[i]!)) order.push(i);
     }
     order.sort((i, j) => r[i]! - r[j]! || i - j);

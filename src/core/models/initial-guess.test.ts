@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
-import { brentMinimum, logLogLine } from './initial-guess';
+import { brentMinimum, logLogLine, radialDistance } from './initial-guess';
 import { fitLeastSquares } from '../fit/least-squares';
 import { fieldModelProblem } from '../fit/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
@@ -68,6 +68,13 @@ describe('initialGuess()', () => {
     expectClose(x, Math.PI, { abs: 1e-7 });
     // golden section alone would need log(2/1e-7)/log(1.618) ≈ 35 evaluations
     expect(evaluations).toBeLessThan(15);
+  });
+
+  it('radialDistance() is √(d² + ρ²), and |d| on the axis (its TSDoc example: 3, 4 → 5)', () => {
+    // Pythagoras
+    expect(radialDistance(3, 4)).toBe(5);
+    expect(radialDistance(-0.02, 0)).toBe(0.02);
+    expectClose(radialDistance(0.1, 0.05), Math.hypot(0.1, 0.05), { rel: 1e-15 });
   });
 
   it('logLogLine() returns slope −2 for exact inverse-square data and null with one usable point', () => {

@@ -52,10 +52,20 @@ export function readingSign(points: SurveyPoints): 1 | -1 {
   return points.kind === 'axial' && medianOf(points.field) < 0 ? -1 : 1;
 }
 
+/**
+ * Distance √(d² + ρ²) of a point from the datum (m): |d| on the axis. Math.hypot guards
+ * against overflow that lengths in metres never reach, at several times the cost.
+ *
+ * @example radialDistance(3, 4) // 5
+ */
+export function radialDistance(distance: number, radial: number): number {
+  return radial === 0 ? Math.abs(distance) : Math.sqrt(distance * distance + radial * radial);
+}
+
 /** Largest distance of the survey from the datum, √(d² + ρ²), or 0.05 m when all are 0. */
 export function surveyReach(points: SurveyPoints): number {
   let reach = 0;
-  for (let i = 0; i < points.n; i++) reach = Math.max(reach, Math.hypot(points.distance[i]!, points.radial[i]!));
+  for (let i = 0; i < points.n; i++) reach = Math.max(reach, radialDistance(points.distance[i]!, points.radial[i]!));
   return reach > 0 && Number.isFinite(reach) ? reach : 0.05;
 }
 
