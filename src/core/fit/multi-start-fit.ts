@@ -6,7 +6,7 @@ import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './l
 
 /** Options of {@link fitMultiStart}. */
 export interface MultiStartOptions {
-  /** Extra starts besides `options.initial` (the most that run). Default 8. */
+  /** Extra starts besides `options.initial` (the most that run, plus `origin` itself when given). 0: none. Default 8. */
   readonly starts?: number;
   /** Seed of the mulberry32 stream: same seed, same starts, same answer. */
   readonly seed: number;
@@ -75,7 +75,7 @@ function searchStarts(problem: LeastSquaresProblem, options: LeastSquaresOptions
   if (count > 0 && multi.settled?.(best) === true) return { best, bestStart, fits, convergedFits, stoppedBy: 'settled' };
   const origin = multi.origin ?? options.initial;
   // The origin itself first when it is not the start already fitted.
-  const own = multi.origin !== undefined && Array.from(origin).some((x, j) => x !== options.initial[j]) ? 1 : 0;
+  const own = count > 0 && multi.origin !== undefined && Array.from(origin).some((x, j) => x !== options.initial[j]) ? 1 : 0;
   for (let s = 1; s <= count + own; s++) {
     if (options.signal?.aborted === true) {
       stoppedBy = 'aborted';
