@@ -85,4 +85,23 @@ describe('fitMultiStart(problem, options, multi)', () => {
     expect(sameMinimum(a, moved)).toBe(false);
     expect(sameMinimum(a, costlier)).toBe(false);
   });
+
+  it('fitMultiStart() with an origin fits the origin itself first, then perturbations of it; starts 0 fits nothing more', () => {
+    const firstPoints: number[][] = [];
+    let last = -1;
+    const recorder: LeastSquaresProblem = {
+      ...decay,
+      predict: (t, out) => {
+        decay.predict(t, out);
+        if (t[0] !== last) firstPoints.push([t[0]!, t[1]!]);
+        last = t[0]!;
+      },
+    };
+    const withOrigin = fitMultiStart(recorder, { initial: [2, 0.3] }, { seed: 3, starts: 3, origin: [1, 1] });
+    expect(withOrigin.fits).toBe(5);
+    // the origin is evaluated as it is (a start), not perturbed
+    expect(firstPoints.some(([a, b]) => a === 1 && b === 1)).toBe(true);
+    expect(fitMultiStart(decay, { initial: [2, 0.3] }, { seed: 3, starts: 0, origin: [1, 1] }).fits).toBe(1);
+    expect(fitMultiStart(decay, { initial: [1, 1] }, { seed: 3, starts: 3, origin: [1, 1] }).fits).toBe(4);
+  });
 });
