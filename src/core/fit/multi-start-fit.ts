@@ -41,9 +41,10 @@ export interface MultiStartFit {
 
 /**
  * Seeded multi-start: fit from `options.initial` and from up to `starts` perturbed copies
- * of it, or of `origin` after `origin` itself (free parameters only; θⱼ·exp(spread·z) keeps each start's sign and order of
- * magnitude, z ~ N(0, 1) from mulberry32 + Box–Muller), each start moved inside the bounds;
- * keep the converged fit with the lowest χ² (common practice against local minima).
+ * of it — or of `origin`, after `origin` itself — (free parameters only; θⱼ·exp(spread·z)
+ * keeps each start's sign and order of magnitude, z ~ N(0, 1) from mulberry32 +
+ * Box–Muller), each start moved inside the bounds; keep the converged fit with the lowest
+ * χ² (common practice against local minima).
  * Adaptive when asked: no extra start when `settled(first fit)` is true, and none after
  * `agreement` extra starts have returned to the best minimum — further starts from the
  * same spread would most likely find it again. The starts are drawn in the same order

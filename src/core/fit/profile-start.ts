@@ -16,8 +16,8 @@ export interface ProfileStart {
   /** Parameters (model order, SI): scanned probe offset, amplitude and background solved, exponent re-read. */
   readonly initial: Float64Array;
   /**
-   * True when the start is the best over every free nonlinear direction searched: the
-   * offset was scanned over its whole range, or every free parameter is linear (amplitude,
+   * True when the start came from a search of the nonlinear direction that matters: the
+   * offset was scanned (scannedRange), or every free parameter is linear (amplitude,
    * background) and was solved exactly.
    */
   readonly scanned: boolean;
@@ -36,18 +36,18 @@ export interface ProfileStart {
  * projection, Golub & Pereyra, SIAM J. Numer. Anal. 10 (1973) 413): every catalog model's
  * reading is A·g(d + δ; shape) + b with the amplitude A and background b entering
  * linearly, so for each trial δ they are solved exactly by weighted linear least squares
- * (a 2×2 system; an offset where A would take the other sign than the start's, or where the
- * shape cannot be told from a constant, is passed over) and
- * only δ is searched, over the box in front of the nearest reading: the nearest sensing
- * point at 10 log-spaced distances from 0.2 % of the survey's reach out to the box's upper
- * offset, then Brent's method between the best one's neighbours. A free power-law exponent is re-read at each δ as the log–log
- * slope of |B| against d + δ (DOMAIN.md §1.9), then settled by Brent's method on
- * [n/2, 2n] at the chosen δ (the slope ignores the background). This searches the whole
- * allowed range of the offset, where the misfit of a model that does not describe the coil
- * (a dipole or power law in the near field) often has its minimum far from the start;
- * other shape parameters (radius, lengths) stay as the model's initialGuess set them.
- * Deterministic, same weights as the fit (1/σ², or 1). Returns the start unchanged
- * (scanned false) when nothing applies, and never a start worse than the one given.
+ * (a 2×2 system; an offset where A would take the other sign than the start's, or where
+ * the shape cannot be told from a constant, is passed over) and only δ is searched, over
+ * the box in front of the nearest reading: the nearest sensing point at 10 log-spaced
+ * distances from 0.2 % of the survey's reach out to the box's upper offset, then Brent's
+ * method between the best one's neighbours. A free power-law exponent is re-read at each
+ * δ as the log–log slope of |B| against d + δ (DOMAIN.md §1.9), then settled by Brent's
+ * method on [n/2, 2n] at the chosen δ (the slope ignores the background). The misfit of a
+ * model that does not describe the coil (a dipole or power law in the near field) often
+ * has its minimum far from the start's offset; other shape parameters (radius, lengths)
+ * stay as the model's initialGuess set them. Deterministic, same weights as the fit
+ * (1/σ², or 1). Returns the start unchanged (scanned false) when nothing applies, and
+ * never a start worse than the one given.
  *
  * @param sigma σᵢ (T) or null for equal weights; lower, upper the fit's box (model order).
  */

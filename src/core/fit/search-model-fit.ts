@@ -37,13 +37,14 @@ export interface ModelSearch {
  * of the probe offset with amplitude and background solved exactly (profile-start.ts; when
  * the best offset is on the edge of its box the rest is first fitted with it held there),
  * then a seeded multi-start keeping the lowest-χ² converged fit. The multi-start is
- * adaptive: no extra start when the fit from the scanned start is settled (settledFit:
- * converged to a stationary point inside the box, only the scanned offset allowed on its
- * edge), otherwise extra starts until two agree with the best (sameMinimum), at most
- * `options.starts` (8); `options.exhaustiveStarts` runs them all. Same inputs and seed,
- * same answer. With a position uncertainty the effective variance
- * is iterated from there (DOMAIN.md §3.8); with a robust loss IRLS runs last, on those
- * weights. Never throws for a fit that fails: the solution says converged false and why.
+ * adaptive: no extra start when the fit from the scanned start is settled (settled-fit.ts:
+ * a KKT point inside the box with sane parameters); otherwise extra starts — the plain
+ * data-driven start, then up to `options.starts` (8) seeded perturbations of it, as before
+ * the scan existed — until two agree with the best (sameMinimum). `options.exhaustiveStarts`
+ * runs them all. Same inputs and seed, same answer. With a position uncertainty the
+ * effective variance is iterated from there (DOMAIN.md §3.8); with a robust loss IRLS runs
+ * last, on those weights. Never throws for a fit that fails: the solution says converged
+ * false and why.
  *
  * @param readingUncertainty σ_B,i (T) or null; seed of this model's multi-start.
  */
