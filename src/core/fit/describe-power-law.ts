@@ -79,7 +79,13 @@ export function powerLawContext(any: FitResult, physical: FitResult | null, mode
   const points = any.points;
   const order = points.map((_, i) => i).sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
   const positive = order.filter((i) => points[i]!.distance > 0);
-  const line = logLogLine(Float64Array.from(positive, (i) => points[i]!.distance), Float64Array.from(positive, (i) => points[i]!.field));
+  const distance = new Float64Array(positive.length);
+  const field = new Float64Array(positive.length);
+  positive.forEach((i, k) => {
+    distance[k] = points[i]!.distance;
+    field[k] = points[i]!.field;
+  });
+  const line = logLogLine(distance, field);
   const span = line === null ? order : positive;
   const range = `${millimetres(points[span[0]!]?.distance ?? 0)}–${millimetres(points[span[span.length - 1]!]?.distance ?? 0)} mm`;
   const farthest = points[order[order.length - 1]!]?.distance ?? 0;
