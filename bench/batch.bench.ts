@@ -90,7 +90,7 @@ try {
   console.log(`\nsingle thread, per survey file (${SAMPLE}-file sample):`);
   row('read + import', `${importMs.toFixed(3)} ms`);
   for (const { model, multi, single: one } of perModel) {
-    row(`fitSurvey ${model}`, `${multi.toFixed(3)} ms with 8 extra starts, ${one.toFixed(3)} ms data-driven start only`);
+    row(`fitSurvey ${model}`, `${multi.toFixed(3)} ms with adaptive starts (at most 8 extra), ${one.toFixed(3)} ms data-driven start only`);
   }
   row('fitSurvey, 5 default models', `${fitMs.toFixed(3)} ms`);
   const budget = (TARGET_SECONDS * availableParallelism() * 1000) / files.length;

@@ -2,7 +2,7 @@
  * Survey-level fit benchmark (issue 4): whole surveys per second through fitSurvey with
  * the default five models (loop, dipole, power-law, inverse-square, inverse-cube), each a
  * data-driven start plus a seeded multi-start — the cost of one `ringfall fit` survey.
- * Variants: the default 8 extra starts without stated σ; with --uncertainty and
+ * Variants: the default adaptive starts (at most 8 extra) without stated σ; with --uncertainty and
  * --position-uncertainty (effective variance rounds); and 1 extra start. Also the loop
  * alone for scale against bench/fit.bench.ts (single LM fits). Rates per CPU second of
  * this process (one core) and per wall second. No target: prints figures only.
@@ -40,8 +40,8 @@ function measure(label: string, options: FitSurveyOptions, minimumMs = 1500): nu
 }
 
 fitSurvey(surveys[0]!, {}); // warm-up
-const defaults = measure('5 models, 8 extra starts, no stated σ (ringfall fit FILE)', {});
-const stated = measure('5 models, 8 extra starts, --uncertainty, --position-uncertainty', { instrumentUncertainty: meter, positionUncertainty: 0.0002 });
+const defaults = measure('5 models, adaptive starts, no stated σ (ringfall fit FILE)', {});
+const stated = measure('5 models, adaptive starts, --uncertainty, --position-uncertainty', { instrumentUncertainty: meter, positionUncertainty: 0.0002 });
 const quick = measure('5 models, 1 extra start, no stated σ', { starts: 1 });
-const loopOnly = measure('loop only, 8 extra starts, no stated σ', { models: ['loop'] });
+const loopOnly = measure('loop only, adaptive starts, no stated σ', { models: ['loop'] });
 console.log(`ratios: stated σ + position / default ${(stated / defaults).toFixed(2)}; 1 start / 8 starts ${(quick / defaults).toFixed(2)}; loop alone / 5 models ${(loopOnly / defaults).toFixed(2)}`);

@@ -52,7 +52,8 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
         const axial = points.distance[i]! + offset;
         const rho = points.radial[i]!;
         const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
-        out[i] = (r > 0 ? amplitude * Math.pow(r, -exponent) : NaN) + background;
+        const inv = 1 / r;
+        out[i] = (r > 0 ? amplitude * (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * Math.log(r))) : NaN) + background;
       }
     },
     jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
@@ -63,10 +64,12 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
         const axial = points.distance[i]! + offset;
         const rho = points.radial[i]!;
         const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
-        const power = r > 0 ? Math.pow(r, -exponent) : NaN;
+        const logR = Math.log(r);
+        const inv = 1 / r;
+        const power = r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
         const row = k * i;
         out[row] = power;
-        if (free) out[row + 1] = -amplitude * power * Math.log(r);
+        if (free) out[row + 1] = -amplitude * power * logR;
         out[row + k - 2] = (-exponent * amplitude * power * axial) / (r * r);
         out[row + k - 1] = 1;
       }
