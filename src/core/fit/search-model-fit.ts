@@ -137,7 +137,7 @@ export function searchModelFit(
 }
 
 /** Engine options: bounds from the catalog, typical sizes from the survey (multi-start spread of zero starts). */
-function leastSquaresOptions(
+export function leastSquaresOptions(
   model: FieldModel, points: SurveyPoints, initial: Float64Array, fixed: readonly boolean[], options: FitSurveyOptions,
 ): LeastSquaresOptions {
   const reach = surveyReach(points);
