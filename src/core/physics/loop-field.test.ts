@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { loopField, loopFieldOnAxis } from './loop-field';
-import { loopFieldBatch } from './loop-field-batch';
+import { bulkParameterLimit, loopField, loopFieldOnAxis } from './loop-field';
 import { dipoleField } from './dipole-field';
 import { vacuumPermeability } from './vacuum-permeability';
 import { expectClose } from '../../../test/support/expect-close';
@@ -76,9 +75,17 @@ describe('loopField()', () => {
       [0.05, 0.0999, 1.7173796686650786e-6, 3.2946375258041799e-6],
       [0.02, 0.3, -1.2948179261094306e-7, 2.8611015520442524e-8],
       [-0.04, 0.07, 4.8069867358897552e-6, -2.9576075087298513e-6],
-      // either side of the m = 0.9 switch between the rearranged and the textbook brackets
+      // m ≈ 0.9 (the old switch between the rearranged and the textbook brackets)
       [0.01, 0.052645849157390776, 7.7659556244255486e-6, 8.6760179789080034e-7],
       [0.01, 0.052683238532723276, 7.7688598479997247e-6, 8.6905879830915117e-7],
+      // 0.9 < m < 0.999: loopFieldBulk's three unrolled AGM steps and series (m in the comment)
+      [0.01, 0.06452559316477505, 8.962668780788293e-6, 1.5469850737321347e-6], // m = 0.95
+      [0.004, 0.0822181410102255, 1.4875897291265019e-5, 2.5418087403999047e-6], // m = 0.99
+      [-0.002, 0.08693324127890949, 1.9383824543405769e-5, -2.3960758237548179e-6], // m = 0.995
+      [0.0015, 0.09375131963945715, 3.5225079857136737e-5, 7.4537890807587257e-6], // m = 0.9989
+      // either side of the m = 0.999 switch between loopFieldBulk and the textbook brackets
+      [0.002, 0.09419351781154074, 3.5732539065804836e-5, 1.0862097930910271e-5], // m = 0.998999997
+      [0.002, 0.09419353665024618, 3.5732619562681375e-5, 1.0862160197110061e-5], // m = 0.999000003
     ];
     for (const [z, rho, bz, br] of reference) {
       const [actualZ, actualR] = field(1, 0.1, z, rho);
@@ -162,16 +169,12 @@ describe('loopField()', () => {
     expectClose(br2, (-7 * br) / 3, { rel: 1e-14 });
   });
 
-  it('loopFieldBatch() returns exactly loopField() at every point, in all regimes', () => {
-    // same code path per regime: on axis, paraxial, bulk (unrolled AGM), near the wire
-    const z = Float64Array.from([0.03, 0.05, 0.05, 0.02, 0.001, -0.3, 10, 0]);
-    const rho = Float64Array.from([0, 1e-7, 0.05, -0.13, 0.0999, 0.2, 3, 0.1]);
-    const axial = new Float64Array(z.length);
-    const radial = new Float64Array(z.length);
-    loopFieldBatch(4, 0.1, z, rho, axial, radial);
-    for (let i = 0; i < z.length; i++) {
-      const [bz, br] = field(4, 0.1, z[i]!, rho[i]!);
-      expect([axial[i], radial[i]]).toEqual([bz, br]);
+  it('loopField() puts the m = 0.999 switch where it says', () => {
+    // the two mpmath points above straddle it; check they really fall on either side
+    for (const [rho, below] of [[0.09419351781154074, true], [0.09419353665024618, false]] as const) {
+      const a = 0.1;
+      const q = (a + rho) ** 2 + 0.002 ** 2;
+      expect(4 * a * rho <= bulkParameterLimit * q).toBe(below);
     }
   });
 });
