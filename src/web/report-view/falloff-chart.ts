@@ -6,6 +6,7 @@ import {
   baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
 } from './chart-spec';
+import { oneTwoFiveLabels } from './figure';
 import { niceLogBound } from './nice-ticks';
 import { largest, smallest } from './extent';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
@@ -120,8 +121,8 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
 
   const options = baseOptions();
   options.scales = {
-    x: { type: 'logarithmic', min: X(xMin), max: X(xMax), title: { display: true, text: `distance from datum to sensing point (${length.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 } }, grid: { color: palette.grid } },
-    y: { type: 'logarithmic', min: yMin / field.factor, max: yMax / field.factor, title: { display: true, text: `field |B| (${field.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 } }, grid: { color: palette.grid } },
+    x: { type: 'logarithmic', min: X(xMin), max: X(xMax), title: { display: true, text: `distance from datum to sensing point (${length.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 }, rfLabels: oneTwoFiveLabels, autoSkip: false }, grid: { color: palette.grid } },
+    y: { type: 'logarithmic', min: yMin / field.factor, max: yMax / field.factor, title: { display: true, text: `field |B| (${field.symbol}), log scale` }, ticks: { format: { maximumSignificantDigits: 3 }, rfLabels: oneTwoFiveLabels, autoSkip: false }, grid: { color: palette.grid } },
   } as NonNullable<typeof options.scales>;
   return {
     config: { type: 'scatter', data: { datasets }, options },

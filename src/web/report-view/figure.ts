@@ -29,18 +29,57 @@ function safeColour(colour: string): string {
 }
 
 /**
- * Draw every `canvas[data-rf-chart]` under `root` with the Chart constructor given.
- * The exported report runs `drawChartsSource` instead, the same steps as plain script.
+ * Marker for a log axis's `ticks.rfLabels`: label only 1, 2 and 5 × 10ⁿ. Chart.js's own
+ * log formatter also labels every tick in the axis's top fifth (6, 7, 8, 9, 10 run into
+ * each other); a callback cannot travel in the JSON config, so drawCharts installs it.
  */
-export function drawCharts(root: ParentNode, ChartConstructor: new (canvas: HTMLCanvasElement, config: unknown) => unknown): void {
+export const oneTwoFiveLabels = 'one-two-five';
+
+/** The slice of Chart.js's `Ticks` used for labels (its numeric formatter, with the axis as `this`). */
+export interface TickFormatters {
+  formatters: { numeric: (this: unknown, value: number, index: number, ticks: unknown[]) => string };
+}
+
+/** Install the 1-2-5 label callback on every axis of `config` marked with oneTwoFiveLabels. */
+export function installTickLabels(config: unknown, ticks: TickFormatters): void {
+  const scales = (config as { options?: { scales?: Record<string, { ticks?: Record<string, unknown> }> } }).options?.scales ?? {};
+  for (const axis of Object.values(scales)) {
+    if (axis.ticks?.['rfLabels'] !== oneTwoFiveLabels) continue;
+    axis.ticks['callback'] = function (this: unknown, value: number, index: number, all: unknown[]): string {
+      const significand = Math.round((value / Math.pow(10, Math.floor(Math.log10(value)))) * 1e6) / 1e6;
+      return significand === 1 || significand === 2 || significand === 5 ? ticks.formatters.numeric.call(this, value, index, all) : '';
+    };
+  }
+}
+
+/**
+ * Draw every `canvas[data-rf-chart]` under `root` with the Chart constructor given (and
+ * its `Ticks`, for installTickLabels). The exported report runs `drawChartsSource`
+ * instead, the same steps as plain script.
+ */
+export function drawCharts(root: ParentNode, ChartConstructor: new (canvas: HTMLCanvasElement, config: unknown) => unknown, ticks: TickFormatters): void {
   root.querySelectorAll<HTMLCanvasElement>('canvas[data-rf-chart]').forEach((canvas) => {
     const source = root.querySelector(`#${CSS.escape(canvas.dataset['rfChart'] ?? '')}`);
-    if (source?.textContent) new ChartConstructor(canvas, JSON.parse(source.textContent));
+    if (!source?.textContent) return;
+    const config: unknown = JSON.parse(source.textContent);
+    installTickLabels(config, ticks);
+    new ChartConstructor(canvas, config);
   });
 }
 
-/** `drawCharts` as inline script for a self-contained report (expects the global `Chart`). */
+/** `drawCharts` and `installTickLabels` as inline script for a self-contained report (expects the global `Chart`). */
 export const drawChartsSource = `document.querySelectorAll('canvas[data-rf-chart]').forEach(function (canvas) {
   var source = document.getElementById(canvas.getAttribute('data-rf-chart'));
-  if (source && source.textContent) new Chart(canvas, JSON.parse(source.textContent));
+  if (!source || !source.textContent) return;
+  var config = JSON.parse(source.textContent);
+  var scales = (config.options && config.options.scales) || {};
+  Object.keys(scales).forEach(function (key) {
+    var axis = scales[key];
+    if (!axis.ticks || axis.ticks.rfLabels !== '${oneTwoFiveLabels}') return;
+    axis.ticks.callback = function (value, index, all) {
+      var significand = Math.round((value / Math.pow(10, Math.floor(Math.log10(value)))) * 1e6) / 1e6;
+      return significand === 1 || significand === 2 || significand === 5 ? Chart.Ticks.formatters.numeric.call(this, value, index, all) : '';
+    };
+  });
+  new Chart(canvas, config);
 });`;

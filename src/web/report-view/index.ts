@@ -8,7 +8,7 @@
 export { renderReportDocument, renderReportBody, surveyElementId, type ReportDocumentOptions } from './report-document';
 export { renderSurveySection } from './survey-section';
 export { renderFleetSection } from './fleet-section';
-export { drawCharts } from './figure';
+export { drawCharts, installTickLabels, oneTwoFiveLabels, type TickFormatters } from './figure';
 export { reportStyles } from './report-styles';
 export { escapeHtml } from './html';
 export { catalogLookup, type ModelLookup } from './survey-facts';

@@ -4,6 +4,7 @@ import { renderReportDocument, renderSurveySection } from './index';
 import { fabricatedReport, standInLookup } from './testing-fixture';
 import { decimalYear } from './fleet-section';
 import { niceLogBound, niceTicks } from './nice-ticks';
+import { drawChartsSource, installTickLabels, oneTwoFiveLabels } from './figure';
 
 const attack = '<img src=x onerror=alert(1)>';
 
@@ -70,5 +71,19 @@ describe('report view', () => {
     expect(niceLogBound(172, 1)).toBe(200);
     expect(niceLogBound(4.9, -1)).toBe(2);
     expect(niceLogBound(5.1, 1)).toBe(10);
+  });
+
+  it('installTickLabels() labels a marked log axis at 1, 2 and 5 × 10ⁿ only', () => {
+    // the 1-2-5 series of round values per decade (common practice for log axes)
+    const config = { options: { scales: { x: { ticks: { rfLabels: oneTwoFiveLabels } }, y: { ticks: {} } } } };
+    const numeric = (value: number) => `<${value}>`;
+    installTickLabels(config, { formatters: { numeric } });
+    const label = (config.options.scales.x.ticks as { callback?: (value: number, index: number, all: unknown[]) => string }).callback!;
+    const values = [0.1, 0.2, 0.3, 0.5, 0.6, 1, 2, 3, 5, 6, 7, 8, 9, 10, 20, 200, 400, 500, 1000];
+    expect(values.filter((v) => label(v, 0, []) !== '')).toEqual([0.1, 0.2, 0.5, 1, 2, 5, 10, 20, 200, 500, 1000]);
+    expect(label(0.2, 0, [])).toBe('<0.2>');
+    // an unmarked axis keeps Chart.js's own labels; the exported report's script does the same
+    expect(config.options.scales.y.ticks).toEqual({});
+    expect(drawChartsSource).toContain(`rfLabels !== '${oneTwoFiveLabels}'`);
   });
 });

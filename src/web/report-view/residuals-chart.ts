@@ -2,6 +2,7 @@ import type { ChartDataset } from 'chart.js';
 import type { FitResult } from '../../core/fit/fit-result';
 import type { SurveyReport } from '../../core/report/report';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
+import { oneTwoFiveLabels } from './figure';
 import { niceCeiling, niceLogBound } from './nice-ticks';
 import { largest, smallest } from './extent';
 import { modelColour, palette } from './palette';
@@ -53,9 +54,9 @@ export function residualsChart(survey: SurveyReport, lookup: ModelLookup): Chart
   if (extreme > 50) notes.push('Some residuals lie beyond ±50 and are clipped at the chart edge.');
   const options = baseOptions();
   options.scales = {
-    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum to sensing point (${length.symbol})${logAxis ? ', log scale' : ''}` }, grid: { color: palette.grid } },
+    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum to sensing point (${length.symbol})${logAxis ? ', log scale' : ''}` }, ...(logAxis ? { ticks: { format: { maximumSignificantDigits: 3 }, rfLabels: oneTwoFiveLabels, autoSkip: false } } : {}), grid: { color: palette.grid } },
     y: { type: 'linear', min: -limit, max: limit, title: { display: true, text: stated ? 'residual ÷ standard uncertainty' : 'residual ÷ RMS residual' }, grid: { color: palette.grid } },
-  } as NonNullable<typeof options.scales>;
+  } as unknown as NonNullable<typeof options.scales>;
   return {
     config: { type: 'scatter', data: { datasets }, options },
     width: 760,
