@@ -19,6 +19,11 @@ describe('readFitFlags(flags)', () => {
     expect(options.fit.models).toEqual(['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube']);
     expect(options.fit).toMatchObject({ fixed: {}, instrumentUncertainty: null, positionUncertainty: null, robust: null, seed: 1 });
     expect(options).toMatchObject({ json: false, spec: null, thresholds: [], html: null, csv: null, import: {} });
+    expect(options.fit.exhaustiveStarts).toBeUndefined();
+  });
+
+  it('readFitFlags() turns --all-starts into exhaustiveStarts (every seeded start, no early stop)', () => {
+    expect(parse('--all-starts').fit.exhaustiveStarts).toBe(true);
   });
 
   it('readFitFlags() reads --model lists, comma-separated or repeated, once each', () => {

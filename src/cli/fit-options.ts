@@ -34,6 +34,7 @@ export interface FitFlags {
   readonly json?: boolean;
   readonly robust?: string;
   readonly seed?: string;
+  readonly allStarts?: boolean;
   readonly spec?: string;
   readonly threshold?: string[];
   readonly html?: string;
@@ -58,6 +59,7 @@ export function addFitOptions(command: Command): Command {
     .option('--json', 'print the JSON report (SI units) instead of text')
     .option('--robust <loss>', 'robust loss that flags outliers: huber or soft-l1')
     .option('--seed <n>', 'seed of the multi-start (same seed, same report)', '1')
+    .option('--all-starts', 'run all 8 seeded starts of every model instead of stopping once two agree (slower; can find a lower minimum for models that do not describe the readings)')
     .option('--spec <file>', 'check against a spec file')
     .option('--threshold <qty|preset>', 'report where the field falls below this level, e.g. 0.5mT or implant-static (repeatable)', collect)
     .option('--html <file>', 'also write a self-contained HTML report')
@@ -86,6 +88,7 @@ export function readFitFlags(flags: FitFlags): FitCommandOptions {
     positionUncertainty: flags.positionUncertainty === undefined ? null : readPositionUncertainty(flags.positionUncertainty),
     robust: readRobust(flags.robust),
     seed: readSeed(flags.seed ?? '1'),
+    ...(flags.allStarts === true ? { exhaustiveStarts: true } : {}),
   };
   const thresholds = (flags.threshold ?? []).map((text) => parseThresholdLevel(text));
   return {
