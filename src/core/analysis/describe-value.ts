@@ -14,6 +14,7 @@ const friendly: Readonly<Record<string, string>> = {
   innerRadius: 'inner radius',
   outerRadius: 'outer radius',
   moment: 'moment',
+  'ampereTurns at label geometry': 'ampere-turns at the label geometry',
 };
 
 /** A parameter name as people say it: ampereTurns → "ampere-turns". */

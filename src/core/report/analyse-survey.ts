@@ -22,7 +22,8 @@ export interface SurveyAnalysisSettings {
 /**
  * The whole per-survey pipeline, shared by `ringfall fit`, `ringfall batch` and the web
  * page: pick the spec for the coil (its model is fitted too, CONTRACT.md), fit every model
- * (fitSurvey), check the spec (verifySpec), find the threshold distances with their
+ * (fitSurvey), check the spec (verifySpec, refitting its model with the label's geometry
+ * held when the readings cannot determine it), find the threshold distances with their
  * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport.
  *
  * @param importNotes the importer's file-level notes (units read, columns ignored, …)
@@ -33,9 +34,17 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings, 
   const models = spec && !settings.fit.models.includes(spec.model) ? [...settings.fit.models, spec.model] : settings.fit.models;
   const options: FitSurveyOptions & { models: readonly ModelId[] } = { ...settings.fit, models };
   const fits = fitSurvey(survey, options);
+  // the spec's model again with label values held, for checks the free fit cannot decide
+  const refit = (held: Readonly<Record<string, number>>) => {
+    try {
+      return fitSurvey(survey, { ...options, models: [spec!.model], fixed: { ...options.fixed, ...held } })[0] ?? null;
+    } catch {
+      return null;
+    }
+  };
   const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
   return buildSurveyReport(survey, fits, {
-    verdict: spec ? verifySpec(spec, fits, survey.readingType) : null,
+    verdict: spec ? verifySpec(spec, fits, survey.readingType, refit) : null,
     thresholds,
     cautions: thresholds.length > 0 ? thresholdCautions : [],
     notes: [...importNotes, ...fitSurveyNotes(survey, options)],

@@ -6,6 +6,7 @@ import { convergedFit } from '../best-fit';
 import { coilOnlyValues } from '../coil-only-values';
 import { fittedModel, type FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
+import { checkAtLabelGeometry, type Refit } from './check-at-label-geometry';
 import { checkClaim } from './check-claim';
 import { checkMoment } from './check-moment';
 import { checkParameter, type CheckOutcome } from './check-parameter';
@@ -21,10 +22,14 @@ import { specFindings } from './spec-findings';
  * DOMAIN.md §5 (degraded vs mislabeled, …). The verdict is fail if any check fails, pass
  * if every check passes, else inconclusive.
  *
+ * When the readings leave the geometry undetermined and a `refit` is given, ampere-turns
+ * are also checked with the label's geometry held (checkAtLabelGeometry).
+ *
  * @param fits every fit of the survey; the spec's model must be among them
  * @param readingType the survey's detector type
+ * @param refit fits the spec's model again with parameters held (analyseSurvey passes one)
  */
-export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: ReadingType | null): Verdict {
+export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: ReadingType | null, refit?: Refit): Verdict {
   const fit = convergedFit(fits, spec.model);
   if (fit === null) {
     const tried = fits.some((f) => f.model === spec.model);
@@ -38,6 +43,8 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const fitted = fittedModel(fit, getModel(spec.model));
   const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
   const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
+  const atLabel = refit ? checkAtLabelGeometry(spec, fitted, outcomes, relation, refit) : null;
+  if (atLabel) outcomes.push(atLabel);
   if (outcomes.some((o) => o.blocked === 'undetermined')) {
     const dipoleFit = convergedFit(fits, 'dipole');
     const moment = checkMoment(fitted, spec.params, relation, dipoleFit && dipoleFit !== fit ? fittedModel(dipoleFit, getModel('dipole')) : null);

@@ -1,0 +1,105 @@
+import type { FitResult } from '../../fit/fit-result';
+import { parameterQuantityKind } from '../../models';
+import type { SpecCheck } from '../../report/report';
+import { decideConformity } from '../decide-conformity';
+import { describeTolerance, describeValue, parameterWords } from '../describe-value';
+import type { FittedModel } from '../fitted-model';
+import { parameterRole } from '../parameter-roles';
+import type { CheckOutcome } from './check-parameter';
+import type { ReadingRelation } from './reading-relation';
+import type { Spec, SpecParameter } from './spec';
+
+/**
+ * Fit the spec's model again to the same survey with some parameters held at the values
+ * given (on top of any the user fixed); null when that fit fails or does not converge.
+ */
+export type Refit = (held: Readonly<Record<string, number>>) => FitResult | null;
+
+/** The name of the check this adds, as it appears in reports. */
+export const atLabelGeometry = 'ampereTurns at label geometry';
+
+/**
+ * When the readings cannot determine the coil's geometry (on-axis readings of a thick coil
+ * or a rectangle, far-field readings), the label's ampere-turns cannot be checked on its
+ * own. A practitioner then holds the geometry at the label's values and checks the
+ * ampere-turns that remain (DOMAIN.md §7.6: fix what the label states so the rest is
+ * determined). The label's geometry has its own tolerance, so the ampere-turns tolerance is
+ * widened by how far the held fit's ampere-turns move when each geometry value moves by
+ * its tolerance, T = T_NI + Σ |ΔNI_j| (refits at g_j ± T_j; linear worst-case stacking, common
+ * practice for tolerance stack-up). Pass means the readings agree with the label as a
+ * whole; fail means no coil within the label's tolerances gives these readings.
+ *
+ * Null (no check) unless: the spec gives ampere-turns and the free fit could not determine
+ * them; the label gives every geometry parameter the model has (or the user fixed it); the
+ * reading types can be compared; and every refit converges.
+ *
+ * @param fitted the free fit of the spec's model
+ * @param outcomes the label-parameter checks already made (to see what was undetermined)
+ */
+export function checkAtLabelGeometry(
+  spec: Spec, fitted: FittedModel, outcomes: readonly CheckOutcome[], relation: ReadingRelation, refit: Refit,
+): CheckOutcome | null {
+  const amplitude = spec.params.find((p) => parameterRole(p.name) === 'amplitude');
+  const amplitudeOutcome = outcomes.find((o) => o.check.what === amplitude?.name);
+  if (!amplitude || amplitudeOutcome?.blocked !== 'undetermined' || !relation.comparable) return null;
+  const model = fitted.point.model;
+  const geometry: SpecParameter[] = [];
+  for (const parameter of model.parameters) {
+    if (parameterRole(parameter.name) !== 'geometry') continue;
+    const label = spec.params.find((p) => p.name === parameter.name);
+    if (label) geometry.push(label);
+    else if (!fitted.fit.params[parameter.name]?.fixed) return null;
+  }
+  if (geometry.length === 0) return null;
+  const held = Object.fromEntries(geometry.map((g) => [g.name, g.value]));
+  const atLabel = estimateOf(refit(held), amplitude.name);
+  if (atLabel === null) return null;
+  let stack = 0;
+  for (const g of geometry) {
+    const half = g.tolerance.relative * Math.abs(g.value) + g.tolerance.absolute;
+    if (!(half > 0)) continue;
+    let largest = 0;
+    for (const moved of [g.value - half, g.value + half]) {
+      const estimate = estimateOf(refit({ ...held, [g.name]: moved }), amplitude.name);
+      if (estimate === null) return null;
+      largest = Math.max(largest, Math.abs(estimate.value - atLabel.value));
+    }
+    stack += largest;
+  }
+  const factor = relation.factor;
+  const value = atLabel.value * factor;
+  const ci95 = [atLabel.ci95[0] * factor, atLabel.ci95[1] * factor] as const;
+  const tolerance = { relative: amplitude.tolerance.relative, absolute: amplitude.tolerance.absolute + stack * factor };
+  const decision = decideConformity(value, ci95, amplitude.value, tolerance);
+  const side = value < amplitude.value ? 'low' : 'high';
+  const kind = parameterQuantityKind('A');
+  const geometryText = geometry.map((g) => `${parameterWords(g.name)} ${describeValue(g.value, parameterQuantityKind(model.parameters.find((p) => p.name === g.name)!.unit))}`).join(', ');
+  const zone = `${describeValue(decision.lower, kind)} to ${describeValue(decision.upper, kind)}`;
+  const measured = `with the label's geometry held (${geometryText}), ${parameterWords(amplitude.name)} ${describeValue(value, kind, ci95)} vs ${describeTolerance(amplitude.value, kind, amplitude.tolerance)} on the label, ` +
+    `widened by ±${describeValue(stack * factor, kind)} for the geometry's own tolerance`;
+  const evidence = {
+    pass: `${measured}: the whole interval lies within ${zone}, so the readings agree with the label as a whole.`,
+    fail: `${measured}: the whole interval lies ${side === 'low' ? 'below' : 'above'} ${zone}, so no coil within the label's tolerances gives these readings.`,
+    inconclusive: `${measured}: the interval straddles a limit of ${zone}.`,
+  }[decision.status];
+  const check: SpecCheck = {
+    what: atLabelGeometry,
+    kind: 'parameter',
+    status: decision.status,
+    expected: { value: amplitude.value, unit: 'A' },
+    measured: { value, unit: 'A', ci95 },
+    tolerance,
+    evidence,
+    ...(decision.status === 'inconclusive'
+      ? { toDecide: 'Measure the coil\'s dimensions to narrow the geometry tolerance, or add readings within about one radius so the geometry is fitted rather than assumed.' }
+      : {}),
+  };
+  return { check, role: 'amplitude', side, blocked: null };
+}
+
+function estimateOf(fit: FitResult | null, name: string): { value: number; ci95: readonly [number, number] } | null {
+  const estimate = fit?.converged ? fit.params[name] : undefined;
+  if (!estimate || !estimate.determined || estimate.fixed || !estimate.ci95) return null;
+  if (!(estimate.ci95[0] <= estimate.value && estimate.value <= estimate.ci95[1])) return null;
+  return { value: estimate.value, ci95: estimate.ci95 };
+}
