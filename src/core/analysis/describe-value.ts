@@ -24,11 +24,12 @@ export function parameterWords(name: string): string {
 
 /**
  * "96.0 A (92.0–100)" or "44.8 mm (43.9–45.7)": an SI value in a display unit chosen from
- * the value, its interval in the same unit ("−2.2 to −0.8" when a bound is negative),
+ * the largest of the value and its interval's ends, the interval in the same unit ("−2.2 to −0.8" when a bound is negative),
  * three significant digits.
  */
 export function describeValue(value: number, kind: QuantityKind | null, interval?: readonly [number, number] | null, significant = 3): string {
-  const reference = value === 0 && interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : value;
+  // the unit suits the largest number shown: 0.986 A (−20.6 to 22.5), not 986 mA (−20569 to 22541)
+  const reference = interval ? Math.max(Math.abs(value), Math.abs(interval[0]), Math.abs(interval[1])) : value;
   const unit = !kind ? { symbol: '', factor: 1 } : reference === 0 ? zeroUnits[kind] : displayUnit(reference, kind);
   const show = (x: number) => formatNumber(x / unit.factor, significant);
   const symbol = unit.symbol ? ` ${unit.symbol}` : '';
