@@ -8,8 +8,11 @@ export interface WorkerPoolOptions {
   readonly workers: number;
   /** Files per message sent to a worker. */
   readonly chunkSize: number;
-  /** The worker's entry module (an .mjs that registers tsx, then loads the worker). */
-  readonly entry: URL;
+  /**
+   * The worker: an entry module (an .mjs that registers tsx, then loads the worker), or
+   * the worker's whole source as one script (bundle-worker.ts), run with `eval`.
+   */
+  readonly entry: URL | { readonly source: string };
   /** Passed to every worker once, as `workerData` (the batch settings). */
   readonly workerData: unknown;
   /** Called with each finished chunk's outcomes, in the order chunks finish. */
@@ -57,7 +60,9 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
   };
 
   const start = () => {
-    const worker = new Worker(options.entry, { workerData: options.workerData });
+    const worker = options.entry instanceof URL
+      ? new Worker(options.entry, { workerData: options.workerData })
+      : new Worker(options.entry.source, { eval: true, workerData: options.workerData });
     const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
     let ready = false;
     workers.add(worker);
