@@ -66,9 +66,9 @@ async function cachedBundle() {
     writeFileSync(partial, output.text);
     renameSync(partial, output.path);
   }
-  // bundles of earlier sources are not needed again
+  // bundles of earlier sources are not needed again (files still being written are left alone)
   for (const name of readdirSync(folder)) {
-    if (name.startsWith('cli-') && !bundle.endsWith(name.replace(/\.map$/, ''))) rmSync(join(folder, name), { force: true });
+    if (name.startsWith('cli-') && !name.endsWith('.partial') && !bundle.endsWith(name.replace(/\.map$/, ''))) rmSync(join(folder, name), { force: true });
   }
   return bundle;
 }
