@@ -67,6 +67,14 @@ describe('loopFieldBatch()', () => {
     });
   }
 
+  it('refuses a count longer than an array instead of reading past it', () => {
+    const short = new Float64Array(3);
+    const long = new Float64Array(5);
+    expect(() => loopFieldBatch(1, 0.1, long, long, short, long)).toThrow(RangeError);
+    expect(() => loopFieldBatch(1, 0.1, short, short, short, short, 4)).toThrow(/count 4/);
+    expect(() => loopFieldBatch(1, 0.1, long, long, long, long, 0)).not.toThrow();
+  });
+
   it('agrees with direct Biot–Savart integration over a survey-like cloud of points', () => {
     // independent: trapezoid rule on the Biot–Savart integrand (test/support/biot-savart.ts)
     const radius = 0.05;

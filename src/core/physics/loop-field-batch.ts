@@ -81,12 +81,16 @@ function outsideBulk(a: number, z: number, rho: number): boolean {
  * Nothing is allocated per call. SI: A, m, T.
  *
  * @param count number of points (default z.length)
+ * @throws RangeError when count is negative or longer than any of the arrays
  * @example loopFieldBatch(1, 0.1, zs, rhos, axial, radial) // axial[i] = loopField(…)[0]
  */
 export function loopFieldBatch(
   ampereTurns: number, radius: number, z: Float64Array, rho: Float64Array,
   axial: Float64Array, radial: Float64Array, count = z.length,
 ): void {
+  if (!(count >= 0 && count <= Math.min(z.length, rho.length, axial.length, radial.length))) {
+    throw new RangeError(`loopFieldBatch: count ${count} must be 0 or more and at most the length of every array (z ${z.length}, rho ${rho.length}, axial ${axial.length}, radial ${radial.length})`);
+  }
   const wasm = preferTypeScript ? null : loadKernel();
   if (wasm === null) {
     loopFieldBatchTypeScript(ampereTurns, radius, z, rho, axial, radial, count);
