@@ -31,7 +31,7 @@ const axis = new Float64Array(6);
  *
  * @param out Float64Array, length ≥ 7: [B_z, B_ρ, ∂B_z/∂z, ∂B_ρ/∂z (= ∂B_z/∂ρ), ∂B_ρ/∂ρ,
  *   ∂B_z/∂a, ∂B_ρ/∂a]; all NaN on the wire
- * @example loopFieldGradient(1, 0.1, 0.05, 0, out) // out[2] = −3μ0 a² z/(2 s⁵) = −1.0792e-4 T/m
+ * @example loopFieldGradient(1, 0.1, 0.05, 0, out) // out[2] = −3μ0NI a² z/(2 s⁵) = −5.3951e-5 T/m
  */
 export function loopFieldGradient(
   ampereTurns: number, radius: number, z: number, rho: number, out: Float64Array,
