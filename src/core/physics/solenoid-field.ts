@@ -41,7 +41,8 @@ export function solenoidFieldOnAxis(ampereTurns: number, radius: number, length:
  * ρ = 0 uses solenoidFieldOnAxis. On the current sheet itself (ρ = a, |z| < L/2) B_z is the
  * mean of the inside and outside values; at the rims (ρ = a, z = ±L/2) B_ρ is infinite
  * (logarithmic) and B_z finite.
- * Far away the two end terms nearly cancel: relative error ≈ 1e-16·(distance/L).
+ * Far away the two end terms nearly cancel: relative error ≈ 1e-16·(distance/L)² off the
+ * axis (measured against mpmath: 2e-12 at 100 L, 8e-11 at 1000 L, 5e-9 at 10⁴ L).
  * A negative `rho` is a signed transverse coordinate, as in loopField.
  *
  * @param out Float64Array, length ≥ 2: out[0] = B_z (axial), out[1] = B_ρ (radial), T
