@@ -81,8 +81,9 @@ const SIZE_REFINE = 24;
  * terms is solved in closed form, A = Σ(f/y)/Σ(f²/y²) (minimising Σ(1 − A f/y)²), and the
  * size with the least misfit wins; then Brent's method on ln s (brentMinimum) refines it
  * within a grid step either side. Candidates: `hint` (e.g. the
- * half-value estimate of DOMAIN.md §1.1), the reach, and 16 sizes spaced evenly in ln s
- * from 1 % to 10× the survey's reach. Deterministic, no randomness; two buffers allocated.
+ * half-value estimate of DOMAIN.md §1.1), the reach, and SIZE_CANDIDATES (48) sizes spaced
+ * evenly in ln s from 1 % to 10× the survey's reach. Deterministic, no randomness; four
+ * buffers allocated per call (none per candidate).
  *
  * @returns the winning parameter vector with the amplitude filled in
  */
