@@ -79,8 +79,13 @@ describe('cylinderMagnetFieldOnAxis() and blockMagnetFieldOnAxis()', () => {
     // DOMAIN.md §9 row 35
     const expected = [0.293677750365, 0.138643811071, 0.0555489135416, 0.0136664880431];
     [0.001, 0.005, 0.01, 0.02].forEach((z, i) => expectClose(blockMagnetFieldOnAxis(1.2, 0.02, 0.01, 0.005, z), expected[i]!, { rel: 1e-10 }));
-    // at the pole face the thin-magnet limit is B_r/2 for an infinite face; here (B_r/π)(π/2 − …)
-    expect(blockMagnetFieldOnAxis(1.2, 0.02, 0.01, 0.005, 0)).toBeLessThan(0.6);
+    // at the pole face a block infinitely thick along the magnetisation reads B_r/2 (the end of a
+    // semi-infinite stack of current loops, DOMAIN.md §1.8: the back term vanishes, the near term is π/2);
+    // a finite block reads less, and z = 0 (atan2) joins z → 0⁺ continuously
+    const face = blockMagnetFieldOnAxis(1.2, 0.02, 0.01, 0.005, 0);
+    expect(face).toBeLessThan(0.6);
+    expectClose(face, blockMagnetFieldOnAxis(1.2, 0.02, 0.01, 0.005, 1e-12), { rel: 1e-9 });
+    expectClose(blockMagnetFieldOnAxis(1.2, 0.02, 0.01, 1e9, 0), 0.6, { rel: 1e-12 });
   });
 
   it('cylinderMagnetFieldOnAxis() far away is the dipole of m = B_r V/μ0 (1.87558e-5 T at 0.2 m)', () => {
