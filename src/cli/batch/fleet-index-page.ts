@@ -1,6 +1,6 @@
 import type { Report } from '../../core/report/report';
-import { html, type SafeHtml, trusted } from '../../web/report-view/html';
-import { reportStyles } from '../../web/report-view/report-styles';
+import { documentHead } from '../../web/report-view/document-head';
+import { html, type SafeHtml } from '../../web/report-view/html';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';
@@ -17,16 +17,7 @@ export function renderFleetIndexPage(report: Report, pages: readonly string[], c
   const rows = fleetRows(report);
   const unreadable = report.fleet?.unreadable ?? [];
   const attention = attentionList(rows, unreadable);
-  const page: SafeHtml = html`<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>ringfall fleet summary</title>
-<style>body { margin: 0 auto; padding: 1rem; max-width: 1000px; background: #f6f5f0; } @media print { body { background: #fff; padding: 0; } }${trusted(reportStyles)}</style>
-</head>
-<body class="rf-report">
+  const page: SafeHtml = html`${documentHead("default-src 'none'; style-src 'unsafe-inline'", 'ringfall fleet summary', 1000)}<body class="rf-report">
 <header><h1>Fleet summary</h1>
 <p>${rows.filter((row) => row.coil !== null).length} coils, ${report.surveys.length} surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p></header>
 <section class="rf-fleet"><h2>Coils</h2>

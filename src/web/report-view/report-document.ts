@@ -1,8 +1,8 @@
 import type { Report } from '../../core/report/report';
 import { drawChartsSource } from './figure';
 import { renderFleetSection } from './fleet-section';
+import { documentHead } from './document-head';
 import { html, trusted, type SafeHtml } from './html';
-import { reportStyles } from './report-styles';
 import { renderSurveySection } from './survey-section';
 import { catalogLookup, type ModelLookup } from './survey-facts';
 
@@ -46,16 +46,7 @@ export function renderReportDocument(report: Report, options: ReportDocumentOpti
   const title = options.title ?? 'ringfall report';
   // "</script" inside the library would end the element early; "<\/" means the same in JS.
   const library = options.chartLibrary.replace(/<\/(script)/gi, '<\\/$1');
-  const page: SafeHtml = html`<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${title}</title>
-<style>body { margin: 0 auto; padding: 1rem; max-width: 820px; background: #f6f5f0; } @media print { body { background: #fff; padding: 0; } }${trusted(reportStyles)}</style>
-</head>
-<body>
+  const page: SafeHtml = html`${documentHead("default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:", title, 820)}<body>
 <header class="rf-report rf-doc-head"><h1>${title}</h1>${options.subtitle ? html`<p>${options.subtitle}</p>` : ''}</header>
 ${renderReportBody(report, options.lookup ?? catalogLookup)}
 <script>${trusted(library)}</script>
