@@ -42,8 +42,8 @@ export interface FitSurveyOptions {
  * applies to the others only (the fit of such a model says so in its warnings).
  *
  * @throws RingfallError `FIT_UNKNOWN_PARAMETER` naming the valid names;
- *   `FIT_FIXED_OUT_OF_BOUNDS` for a value outside a parameter's bounds (e.g. radius ≤ 0).
- * @example checkFixedParameters([loopModel], { radii: 0.045 }) // throws: … Parameters of loop: ampereTurns, radius, probeOffset, background.
+ *   `FIT_FIXED_OUT_OF_BOUNDS` for a value outside a parameter's bounds (e.g. radius ≤ 0) or not finite.
+ * @example checkFixedParameters([loopModel], { radii: 0.045 }) // throws: … Parameters — loop: ampereTurns, radius, probeOffset, background.
  */
 export function checkFixedParameters(models: readonly FieldModel[], fixed: Readonly<Record<string, number>>): void {
   for (const [name, value] of Object.entries(fixed)) {
@@ -57,10 +57,15 @@ export function checkFixedParameters(models: readonly FieldModel[], fixed: Reado
       );
     }
     for (const { model, spec } of specs) {
-      if (!Number.isFinite(value) || value < spec.lower || value > spec.upper || (spec.lower === 0 && value === 0 && spec.unit === 'm')) {
+      // A length of 0 is no coil: lengths must be more than 0, not just at least their lower bound.
+      const openAtZero = spec.lower === 0 && spec.unit === 'm';
+      if (!Number.isFinite(value) || value < spec.lower || value > spec.upper || (openAtZero && value === 0)) {
+        const problem = Number.isFinite(value)
+          ? `${name} = ${withUnit(String(value), spec.unit)} is outside what ${model.id} allows (${describeBounds(spec.lower, spec.upper, spec.unit, openAtZero)}) (--fix). Give a value inside.`
+          : `${name} = ${value} is not a finite number (--fix). Give a finite value${spec.unit === '1' ? '' : ` in ${spec.unit}`}.`;
         throw new RingfallError(
           'FIT_FIXED_OUT_OF_BOUNDS',
-          `Fixed parameter: ${name} = ${value} ${spec.unit} is outside what ${model.id} allows (${describeBounds(spec.lower, spec.upper, spec.unit)}) (--fix). Give a value inside.`,
+          `Fixed parameter: ${problem}`,
           { value, where: '--fix' },
         );
       }
@@ -68,9 +73,13 @@ export function checkFixedParameters(models: readonly FieldModel[], fixed: Reado
   }
 }
 
-function describeBounds(lower: number, upper: number, unit: string): string {
-  if (lower === 0 && upper === Infinity) return `more than 0 ${unit}`;
-  if (upper === Infinity) return `at least ${lower} ${unit}`;
-  if (lower === -Infinity) return `at most ${upper} ${unit}`;
-  return `${lower} to ${upper} ${unit}`;
+/** "0.045 m"; a dimensionless value ('1') without a unit. */
+function withUnit(value: string, unit: string): string {
+  return unit === '1' ? value : `${value} ${unit}`;
+}
+
+function describeBounds(lower: number, upper: number, unit: string, openAtZero: boolean): string {
+  if (upper === Infinity) return `${openAtZero ? 'more than' : 'at least'} ${withUnit(String(lower), unit)}`;
+  if (lower === -Infinity) return `at most ${withUnit(String(upper), unit)}`;
+  return `${lower} to ${withUnit(String(upper), unit)}`;
 }

@@ -78,6 +78,20 @@ describe('fitSurvey(survey, options)', () => {
   it('fitSurvey() refuses a fixed length ≤ 0 (FIT_FIXED_OUT_OF_BOUNDS)', () => {
     const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: evenlySpaced(0, 0.25, 20) });
     expect(() => fitSurvey(survey, { models: ['loop'], fixed: { radius: -0.01 } })).toThrow(expect.objectContaining({ code: 'FIT_FIXED_OUT_OF_BOUNDS' }));
+    expect(() => fitSurvey(survey, { models: ['loop'], fixed: { radius: -0.01 } })).toThrow(RingfallError);
+    expect(() => fitSurvey(survey, { models: ['loop'], fixed: { radius: -0.01 } })).toThrow('radius = -0.01 m is outside what loop allows (more than 0 m) (--fix). Give a value inside.');
+    expect(() => fitSurvey(survey, { models: ['loop'], fixed: { radius: 0 } })).toThrow('radius = 0 m is outside what loop allows (more than 0 m)');
+  });
+
+  it('fitSurvey() names a bad fixed value plainly: a dimensionless exponent without a unit, a non-finite value as such', () => {
+    const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: evenlySpaced(0, 0.25, 20) });
+    // the exponent's lower bound 0 is allowed, so the message says "at least", not "more than"
+    expect(() => fitSurvey(survey, { models: ['power-law'], fixed: { exponent: -1 } })).toThrow(
+      expect.objectContaining({ code: 'FIT_FIXED_OUT_OF_BOUNDS', message: 'Fixed parameter: exponent = -1 is outside what power-law allows (at least 0) (--fix). Give a value inside.' }),
+    );
+    expect(() => fitSurvey(survey, { models: ['loop'], fixed: { probeOffset: Infinity } })).toThrow(
+      expect.objectContaining({ code: 'FIT_FIXED_OUT_OF_BOUNDS', message: 'Fixed parameter: probeOffset = Infinity is not a finite number (--fix). Give a finite value in m.' }),
+    );
   });
 
   // DOMAIN.md §7.6 worked example [C]: NI = 400 A, R = 50 mm, 12 equally spaced points on
@@ -183,6 +197,16 @@ describe('fitSurvey(survey, options)', () => {
   it('fitSurvey() refuses a position uncertainty without any reading uncertainty (FIT_POSITION_WITHOUT_READING)', () => {
     const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: evenlySpaced(0, 0.25, 12) });
     expect(() => fitSurvey(survey, { models: ['loop'], positionUncertainty: 0.0005 })).toThrow(expect.objectContaining({ code: 'FIT_POSITION_WITHOUT_READING' }));
+    expect(() => fitSurvey(survey, { models: ['loop'], positionUncertainty: 0.0005 })).toThrow(/given without an uncertainty of the readings \(simulated loop\)\. Add the meter's accuracy too/);
+  });
+
+  it('fitSurvey() refuses a negative or non-finite position uncertainty, naming the value (FIT_POSITION_UNCERTAINTY)', () => {
+    const survey = simulatedSurvey({ model: 'loop', params: loopTruth, distances: evenlySpaced(0, 0.25, 12) });
+    for (const [position, shown] of [[-0.001, '-0.001'], [NaN, 'NaN'], [Infinity, 'Infinity']] as const) {
+      expect(() => fitSurvey(survey, { models: ['loop'], instrumentUncertainty: onePercent, positionUncertainty: position })).toThrow(
+        expect.objectContaining({ code: 'FIT_POSITION_UNCERTAINTY', message: `Position uncertainty: ${shown} m is not a length ≥ 0 (--position-uncertainty). Give it like "0.5mm".` }),
+      );
+    }
   });
 
   it('fitSurvey() with a robust loss flags a planted outlier by its line and keeps the fit on the others', () => {

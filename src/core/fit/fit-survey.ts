@@ -22,8 +22,10 @@ import { surveyPoints } from './survey-points';
  *   fixed parameters (SI), instrument and position uncertainty, robust loss, seed, budget.
  * @returns one FitResult per model, in the order asked, Akaike weights filled in.
  * @throws RingfallError `FIT_UNKNOWN_PARAMETER` / `FIT_FIXED_OUT_OF_BOUNDS` for a bad fixed
- *   parameter, `MODEL_UNKNOWN` for an unknown model id, `FIT_POSITION_WITHOUT_READING` when a
- *   position uncertainty comes without any reading uncertainty, `FIT_UNCERTAINTY_ZERO`.
+ *   parameter, `MODEL_UNKNOWN` for an unknown model id, `FIT_POSITION_UNCERTAINTY` for a
+ *   position uncertainty that is not a length ≥ 0, `FIT_POSITION_WITHOUT_READING` when a
+ *   position uncertainty comes without any reading uncertainty, `FIT_UNCERTAINTY_ZERO`;
+ *   RangeError when `options.models` is empty.
  * @example fitSurvey(survey, { models: ['loop'], instrumentUncertainty: { relative: 0.01, absolute: 1e-6 } })[0].params.radius.ci95
  */
 export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitResult[] {
