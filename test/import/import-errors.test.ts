@@ -114,6 +114,14 @@ describe('importSurveys() row-level problems: the row is listed, the rest is use
     });
   }
 
+  it('importSurveys() names a quote left open on the last line as that one row, not a range', () => {
+    const { unassigned } = importSurveys(`${header}${good}A,2026-01-02,dc,3,"1,10`, { source });
+    // the open quote is on line 5, the file's last line (counted by hand)
+    expect(unassigned[0]).toMatchObject({ line: 5, code: 'ROW_UNCLOSED_QUOTE' });
+    expect(unassigned[0]?.reason).toContain('opened on line 5 is never closed, so the row is not used');
+    expect(unassigned[0]?.reason).not.toContain('–');
+  });
+
   it('importSurveys() skips a coil/date group with fewer than 3 usable readings and keeps its rows', () => {
     const { surveys, skipped, counts } = importSurveys(`${header}${good}B,2026-01-02,dc,0,1,10\nB,2026-01-02,dc,1,x,10\n`, { source });
     expect(surveys.map((s) => s.coil)).toEqual(['A']);

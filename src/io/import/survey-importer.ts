@@ -174,7 +174,7 @@ export class SurveyImporter {
     if (unclosedQuote) {
       context.collector.unassigned.push({
         line, column: null, value: null, code: 'ROW_UNCLOSED_QUOTE',
-        reason: `a quoted field opened on line ${line} is never closed, so lines ${line}–${lastLine} read as one row and are not used. Remove the stray " or close the quote.`,
+        reason: `a quoted field opened on line ${line} is never closed, so ${lastLine > line ? `lines ${line}–${lastLine} read as one row and are` : 'the row is'} not used. Remove the stray " or close the quote.`,
       });
       return;
     }
