@@ -1,6 +1,7 @@
 import type { Spec } from '../analysis/spec/spec';
 import { selectSpec } from '../analysis/spec/select-spec';
 import { verifySpec } from '../analysis/spec/verify-spec';
+import { isRingfallError } from '../errors';
 import { thresholdCautions } from '../analysis/thresholds/threshold-cautions';
 import { thresholdDistances } from '../analysis/thresholds/threshold-distances';
 import type { ThresholdLevel } from '../analysis/thresholds/threshold-level';
@@ -34,12 +35,14 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings, 
   const models = spec && !settings.fit.models.includes(spec.model) ? [...settings.fit.models, spec.model] : settings.fit.models;
   const options: FitSurveyOptions & { models: readonly ModelId[] } = { ...settings.fit, models };
   const fits = fitSurvey(survey, options);
-  // the spec's model again with label values held, for checks the free fit cannot decide
+  // the spec's model again with label values held, for checks the free fit cannot decide;
+  // a held value fitSurvey refuses (RingfallError) gives null, which the verdict explains
   const refit = (held: Readonly<Record<string, number>>) => {
     try {
       return fitSurvey(survey, { ...options, models: [spec!.model], fixed: { ...options.fixed, ...held } })[0] ?? null;
-    } catch {
-      return null;
+    } catch (error) {
+      if (isRingfallError(error)) return null;
+      throw error;
     }
   };
   const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];

@@ -3,6 +3,8 @@ import { fitSurvey } from '../../fit/fit-survey';
 import { getModel, type ModelId } from '../../models';
 import { mulberry32, normalRandom } from '../../random';
 import type { Survey } from '../../survey/survey';
+import { expectClose } from '../../../../test/support/expect-close';
+import { describeValue } from '../describe-value';
 import { modelPoint } from '../model-point';
 import { atLabelGeometry } from './check-at-label-geometry';
 import type { Spec } from './spec';
@@ -86,6 +88,18 @@ describe('checkAtLabelGeometry() through verifySpec()', () => {
     expect(loose.tolerance.relative).toBe(0.05);
     // a 5 % change in a coil's size moves the ampere-turns that fit the same readings by several per cent
     expect(loose.tolerance.absolute).toBeGreaterThan(0.02 * 1500);
+    // linear worst-case stack (common practice for tolerance stack-up), computed here from refits of our own:
+    // T = T_NI + Σ_j max over g_j ± 5 % of |NI(g) − NI(label)|, the other dimensions held at the label
+    const labelGeometry = { innerRadius: 0.02, outerRadius: 0.04, length: 0.03 };
+    const turnsAt = (held: Record<string, number>) => fitSurvey(survey, { ...options, models: ['thick-coil'], fixed: held })[0]!.params['ampereTurns']!.value;
+    const atLabel = turnsAt(labelGeometry);
+    const stack = Object.entries(labelGeometry).reduce((sum, [name, value]) =>
+      sum + Math.max(...[0.95, 1.05].map((f) => Math.abs(turnsAt({ ...labelGeometry, [name]: value * f }) - atLabel))), 0);
+    expect(stack).toBeGreaterThan(0);
+    expectClose(loose.tolerance.absolute, stack, { rel: 1e-9 });
+    // the zone in the evidence is label ± (5 % + stack)
+    expect(loose.evidence).toContain(`within ${describeValue(1500 - 75 - stack, 'current')} to ${describeValue(1500 + 75 + stack, 'current')}`);
+    expect(loose.evidence).toContain(`widened by ±${describeValue(stack, 'current')} for the geometry's own tolerance`);
   });
 
   it('fails a label whose ampere-turns no coil within its tolerances can give (label 1800 A, truth 1500 A)', () => {
@@ -101,5 +115,27 @@ describe('checkAtLabelGeometry() through verifySpec()', () => {
   it('adds no check when a refit fails', () => {
     const verdict = verifySpec(label(1500, 0.02), fits, 'dc', () => null);
     expect(verdict.checks.some((c) => c.what === atLabelGeometry)).toBe(false);
+    // but says so, naming what was held (nothing dropped silently)
+    expect(verdict.explanations).toContain(
+      'The check of ampere-turns at the label\'s geometry was not made: the thick-coil fit with inner radius 20.0 mm, outer radius 40.0 mm, length 30.0 mm held could not be fitted (a held value is outside the model\'s range). ' +
+        'Add readings within about one radius so the geometry is fitted rather than assumed, or check the label\'s dimensions and their tolerances.',
+    );
+  });
+
+  it('names the held values of the refit that failed, and a refit that did not converge', () => {
+    // fails only when the inner radius is moved to 20 mm − 2 % = 19.6 mm
+    const failsLow = (held: Readonly<Record<string, number>>) => (held['innerRadius']! < 0.02 ? null : refit(held));
+    const low = verifySpec(label(1500, 0.02), fits, 'dc', failsLow);
+    expect(low.checks.some((c) => c.what === atLabelGeometry)).toBe(false);
+    expect(low.explanations.join(' ')).toContain('with inner radius 19.6 mm, outer radius 40.0 mm, length 30.0 mm held could not be fitted');
+    const stuck = verifySpec(label(1500, 0.02), fits, 'dc', (held) => ({ ...refit(held)!, converged: false }));
+    expect(stuck.explanations.join(' ')).toContain('held did not converge');
+  });
+
+  it('adds neither a check nor a note when the label does not give every dimension', () => {
+    const spec = label(1500, 0.02);
+    const verdict = verifySpec({ ...spec, params: spec.params.filter((p) => p.name !== 'length') }, fits, 'dc', refit);
+    expect(verdict.checks.some((c) => c.what === atLabelGeometry)).toBe(false);
+    expect(verdict.explanations.join(' ')).not.toContain('label\'s geometry was not made');
   });
 });

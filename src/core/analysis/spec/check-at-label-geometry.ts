@@ -30,15 +30,17 @@ export const atLabelGeometry = 'ampereTurns at label geometry';
  * whole; fail means no coil within the label's tolerances gives these readings.
  *
  * Null (no check) unless: the spec gives ampere-turns and the free fit could not determine
- * them; the label gives every geometry parameter the model has (or the user fixed it); the
- * reading types can be compared; and every refit converges.
+ * them; the label gives every geometry parameter the model has (or the user fixed it); and
+ * the reading types can be compared. When the check applies but a refit fails, does not
+ * converge or gives no interval, the result is `unavailable`: a sentence for the verdict
+ * naming the values held, so the missing check is not dropped silently.
  *
  * @param fitted the free fit of the spec's model
  * @param outcomes the label-parameter checks already made (to see what was undetermined)
  */
 export function checkAtLabelGeometry(
   spec: Spec, fitted: FittedModel, outcomes: readonly CheckOutcome[], relation: ReadingRelation, refit: Refit,
-): CheckOutcome | null {
+): CheckOutcome | { readonly unavailable: string } | null {
   const amplitude = spec.params.find((p) => parameterRole(p.name) === 'amplitude');
   const amplitudeOutcome = outcomes.find((o) => o.check.what === amplitude?.name);
   if (!amplitude || amplitudeOutcome?.blocked !== 'undetermined' || !relation.comparable) return null;
@@ -52,16 +54,23 @@ export function checkAtLabelGeometry(
   }
   if (geometry.length === 0) return null;
   const held = Object.fromEntries(geometry.map((g) => [g.name, g.value]));
+  const heldText = (values: Readonly<Record<string, number>>) =>
+    geometry.map((g) => `${parameterWords(g.name)} ${describeValue(values[g.name]!, parameterQuantityKind(model.parameters.find((p) => p.name === g.name)!.unit))}`).join(', ');
+  const unavailable = (values: Readonly<Record<string, number>>, why: string) => ({
+    unavailable: `The check of ${parameterWords(amplitude.name)} at the label's geometry was not made: the ${model.id} fit with ${heldText(values)} held ${why}. ` +
+      'Add readings within about one radius so the geometry is fitted rather than assumed, or check the label\'s dimensions and their tolerances.',
+  });
   const atLabel = estimateOf(refit(held), amplitude.name);
-  if (atLabel === null) return null;
+  if (typeof atLabel === 'string') return unavailable(held, atLabel);
   let stack = 0;
   for (const g of geometry) {
     const half = g.tolerance.relative * Math.abs(g.value) + g.tolerance.absolute;
     if (!(half > 0)) continue;
     let largest = 0;
     for (const moved of [g.value - half, g.value + half]) {
-      const estimate = estimateOf(refit({ ...held, [g.name]: moved }), amplitude.name);
-      if (estimate === null) return null;
+      const values = { ...held, [g.name]: moved };
+      const estimate = estimateOf(refit(values), amplitude.name);
+      if (typeof estimate === 'string') return unavailable(values, estimate);
       largest = Math.max(largest, Math.abs(estimate.value - atLabel.value));
     }
     stack += largest;
@@ -73,7 +82,7 @@ export function checkAtLabelGeometry(
   const decision = decideConformity(value, ci95, amplitude.value, tolerance);
   const side = value < amplitude.value ? 'low' : 'high';
   const kind = parameterQuantityKind('A');
-  const geometryText = geometry.map((g) => `${parameterWords(g.name)} ${describeValue(g.value, parameterQuantityKind(model.parameters.find((p) => p.name === g.name)!.unit))}`).join(', ');
+  const geometryText = heldText(held);
   const zone = `${describeValue(decision.lower, kind)} to ${describeValue(decision.upper, kind)}`;
   const measured = `with the label's geometry held (${geometryText}), ${parameterWords(amplitude.name)} ${describeValue(value, kind, ci95)} vs ${describeTolerance(amplitude.value, kind, amplitude.tolerance)} on the label, ` +
     `widened by ±${describeValue(stack * factor, kind)} for the geometry's own tolerance`;
@@ -97,9 +106,12 @@ export function checkAtLabelGeometry(
   return { check, role: 'amplitude', side, blocked: null };
 }
 
-function estimateOf(fit: FitResult | null, name: string): { value: number; ci95: readonly [number, number] } | null {
-  const estimate = fit?.converged ? fit.params[name] : undefined;
-  if (!estimate || !estimate.determined || estimate.fixed || !estimate.ci95) return null;
-  if (!(estimate.ci95[0] <= estimate.value && estimate.value <= estimate.ci95[1])) return null;
+/** The refit's estimate with its interval, or why there is none (the end of a sentence). */
+function estimateOf(fit: FitResult | null, name: string): { value: number; ci95: readonly [number, number] } | string {
+  if (fit === null) return 'could not be fitted (a held value is outside the model\'s range)';
+  if (!fit.converged) return 'did not converge';
+  const estimate = fit.params[name];
+  if (!estimate || !estimate.determined || estimate.fixed || !estimate.ci95) return `gives no interval for ${parameterWords(name)}`;
+  if (!(estimate.ci95[0] <= estimate.value && estimate.value <= estimate.ci95[1])) return `gives an interval for ${parameterWords(name)} that does not contain its estimate`;
   return { value: estimate.value, ci95: estimate.ci95 };
 }

@@ -23,7 +23,8 @@ import { specFindings } from './spec-findings';
  * if every check passes, else inconclusive.
  *
  * When the readings leave the geometry undetermined and a `refit` is given, ampere-turns
- * are also checked with the label's geometry held (checkAtLabelGeometry).
+ * are also checked with the label's geometry held (checkAtLabelGeometry); when that check
+ * cannot be made, the explanations say why.
  *
  * @param fits every fit of the survey; the spec's model must be among them
  * @param readingType the survey's detector type
@@ -44,7 +45,7 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
   const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
   const atLabel = refit ? checkAtLabelGeometry(spec, fitted, outcomes, relation, refit) : null;
-  if (atLabel) outcomes.push(atLabel);
+  if (atLabel && 'check' in atLabel) outcomes.push(atLabel);
   if (outcomes.some((o) => o.blocked === 'undetermined')) {
     const dipoleFit = convergedFit(fits, 'dipole');
     const moment = checkMoment(fitted, spec.params, relation, dipoleFit && dipoleFit !== fit ? fittedModel(dipoleFit, getModel('dipole')) : null);
@@ -59,6 +60,7 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const statuses = outcomes.map((o) => o.check.status);
   const status: CheckStatus = statuses.includes('fail') ? 'fail' : statuses.every((s) => s === 'pass') ? 'pass' : 'inconclusive';
   const notes = relation.note && relation.comparable ? [relation.note] : [];
+  if (atLabel && 'unavailable' in atLabel) notes.push(atLabel.unavailable);
   if (fit.warnings.length > 0) notes.push(`The ${fit.model} fit behind this verdict has ${fit.warnings.length} warning${fit.warnings.length === 1 ? '' : 's'} (listed with the fit); read ${fit.warnings.length === 1 ? 'it' : 'them'} before acting on the verdict.`);
   return { status, findings, checks: outcomes.map((o) => o.check), explanations: [...explanations, ...notes] };
 }
