@@ -1,6 +1,6 @@
 import { RingfallError } from '../errors';
 import { parseQuantity, type QuantityKind } from '../units';
-import type { FieldModel, ParameterUnit } from './field-model';
+import type { FieldModel, ParameterSpec, ParameterUnit } from './field-model';
 
 /**
  * The quantity kind a parameter's value is written in (for parseQuantity and
@@ -27,6 +27,25 @@ export function exampleValue(unit: ParameterUnit): string {
     case '1': return '2.5';
     default: return '2e-6';
   }
+}
+
+/**
+ * Whether `value` is a usable value of `parameter`: finite, greater than 0 for geometry
+ * (lengths bounded below by 0), otherwise within the parameter's bounds.
+ * @example acceptsValue(getModel('loop').parameters[1]!, 0) // false: a radius must be > 0
+ */
+export function acceptsValue(parameter: ParameterSpec, value: number): boolean {
+  if (!Number.isFinite(value)) return false;
+  return isGeometry(parameter) ? value > 0 : value >= parameter.lower && value <= parameter.upper;
+}
+
+/** The range acceptsValue allows, for messages: "must be greater than 0" or "0 to Infinity 1". */
+export function acceptedRange(parameter: ParameterSpec): string {
+  return isGeometry(parameter) ? 'must be greater than 0' : `${parameter.lower} to ${parameter.upper} ${parameter.unit}`;
+}
+
+function isGeometry(parameter: ParameterSpec): boolean {
+  return parameter.unit === 'm' && parameter.lower === 0;
 }
 
 /**
@@ -67,9 +86,8 @@ export function parseParameterAssignment(
   } else {
     value = parseQuantity(match[2]!, kind, what).value;
   }
-  const positive = parameter.unit === 'm' && parameter.lower === 0;
-  if ((positive && !(value > 0)) || value < parameter.lower || value > parameter.upper) {
-    throw new RingfallError('PARAMETER_VALUE', `${what}: ${match[2]} is out of range (${positive ? 'must be greater than 0' : `${parameter.lower} to ${parameter.upper} ${parameter.unit}`}). Give the ${parameter.description.split(':')[0]}.`, { value: text, where: option });
+  if (!acceptsValue(parameter, value)) {
+    throw new RingfallError('PARAMETER_VALUE', `${what}: ${match[2]} is out of range (${acceptedRange(parameter)}). Give the ${parameter.description.split(':')[0]}.`, { value: text, where: option });
   }
   return { index, name, value };
 }
