@@ -57,7 +57,7 @@ export function parseQuantity(text: string, expected?: QuantityKind, what = 'qua
     );
   }
   if (!Number.isFinite(number)) {
-    throw new RingfallError('QUANTITY_SYNTAX', `${what}: "${text}" is not a finite number.`, { value: text });
+    throw new RingfallError('QUANTITY_SYNTAX', `${what}: "${text}" is not a finite number. Write it like ${example(expected)}.`, { value: text });
   }
   return { value: number * unit.factor, kind: unit.kind, unit };
 }

@@ -45,6 +45,9 @@ export function parseRelativePlusAbsolute(text: string, kind: QuantityKind, what
       }
     }
   }
+  if (!Number.isFinite(relative)) {
+    throw new RingfallError('TOLERANCE_SYNTAX', `${what}: "${text}" is not a finite percentage. Write it like "1.5%+2uT", "10%" or "0.2mT".`, { value: text });
+  }
   if (relative < 0 || absolute < 0) {
     throw new RingfallError('TOLERANCE_SYNTAX', `${what}: "${text}" is negative. Give a positive tolerance.`, { value: text });
   }

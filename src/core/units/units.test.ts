@@ -4,6 +4,17 @@ import { parseQuantity, parseRelativePlusAbsolute, formatQuantity, lookupUnit } 
 import { RingfallError } from '../errors';
 import { expectClose } from '../../../test/support/expect-close';
 
+/** The code of the RingfallError an action throws (the test fails if it throws anything else or nothing). */
+function codeOf(action: () => unknown): string {
+  try {
+    action();
+  } catch (error) {
+    expect(error).toBeInstanceOf(RingfallError);
+    return (error as RingfallError).code;
+  }
+  throw new Error('expected a RingfallError');
+}
+
 describe('parseQuantity()', () => {
   it('parseQuantity() reads a number and a unit with or without a space', () => {
     // CONTRACT.md examples; 1 mm = 1e-3 m exactly (SI Brochure 9th ed., prefixes)
@@ -39,6 +50,14 @@ describe('parseQuantity()', () => {
     expect(() => parseQuantity('5 furlongs', 'length')).toThrow(/unknown unit "furlongs"/);
     expect(() => parseQuantity('5', 'field')).toThrow(/has no unit/);
     expect(() => parseQuantity('abc', 'field')).toThrow(RingfallError);
+    expect(codeOf(() => parseQuantity('5 furlongs', 'length'))).toBe('QUANTITY_UNIT');
+    expect(codeOf(() => parseQuantity('5', 'field'))).toBe('QUANTITY_UNIT');
+    expect(codeOf(() => parseQuantity('abc', 'field'))).toBe('QUANTITY_SYNTAX');
+  });
+
+  it('parseQuantity() rejects a number too large for a double with QUANTITY_SYNTAX and an example', () => {
+    expect(codeOf(() => parseQuantity('1e999 mT', 'field'))).toBe('QUANTITY_SYNTAX');
+    expect(() => parseQuantity('1e999 mT', 'field')).toThrow(/"1e999 mT" is not a finite number\. Write it like "0\.5mT"/);
   });
 
   it('parseQuantity() round-trips any finite value through format and parse (property)', () => {
@@ -62,11 +81,17 @@ describe('parseRelativePlusAbsolute()', () => {
 
   it('parseRelativePlusAbsolute() rejects text that is neither with code TOLERANCE_SYNTAX', () => {
     expect(() => parseRelativePlusAbsolute('ten percent', 'field')).toThrow(/neither a percentage/);
+    expect(codeOf(() => parseRelativePlusAbsolute('ten percent', 'field'))).toBe('TOLERANCE_SYNTAX');
+    expect(codeOf(() => parseRelativePlusAbsolute('-2%', 'field'))).toBe('TOLERANCE_SYNTAX');
+    // an infinite percentage would pass every check silently
+    expect(codeOf(() => parseRelativePlusAbsolute('1e999%', 'field'))).toBe('TOLERANCE_SYNTAX');
+    expect(() => parseRelativePlusAbsolute('1e999%', 'field', '--uncertainty')).toThrow(/--uncertainty: "1e999%" is not a finite percentage/);
   });
 });
 
 describe('formatQuantity()', () => {
   it('formatQuantity() picks mT, uT, mm as a reader expects', () => {
+    // SI prefixes (SI Brochure 9th ed. §3); 4 significant digits is our default (regression pin, not truth)
     expect(formatQuantity(0.0012346, 'field')).toBe('1.235 mT');
     expect(formatQuantity(2.5e-5, 'field')).toBe('25.00 uT');
     expect(formatQuantity(0.045, 'length')).toBe('45.00 mm');
