@@ -49,6 +49,18 @@ describe('runPipeline()', () => {
     expect(file.rowsNotUsed.every((row) => row.line > 0 && row.reason.length > 0)).toBe(true);
   });
 
+  it('lists every row of a file with too few usable readings, not only the three its message quotes', () => {
+    const bad = Array.from({ length: 10 }, (_, i) => `${i + 1},x${i}`);
+    const text = ['distance (mm),B (mT)', ...bad, '20,4', '30,2'].join('\n') + '\n';
+    const file = runPipeline([{ id: 'few', name: 'few.csv', text }], plain).files[0]!;
+    expect(file.error?.code).toBe('IMPORT_TOO_FEW_ROWS');
+    // the text above: 10 unreadable cells on lines 2–11, then 2 usable readings (lines 12–13), too few to fit
+    expect(file.rowsNotUsedTotal).toBe(12);
+    expect(file.rowsNotUsed.map((row) => row.line)).toEqual(Array.from({ length: 12 }, (_, i) => i + 2));
+    expect(file.rowsNotUsed[9]!.reason).toContain('"x9"');
+    expect(file.skipped.map((group) => group.reason)).toEqual([expect.stringContaining('2 usable readings')]);
+  });
+
   it('returns setting mistakes without fitting', () => {
     const outcome = runPipeline([{ id: 'a', name: healthy, text: sample(healthy) }], { ...plain, uncertainty: '1.5 %+ two uT', thresholds: ['icnirp-public'] });
     expect(outcome.settingErrors.map((e) => e.field)).toEqual(['uncertainty', 'threshold:0']);

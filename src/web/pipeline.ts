@@ -1,7 +1,7 @@
 import { isRingfallError } from '../core/errors';
 import type { Report, SurveyReport } from '../core/report/report';
 import type { RejectedRow, Survey } from '../core/survey/survey';
-import { detectSurveyLayout, importSurveys, type ColumnMapping, type Detection, type ImportCounts } from '../io';
+import { detectSurveyLayout, importSurveys, type ColumnMapping, type Detection, type ImportCounts, type ImportResult } from '../io';
 import { fitStage, fleetStage, parameterUnit, unfittedReport } from './fit-stage';
 import { parseFitSettings, type FitSettings, type SettingError } from './fit-settings';
 
@@ -72,22 +72,15 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
       const result = importSurveys(file.text, options);
       for (const survey of result.surveys) surveys.push({ survey, notes: result.detection.notes, skipped: null });
       for (const group of result.skipped) surveys.push({ survey: group.survey, notes: result.detection.notes, skipped: group.reason });
-      const rows = [
-        ...result.surveys.flatMap((s) => s.rejected),
-        ...result.skipped.flatMap((s) => [...s.survey.rejected, ...s.survey.readings.map((r) => ({ line: r.line, column: null, value: null, reason: s.reason }))]),
-        ...result.unassigned,
-      ].sort((a, b) => a.line - b.line);
-      outcomes.push({
-        id: file.id, name: file.name, error: null, detection: result.detection, counts: result.counts,
-        surveys: result.surveys.map((s) => ({ coil: s.coil, date: s.date, used: s.readings.length, rejected: s.rejected.length })),
-        skipped: result.skipped.map((s) => ({ coil: s.survey.coil, date: s.survey.date, reason: s.reason })),
-        rowsNotUsed: rows.slice(0, rowsListed), rowsNotUsedTotal: rows.length,
-      });
+      outcomes.push({ ...rowsOf(result), id: file.id, name: file.name, error: null, detection: result.detection, counts: result.counts });
     } catch (error) {
       if (!isRingfallError(error)) throw error;
+      // too few usable rows: the error carries the whole result, so every row not used is still listed
+      const partial = error.code === 'IMPORT_TOO_FEW_ROWS' ? (error.value as ImportResult) : null;
       outcomes.push({
-        id: file.id, name: file.name, error: { code: error.code, message: error.message }, detection: layoutOf(file.text, options),
-        counts: null, surveys: [], skipped: [], rowsNotUsed: [], rowsNotUsedTotal: 0,
+        ...(partial ? rowsOf(partial) : { surveys: [], skipped: [], rowsNotUsed: [], rowsNotUsedTotal: 0 }),
+        id: file.id, name: file.name, error: { code: error.code, message: error.message },
+        detection: partial?.detection ?? layoutOf(file.text, options), counts: partial?.counts ?? null,
       });
     }
   });
@@ -113,6 +106,20 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
   const unreadable = outcomes.flatMap((o) => (o.error ? [{ source: o.name, reason: o.error.message }] : []));
   const report: Report = reports.length > 1 ? { surveys: reports, fleet: fleetStage(reports, parsed, unreadable) } : { surveys: reports };
   return { files: outcomes, report, settingErrors: errors };
+}
+
+/** A file's surveys, skipped groups and rows not used (survey rows set aside, skipped groups' rows, unassigned rows). */
+function rowsOf(result: ImportResult): Pick<FileOutcome, 'surveys' | 'skipped' | 'rowsNotUsed' | 'rowsNotUsedTotal'> {
+  const rows = [
+    ...result.surveys.flatMap((s) => s.rejected),
+    ...result.skipped.flatMap((s) => [...s.survey.rejected, ...s.survey.readings.map((r) => ({ line: r.line, column: null, value: null, reason: s.reason }))]),
+    ...result.unassigned,
+  ].sort((a, b) => a.line - b.line);
+  return {
+    surveys: result.surveys.map((s) => ({ coil: s.coil, date: s.date, used: s.readings.length, rejected: s.rejected.length })),
+    skipped: result.skipped.map((s) => ({ coil: s.survey.coil, date: s.survey.date, reason: s.reason })),
+    rowsNotUsed: rows.slice(0, rowsListed), rowsNotUsedTotal: rows.length,
+  };
 }
 
 /** Which input a fit-time RingfallError belongs to. */
