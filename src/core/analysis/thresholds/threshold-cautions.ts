@@ -4,9 +4,9 @@
  * threshold or an exposure level is shown.
  */
 export const thresholdCautions: readonly string[] = [
-  'Exposure guidelines (ICNIRP, IEEE C95.1) are not device specifications and not therapy dosing; they do not apply to a patient\'s intended exposure.',
+  'Exposure guidelines (ICNIRP, IEEE C95.1) are not device specifications and not therapy dosing; they do not apply to a patient\'s intended exposure, which is a matter for licensed clinical practice and the device maker\'s instructions.',
   'A threshold distance is a model estimate from a limited survey: read it with its 95 % interval, its datum (where distance is measured from), its direction (on the coil axis; off axis near the windings the field can be higher) and the detector type (rms or peak).',
-  'People with pacemakers, ICDs, neurostimulators, insulin pumps or cochlear implants should follow their device maker\'s guidance and local rules; 0.5 mT is a screening line, not a guarantee.',
+  'People with pacemakers, ICDs, neurostimulators, insulin pumps or cochlear implants should follow their device maker\'s guidance, their clinician\'s advice and local codes; 0.5 mT is a screening line, not a guarantee.',
   'Pulsed devices: an rms reading can be far below the peak (crest factor 10–30 at 1 %–0.1 % duty); compare like with like.',
   'Close to the windings the field changes steeply: a 1 mm placement error moves a reading by several per cent.',
   'ringfall is not a calibrated compliance instrument; a formal assessment needs calibrated equipment and the applicable standard.',

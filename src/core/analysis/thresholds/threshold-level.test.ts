@@ -102,5 +102,8 @@ describe('parseThresholdLevel()', () => {
     expect(thresholdCautions).toHaveLength(7);
     expect(thresholdCautions.join(' ')).toMatch(/maker's guidance/);
     expect(thresholdCautions.join(' ')).toMatch(/not a calibrated compliance instrument/);
+    // implant and patient cautions defer to the maker, licensed practice and local codes (DOMAIN.md §4.5 items 1 and 3)
+    expect(thresholdCautions[0]).toMatch(/licensed clinical practice and the device maker's instructions/);
+    expect(thresholdCautions[2]).toMatch(/clinician's advice and local codes/);
   });
 });
