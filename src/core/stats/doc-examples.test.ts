@@ -20,7 +20,9 @@ describe('TSDoc examples of core/stats and core/random', () => {
     // DOMAIN.md §9 row 61, 6 decimals
     expectClose(studentTCdf(2.570582, 5), 0.975, { abs: 1e-6 });
     expectClose(studentTQuantile(0.975, 8), 2.306004, { abs: 5e-7 });
+    // 10 − t_0.975(8)·√4 with t from the same row: 10 − 2·2.306004 = 5.387992
     expectClose(parameterIntervals([10], Float64Array.of(4), 8).intervals[0]![0], 5.387992, { abs: 5e-7 });
+    // a diagonal matrix's singular values are its |diagonal entries|, largest first
     expect(singularValues([3, 0, 0, 4], 2, 2).values).toEqual([4, 3]);
     // line through x = 0, 1, 2 with σ = 1: Var(slope) = 1/Σ(x − x̄)² = 1/2
     const line = leastSquaresCovariance([1, 0, 1, 1, 1, 2], 3, 2, { scale: 'stated', chiSquare: 0 });

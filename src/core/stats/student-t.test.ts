@@ -104,7 +104,7 @@ describe('regularizedIncompleteBeta(x, a, b) and logGamma(x)', () => {
   it('regularizedIncompleteBeta(0.5, 2, 3) is 11/16, I_x(a, 1) = xᵃ and the ends are 0 and 1', () => {
     // (6 + 4 + 1)/16 from the binomial identity
     expectClose(regularizedIncompleteBeta(0.5, 2, 3), 11 / 16, { rel: 1e-14 });
-    // A&S 26.5.? special case I_x(a, 1) = xᵃ (direct integration)
+    // closed form by direct integration: I_x(a, 1) = a·∫₀ˣ t^(a−1) dt = xᵃ
     expectClose(regularizedIncompleteBeta(0.3, 2.7, 1), 0.3 ** 2.7, { rel: 1e-13 });
     expect(regularizedIncompleteBeta(0, 2, 3)).toBe(0);
     expect(regularizedIncompleteBeta(1, 2, 3)).toBe(1);
