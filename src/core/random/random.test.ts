@@ -57,6 +57,18 @@ describe('mulberry32(seed)', () => {
 });
 
 describe('normalRandom(uniform)', () => {
+  it('normalRandom() returns the Box–Muller pair of two uniforms in turn: cos first, then sin', () => {
+    const gaussian = normalRandom(mulberry32(3));
+    const uniform = mulberry32(3);
+    for (let pair = 0; pair < 5; pair++) {
+      // Box & Muller 1958, computed here from the same uniforms (1 − u keeps the logarithm finite)
+      const radius = Math.sqrt(-2 * Math.log(1 - uniform()));
+      const angle = 2 * Math.PI * uniform();
+      expect(gaussian()).toBe(radius * Math.cos(angle));
+      expect(gaussian()).toBe(radius * Math.sin(angle));
+    }
+  });
+
   it('normalRandom() gives mean 0, variance 1 and 95.0 % of draws inside ±1.959964', () => {
     const gaussian = normalRandom(mulberry32(99));
     const n = 200_000;
