@@ -157,7 +157,7 @@ export function scanSize(
  * the three best points, with a golden-section step whenever the parabola is not trusted,
  * so it never does worse than golden section and converges superlinearly on a smooth
  * minimum. Stops when x is known to within `tolerance` (absolute, in x's units) or after
- * `maxEvaluations`. f keeps track of its own best point.
+ * `maxEvaluations`.
  *
  * @param start a point inside [a, b] to begin from (e.g. the best of a grid), with `startValue` = f(start) when known
  * @returns the best x found

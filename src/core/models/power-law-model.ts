@@ -16,7 +16,8 @@ const exponentParameter: ParameterSpec = {
  * r = √((distance + probeOffset)² + ρ²), which on the axis is DESIGN.md's
  * amplitude/(d + probeOffset)^n. A power law has no direction, so the reading kind does not
  * change the prediction; `components` puts the value in the axial slot with radial 0.
- * r ≤ 0 gives NaN (the fit rejects such steps).
+ * On the axis (ρ = 0) r is the signed distance + probeOffset, so a point at or behind the
+ * datum gives NaN (the fit rejects such steps); off the axis r is the root above.
  *
  * `power-law` fits n: parameters [amplitude (T·m^n), exponent (1), probeOffset (m),
  * background (T)]; `inverse-square` and `inverse-cube` fix n = 2, 3: [amplitude,
