@@ -59,7 +59,8 @@ export function radialLog(innerRadius: number, outerRadius: number, x: number): 
  * Field of a thick coil at any point: the average over the winding depth of thin-solenoid
  * fields, B = (1/(a₂ − a₁)) ∫_{a₁}^{a₂} B_solenoid(N I, r, L; z, ρ) dr, each shell in the
  * closed form of solenoidField (Derby & Olbert 2010), the radial integral by graded
- * Gauss–Legendre (integrateOverWindingDepth). On the axis the log formula is used.
+ * Gauss–Legendre (integrateOverWindingDepth). On the axis thickCoilFieldOnAxis is used (the
+ * log formula, or the depth quadrature more than a₂ beyond an end).
  *
  * Accuracy target (tested against adaptive Gauss–Kronrod integration of loop fields over
  * the cross-section): relative error ≤ 1e-12 of |B| anywhere outside the winding
