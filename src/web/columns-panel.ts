@@ -80,7 +80,7 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
       h('tbody', {}, outcome.rowsNotUsed.map((row) => h('tr', {},
         h('td', { class: 'num' }, String(row.line)), h('td', {}, row.column ?? '—'), h('td', {}, h('code', {}, row.value ?? '')), h('td', {}, row.reason))))));
     if (outcome.rowsNotUsedTotal > outcome.rowsNotUsed.length) {
-      body.push(h('p', { class: 'muted' }, `The first ${outcome.rowsNotUsed.length} are listed; the JSON export has all of them.`));
+      body.push(h('p', { class: 'muted' }, `The first ${outcome.rowsNotUsed.length} are listed, in line order; the JSON export also lists every row set aside inside a fitted survey.`));
     }
   }
   return h('details', { class: 'file-columns', open: outcome.error !== null || outcome.rowsNotUsedTotal > 0 || current !== null },
