@@ -127,7 +127,6 @@ function settingFieldOf(code: string): string {
   if (code.startsWith('FIT_POSITION')) return 'positionUncertainty';
   if (code === 'FIT_UNCERTAINTY_ZERO') return 'uncertainty';
   if (code === 'FIT_UNKNOWN_PARAMETER' || code === 'FIT_FIXED_OUT_OF_BOUNDS') return 'fixes';
-  if (code === 'MODEL_UNKNOWN') return 'models';
   return 'models';
 }
 
