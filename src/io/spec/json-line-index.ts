@@ -4,11 +4,15 @@
  * spec can name the line. Scans the text once (strings, escapes, brackets, commas); it
  * assumes the text already parsed with JSON.parse.
  *
+ * JSON.parse keeps only the last of two equal keys in one object (ECMA-262 JSON.parse,
+ * InternalizeJSONProperty), silently; every repeat is pushed to `duplicateKeys` (path and
+ * line of the repeat) so the caller can refuse it.
+ *
  * @example jsonLineIndex('{\n "a": [1,\n 2]\n}').get('a.1') // 3
  */
-export function jsonLineIndex(text: string): Map<string, number> {
+export function jsonLineIndex(text: string, duplicateKeys?: { path: string; line: number }[]): Map<string, number> {
   const lines = new Map<string, number>();
-  const stack: { kind: 'object' | 'array'; key: string; index: number }[] = [];
+  const stack: { kind: 'object' | 'array'; key: string; index: number; keys: Set<string> }[] = [];
   let line = 1;
   let pendingKey: string | null = null;
   let expectValue = true;
@@ -49,6 +53,8 @@ export function jsonLineIndex(text: string): Map<string, number> {
       }
       if (top?.kind === 'object' && !expectValue) {
         pendingKey = JSON.parse(`"${value}"`) as string;
+        if (top.keys.has(pendingKey)) duplicateKeys?.push({ path: pathOf(pendingKey), line });
+        top.keys.add(pendingKey);
       } else {
         markValue();
         expectValue = false;
@@ -70,7 +76,7 @@ export function jsonLineIndex(text: string): Map<string, number> {
     if (c === '{' || c === '[') {
       const path = markValue();
       const key = stack.length === 0 ? '' : path.split('.').pop() ?? '';
-      stack.push({ kind: c === '{' ? 'object' : 'array', key: stack.length === 0 ? '' : key, index: 0 });
+      stack.push({ kind: c === '{' ? 'object' : 'array', key: stack.length === 0 ? '' : key, index: 0, keys: new Set() });
       pendingKey = null;
       expectValue = c === '[';
       continue;

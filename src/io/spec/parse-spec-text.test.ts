@@ -115,6 +115,40 @@ describe('parseSpecText()', () => {
     expect(duplicate.message).toContain('coil "A"');
   });
 
+  it('parseSpecText() refuses an empty file with SPEC_EMPTY rather than a bare JSON error', () => {
+    for (const text of ['', '\uFEFF', ' \n\t\n']) {
+      const error = thrown(text);
+      expect(error.code, JSON.stringify(text)).toBe('SPEC_EMPTY');
+      expect(error.message).toMatch(/the file (is empty|holds only white space) \(specs\.json\)\. Write one spec object/u);
+    }
+  });
+
+  it('parseSpecText() refuses a key given twice in one object, naming the line of the repeat (SPEC_KEY)', () => {
+    // JSON.parse would keep "50 mm" and drop "45 mm" without a word (ECMA-262 JSON.parse)
+    const single = thrown('{\n  "model": "loop",\n  "tolerance": "5%",\n  "params": {\n    "radius": "45 mm",\n    "radius": "50 mm"\n  }\n}');
+    expect(single.code).toBe('SPEC_KEY');
+    expect(single.message).toContain('"radius" appears twice');
+    expect(single.message).toContain('specs.json line 6, field params.radius');
+    const inList = thrown('[{"model": "loop", "tolerance": "5%", "params": {"radius": "4 cm"}},\n {"model": "loop", "coil": "B", "coil": "C", "tolerance": "5%", "params": {"radius": "4 cm"}}]');
+    expect(inList.message).toContain('line 2, field spec 2 coil');
+    // the same key in two different objects is not a repeat
+    expect(parse('[{"model": "loop", "tolerance": "5%", "params": {"radius": "4 cm"}, "coil": "A"},\n {"model": "loop", "coil": "B", "tolerance": "5%", "params": {"radius": "4 cm"}}]')).toHaveLength(2);
+  });
+
+  it('parseSpecText() refuses a label value outside the model parameter\'s range (SPEC_QUANTITY)', () => {
+    // DESIGN.md catalog: lengths (radius) are bounded below by 0
+    const error = thrown('{\n  "model": "loop",\n  "params": {"radius": "-45 mm"},\n  "tolerance": "5%"\n}');
+    expect(error.code).toBe('SPEC_QUANTITY');
+    expect(error.message).toContain('radius -45 mm is outside what the model allows (at least 0 m)');
+    expect(error.message).toContain('specs.json line 3, field params.radius');
+  });
+
+  it('parseSpecText() points a claim with no tolerance anywhere at the claim\'s own line', () => {
+    const error = thrown('{\n  "model": "loop",\n  "params": {"radius": "45 mm"},\n  "tolerances": {"radius": "5%"},\n  "claims": [\n    {"distance": "0 mm", "field": "1 mT"}\n  ]\n}');
+    expect(error.code).toBe('SPEC_TOLERANCE');
+    expect(error.message).toContain('no tolerance for claim 1 (specs.json line 6, field claims[0])');
+  });
+
   it('parseSpecText() reads a dimensionless exponent as a plain number', () => {
     const [spec] = parse('{"model": "power-law", "params": {"exponent": "2.5"}, "tolerances": {"exponent": "0.2"}}');
     expect(spec!.params[0]!.value).toBe(2.5);

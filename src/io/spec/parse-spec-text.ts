@@ -13,13 +13,18 @@ import { specError } from './spec-error';
  * @param source the file name, for messages
  * @param catalog parameters of each model id (the fit-model catalog)
  * @param modelIds the known ids, listed in messages
- * @throws RingfallError SPEC_JSON (syntax, with line and column), SPEC_EMPTY, SPEC_SHAPE,
- *   SPEC_KEY, SPEC_MODEL, SPEC_PARAM, SPEC_QUANTITY, SPEC_TOLERANCE, SPEC_READING_TYPE,
- *   SPEC_WAVEFORM, SPEC_DUPLICATE; each message names the line and field
+ * @throws RingfallError SPEC_JSON (syntax, with line and column), SPEC_EMPTY (also an empty
+ *   file), SPEC_SHAPE, SPEC_KEY (also a key given twice in one object), SPEC_MODEL,
+ *   SPEC_PARAM, SPEC_QUANTITY, SPEC_TOLERANCE, SPEC_READING_TYPE, SPEC_WAVEFORM,
+ *   SPEC_DUPLICATE; each message names the line and field
  * @example parseSpecText('{"model":"loop","params":{"radius":"45 mm"},"tolerance":"5%"}', 'a.json', catalog, ids)[0].params[0].value // 0.045
  */
 export function parseSpecText(text: string, source: string, catalog: ParameterCatalog, modelIds: readonly string[]): Spec[] {
   const clean = text.replace(/^\uFEFF/, '');
+  if (clean.trim() === '') {
+    throw specError('SPEC_EMPTY', 'Spec file', clean === '' ? 'the file is empty' : 'the file holds only white space', { source, line: null, field: '' },
+      'Write one spec object, or a list of them, e.g. {"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "10%"}.');
+  }
   let parsed: unknown;
   try {
     parsed = JSON.parse(clean);
@@ -28,7 +33,15 @@ export function parseSpecText(text: string, source: string, catalog: ParameterCa
     throw specError('SPEC_JSON', 'Spec file', `not valid JSON: ${(cause as Error).message}`, { source, line, field: '', ...(column === null ? {} : { column }) },
       'Fix the JSON syntax (quotes around keys and strings, commas between entries, no trailing comma).', undefined, cause);
   }
-  const lines = jsonLineIndex(clean);
+  const duplicateKeys: { path: string; line: number }[] = [];
+  const lines = jsonLineIndex(clean, duplicateKeys);
+  const duplicate = duplicateKeys[0];
+  if (duplicate) {
+    const [first = '', ...rest] = duplicate.path.split('.');
+    const field = Array.isArray(parsed) ? [`spec ${Number(first) + 1}`, rest.join('.')].filter((p) => p !== '').join(' ') : duplicate.path;
+    throw specError('SPEC_KEY', 'Spec file', `the key "${duplicate.path.split('.').pop() ?? ''}" appears twice in one object, and JSON keeps only the last`, { source, line: duplicate.line, field },
+      'Give each key once; remove or rename the other.', duplicate.path);
+  }
   const entries = Array.isArray(parsed) ? parsed : [parsed];
   if (entries.length === 0) {
     throw specError('SPEC_EMPTY', 'Spec file', 'the list of specs is empty', { source, line: 1, field: '' }, 'Give at least one spec object.');

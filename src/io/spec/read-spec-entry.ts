@@ -50,6 +50,11 @@ export function readSpecEntry(entry: unknown, context: EntryContext): Spec {
     }
     const kind = kindOf(parameter.unit, at(`params.${name}`));
     const value = readQuantity(written, kind, at(`params.${name}`));
+    if (value.value < parameter.lower || value.value > parameter.upper) {
+      const range = parameter.upper === Infinity ? `at least ${parameter.lower}` : `between ${parameter.lower} and ${parameter.upper}`;
+      throw specError('SPEC_QUANTITY', 'Spec parameter', `${name} ${value.text} is outside what the model allows (${range} ${parameter.unit})`, at(`params.${name}`),
+        `Give ${name} as the label states it${parameter.lower === 0 ? ' (a size is never negative)' : ''}.`, written);
+    }
     const toleranceText = tolerances[name] ?? defaultTolerance;
     const tolerancePath = tolerances[name] !== undefined ? `tolerances.${name}` : 'tolerance';
     params.push({ name, value: value.value, text: value.text, tolerance: readTolerance(toleranceText, kind, at(tolerancePath), name) });
@@ -90,7 +95,7 @@ function readClaims(value: unknown, defaultTolerance: unknown, at: (path: string
     if (distance.value < 0 || (radial?.value ?? 0) < 0 || !(field.value > 0)) {
       throw specError('SPEC_QUANTITY', 'Spec claim', `distance ${distance.text}, field ${field.text}: distances must be ≥ 0 and the field > 0`, place(''), 'Give the claimed field magnitude at a distance from the datum.');
     }
-    const tolerancePlace = claim['tolerance'] === undefined ? at('tolerance') : place('tolerance');
+    const tolerancePlace = claim['tolerance'] !== undefined ? place('tolerance') : defaultTolerance !== undefined ? at('tolerance') : place('');
     return {
       distance: distance.value,
       radial: radial?.value ?? 0,
