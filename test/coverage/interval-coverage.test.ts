@@ -33,6 +33,7 @@ describe('95 % intervals of fitSurvey() cover the truth', () => {
   it('fitSurvey() intervals of ampereTurns and radius contain the truth in 92–98 % of 400 surveys with σ stated per reading (1 % + 1 µT)', () => {
     const shares = coverage({}, 0, true);
     console.log(`coverage, stated σ column: ${JSON.stringify(shares)}`);
+    // nominal 95 %; 92–98 % is about ±2.7 binomial SD for 400 surveys (see above)
     for (const name of ['ampereTurns', 'radius']) {
       expect(shares[name]!, name).toBeGreaterThanOrEqual(0.92);
       expect(shares[name]!, name).toBeLessThanOrEqual(0.98);
@@ -42,6 +43,7 @@ describe('95 % intervals of fitSurvey() cover the truth', () => {
   it('fitSurvey() intervals of ampereTurns and radius contain the truth in 92–98 % of 400 surveys with 0.5 mm position scatter, given --uncertainty and --position-uncertainty (effective variance)', () => {
     const shares = coverage({ instrumentUncertainty: meter, positionUncertainty: 0.0005 }, 0.0005, false);
     console.log(`coverage, instrument σ + position σ: ${JSON.stringify(shares)}`);
+    // nominal 95 %; 92–98 % is about ±2.7 binomial SD for 400 surveys (see above)
     for (const name of ['ampereTurns', 'radius']) {
       expect(shares[name]!, name).toBeGreaterThanOrEqual(0.92);
       expect(shares[name]!, name).toBeLessThanOrEqual(0.98);

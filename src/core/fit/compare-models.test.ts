@@ -54,6 +54,7 @@ describe('compareModels(fits)', () => {
     const survey = simulatedSurvey({ model: 'loop', params: truth, distances: evenlySpaced(0, 0.3, 25), noise: { relative: 0.01, absolute: 5e-7 }, seed: 21 });
     const result = compareModels(fitSurvey(survey, { instrumentUncertainty: { relative: 0.01, absolute: 5e-7 } }));
     expect(result.best).toBe('loop');
+    // regression pin, not truth: 25 readings across near and far field leave the other models almost no weight
     expect(result.fits.find((f) => f.model === 'loop')!.stats.akaikeWeight!).toBeGreaterThan(0.99);
     const total = result.fits.reduce((sum, f) => sum + (f.stats.akaikeWeight ?? 0), 0);
     expectClose(total, 1, { rel: 1e-12 });
@@ -61,6 +62,7 @@ describe('compareModels(fits)', () => {
     for (const [i, law] of ['power-law', 'inverse-square', 'inverse-cube'].entries()) {
       const sentence = result.comparison[i]!;
       expect(sentence.startsWith(`${law} (the readings' apparent exponent is `)).toBe(true);
+      // the readings with d > 0: evenlySpaced(0, 0.3, 25) runs 12.5 mm to 300 mm
       expect(sentence).toContain('over 12.5–300 mm');
       expect(sentence).toContain('its residuals go systematic');
       expect(sentence).toMatch(/extrapolated to 600 mm \(twice the farthest reading\) it gives .* where loop gives/);
