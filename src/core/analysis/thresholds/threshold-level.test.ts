@@ -93,8 +93,24 @@ describe('parseThresholdLevel()', () => {
     expect(thrown(() => parseThresholdLevel('pacemaker')).code).toBe('THRESHOLD_LEVEL');
     expect(thrown(() => parseThresholdLevel('pacemaker')).message).toContain('implant-static');
     expect(thrown(() => parseThresholdLevel('icnirp-public')).code).toBe('THRESHOLD_FREQUENCY');
+    expect(thrown(() => parseThresholdLevel('icnirp-public')).message).toContain('"icnirp-public@50Hz"');
     expect(thrown(() => parseThresholdLevel('0 mT')).code).toBe('THRESHOLD_LEVEL');
+    expect(thrown(() => parseThresholdLevel('0 mT')).message).toContain('"0 mT" is not a positive field');
     expect(thrown(() => parseThresholdLevel('5 mm')).code).toBe('QUANTITY_KIND');
+    expect(thrown(() => parseThresholdLevel('5 mm')).message).toContain('--threshold: "5 mm" is a length');
+  });
+
+  it('parseThresholdLevel() names the option and the text when the ICNIRP frequency is outside the table', () => {
+    const error = thrown(() => parseThresholdLevel('icnirp-public@0.5Hz'));
+    expect(error.code).toBe('THRESHOLD_FREQUENCY');
+    expect(error.message).toContain('--threshold: "icnirp-public@0.5Hz"');
+    expect(error.message).toContain('1 Hz – 10 MHz');
+  });
+
+  it('parseThresholdLevel() knows the 0.1 mT power-frequency pacemaker line as an rms level', () => {
+    // DOMAIN.md §4.3 [V]: ORNL guidance for pacemaker wearers, 0.1 mT (1 G) at 60 Hz
+    expect(parseThresholdLevel('pacemaker-ac').value).toBe(1e-4);
+    expect(parseThresholdLevel('pacemaker-ac').readingType).toBe('rms');
   });
 
   it('thresholdCautions lists the seven cautions of DOMAIN.md §4.5', () => {

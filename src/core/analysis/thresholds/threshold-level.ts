@@ -1,4 +1,4 @@
-import { RingfallError } from '../../errors';
+import { isRingfallError, RingfallError } from '../../errors';
 import type { ReadingType } from '../../survey/survey';
 import { parseQuantity } from '../../units';
 import { icnirp2010ReferenceLevel, type ExposureGroup } from './icnirp-reference-level';
@@ -104,7 +104,14 @@ function icnirpLevel(group: ExposureGroup, frequencyText: string | undefined, te
     );
   }
   const frequency = Number(match[1]) * frequencyFactor[match[2]!.toLowerCase()]!;
-  const reference = icnirp2010ReferenceLevel(frequency, group);
+  let reference: ReturnType<typeof icnirp2010ReferenceLevel>;
+  try {
+    reference = icnirp2010ReferenceLevel(frequency, group);
+  } catch (error) {
+    // name the option and the text as written, not only the frequency
+    if (isRingfallError(error, 'THRESHOLD_FREQUENCY')) throw new RingfallError('THRESHOLD_FREQUENCY', `${what}: "${text}": ${error.message}`, { value: text, cause: error });
+    throw error;
+  }
   return {
     value: reference.value,
     label: `ICNIRP 2010 ${group === 'public' ? 'public' : 'workers'}, ${match[1]} ${match[2]}`,
