@@ -25,7 +25,10 @@ export interface ParameterEstimate {
 export interface FitStats {
   /** Readings used. */
   readonly n: number;
-  /** Free (fitted) parameters. */
+  /**
+   * Fitted parameters: the free ones, plus any the search held on a bound after the
+   * multi-start (search-model-fit.ts `pinned`; counted here, absent from the covariance).
+   */
   readonly k: number;
   /** Σ (y − f)² in T², unweighted. */
   readonly rss: number;
@@ -50,9 +53,9 @@ export interface FitResult {
   readonly params: Readonly<Record<string, ParameterEstimate>>;
   /** Names of the free parameters, in covariance order. */
   readonly freeParameters: readonly string[];
-  /** Covariance of the free parameters (SI), row-major k×k, or null when singular. */
+  /** Covariance of the free parameters (SI), row-major, freeParameters.length square, or null when singular. */
   readonly covariance: readonly number[] | null;
-  /** Correlation matrix of the free parameters, row-major k×k, or null. */
+  /** Correlation matrix of the free parameters, row-major like the covariance, or null. */
   readonly correlation: readonly number[] | null;
   /** How the covariance was scaled (DOMAIN §7.4): stated σ, or s² estimated from residuals. */
   readonly uncertaintyScale: 'stated' | 'estimated';
