@@ -110,6 +110,25 @@ describe('model readings and distance datums', () => {
   });
 });
 
+describe('canonicalParameters()', () => {
+  it('rectangle reports the longer side as width when every reading is on the axis, and only then', () => {
+    // DOMAIN.md §1.6: the on-axis field is symmetric in the two sides, so both orders predict the same readings
+    const model = getModel('rectangle');
+    const onAxis = survey([0, 0.05, 0.1]);
+    const params = Float64Array.of(10, 0.1, 0.2, 0.002, 0);
+    const before = predict(model, Array.from(params), onAxis);
+    expect(model.canonicalParameters!(params, onAxis, [false, false, false, false, false])).toBe(true);
+    expect(Array.from(params)).toEqual([10, 0.2, 0.1, 0.002, 0]);
+    predict(model, Array.from(params), onAxis).forEach((value, i) => expectClose(value, before[i]!, { rel: 1e-15 }));
+    // already canonical, a side held by the user, or a reading off the axis: left alone
+    expect(model.canonicalParameters!(params, onAxis, [false, false, false, false, false])).toBe(false);
+    const swapped = Float64Array.of(10, 0.1, 0.2, 0.002, 0);
+    expect(model.canonicalParameters!(swapped, onAxis, [false, true, false, false, false])).toBe(false);
+    expect(model.canonicalParameters!(swapped, survey([0, 0.05], [0, 0.03]), [false, false, false, false, false])).toBe(false);
+    expect(Array.from(swapped)).toEqual([10, 0.1, 0.2, 0.002, 0]);
+  });
+});
+
 describe('analytic Jacobians', () => {
   const cases: [string, number[], number[], number[]][] = [
     ['loop', [400, 0.05, 0.003, 2e-5], [0, 0.01, 0.04, 0.1, 0.3, 0.02], [0, 0, 0.02, 0.03, 0.1, 0.06]],
