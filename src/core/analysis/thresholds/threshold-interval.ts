@@ -54,8 +54,7 @@ export function thresholdInterval(fitted: FittedModel, level: number, scale: num
   const gradient = new Float64Array(model.parameters.length);
   fitted.point.gradient(coil, distance, 0, gradient);
   const slope = fitted.point.slope(coil, distance, 0);
-  const sign = Math.sign(fitted.point.field(coil, distance, 0));
-  for (let j = 0; j < gradient.length; j += 1) gradient[j] = mask[j] ? 0 : (-sign * gradient[j]!) / (sign * slope);
+  for (let j = 0; j < gradient.length; j += 1) gradient[j] = mask[j] ? 0 : -gradient[j]! / slope;
   const sd = Math.sqrt(deltaVariance(fitted, gradient)!);
   const half = coverage * sd;
   const linear: [number, number] = [distance - half, distance + half];
