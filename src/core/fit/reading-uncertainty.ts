@@ -20,8 +20,9 @@ export interface ReadingUncertainty {
  * reading has one > 0, otherwise none (the fit then estimates the scale from the residuals,
  * DOMAIN.md §7.4). A given accuracy replaces the file's column, and the notes say so.
  *
- * @throws RingfallError `FIT_UNCERTAINTY_ZERO` when the given accuracy makes some σᵢ = 0
- *   (a zero reading with no absolute part), which would give that reading infinite weight.
+ * @throws RingfallError `FIT_UNCERTAINTY_ZERO` when the given accuracy makes some σᵢ ≤ 0
+ *   (a zero reading with no absolute part, or a negative part), which would give that
+ *   reading infinite (or no meaningful) weight.
  * @example readingUncertainty(survey, { relative: 0.015, absolute: 2e-6 }) // σ = 0.015·|B| + 2 µT
  */
 export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbsolute | null): ReadingUncertainty {
@@ -30,6 +31,14 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
   if (instrument) {
     const sigma = Float64Array.from(readings, (r) => instrument.relative * Math.abs(r.field) + instrument.absolute);
     const zero = readings.findIndex((_, i) => !(sigma[i]! > 0));
+    if (zero >= 0 && !(instrument.relative >= 0 && instrument.absolute >= 0)) {
+      // A negative part gives σ ≤ 0 too; say so rather than blame a zero reading.
+      throw new RingfallError(
+        'FIT_UNCERTAINTY_ZERO',
+        `Uncertainty: ${formatPercent(instrument.relative)} + ${formatQuantity(instrument.absolute, 'field')} gives σ = ${formatQuantity(sigma[zero]!, 'field')} for the reading on line ${readings[zero]!.line} of ${survey.source}, not more than 0. Give a relative and an absolute part ≥ 0, e.g. "1.5%+2uT".`,
+        { value: instrument, where: `line ${readings[zero]!.line}` },
+      );
+    }
     if (zero >= 0) {
       throw new RingfallError(
         'FIT_UNCERTAINTY_ZERO',

@@ -26,6 +26,11 @@ describe('TSDoc examples of the survey-level fit', () => {
   it('readingUncertainty() refuses a pure percentage when a reading is zero (FIT_UNCERTAINTY_ZERO), names the line, and says the column was replaced', () => {
     const zero = { ...survey, readings: survey.readings.map((r, i) => (i === 1 ? { ...r, field: 0 } : r)) };
     expect(() => readingUncertainty(zero, { relative: 0.02, absolute: 0 })).toThrow(/line 3 of simulated loop.*"2%\+1uT"/);
+    expect(() => readingUncertainty(zero, { relative: 0.02, absolute: 0 })).toThrow(expect.objectContaining({ code: 'FIT_UNCERTAINTY_ZERO' }));
+    // a negative absolute part is named as such, not as a zero reading
+    expect(() => readingUncertainty(survey, { relative: 0.01, absolute: -1 })).toThrow(
+      expect.objectContaining({ code: 'FIT_UNCERTAINTY_ZERO', message: expect.stringMatching(/^Uncertainty: 1% \+ .* gives σ = .* for the reading on line 2 of simulated loop, not more than 0\. Give a relative and an absolute part ≥ 0/) }),
+    );
     const withColumn = { ...survey, readings: survey.readings.map((r) => ({ ...r, standardUncertainty: 1e-6 })) };
     expect(readingUncertainty(withColumn).source).toBe('file');
     expect(readingUncertainty(withColumn, { relative: 0.01, absolute: 0 }).notes[0]).toContain("replaced the file's uncertainty column");
