@@ -104,6 +104,10 @@ describe('planMeasurements()', () => {
     expect(code(() => planMeasurements(applicator, { ...options, probeSize: 0.05 }))).toBe('PLAN_REACH');
     expect(code(() => planMeasurements(applicator, { ...options, count: 4 }))).toBe('PLAN_COUNT');
     expect(code(() => planMeasurements(applicator, { ...options, interest: ['turns'] }))).toBe('PLAN_INTEREST');
+    expect(() => planMeasurements(applicator, { ...options, reach: [0.1, 0.05] })).toThrow(/is not a range\. Give the nearest and farthest probe distance/);
+    expect(() => planMeasurements(applicator, { ...options, probeSize: 0.05 })).toThrow(/12 positions 50\.00 mm apart do not fit/);
+    expect(() => planMeasurements(applicator, { ...options, count: 4 })).toThrow(/4 positions for 4 free parameters .* Plan at least 5/);
+    expect(() => planMeasurements(applicator, { ...options, interest: ['turns'] })).toThrow(/"turns" is not a free parameter of loop/);
   });
 
   it('planMeasurements() recommendation beats evenly spaced positions on seeded simulated surveys', () => {
