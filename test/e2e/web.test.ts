@@ -11,6 +11,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { ParameterEstimate } from '../../src/core/fit/fit-result';
+import { formatEstimate } from '../../src/core/report/render-text';
 import { expectClose } from '../support/expect-close';
 import { artifactsDir, launchBrowser, outsideRequests, repoRoot, startWebServer, type BrowserSession, type WebServer } from './support/browser';
 
@@ -90,6 +92,7 @@ describe('web page', () => {
   it('opens with the bundled sample survey fitted and its report drawn', async () => {
     await page.waitForSelector('#report-body[data-state=ready]', { timeout: 60_000 });
     expect(await page.locator('.rf-params tr[data-param=ampereTurns]').count()).toBeGreaterThan(0);
+    // a fitted survey draws a falloff and a residuals chart (report-view/survey-section.ts)
     expect(await page.locator('#report-body canvas').count()).toBeGreaterThanOrEqual(2);
   });
 
@@ -101,14 +104,17 @@ describe('web page', () => {
     const best = section.locator('.rf-params').first();
     const model = await best.getAttribute('data-model');
     const shownValue = Number(await best.locator('tr[data-param=ampereTurns]').getAttribute('data-value'));
-    const shownText = await best.locator('tr[data-param=ampereTurns] td').first().innerText();
+    const shownCells = await best.locator('tr[data-param=ampereTurns] td').allInnerTexts();
     const cli = JSON.parse(execFileSync(process.execPath, [join(repoRoot, 'bin', 'ringfall.mjs'), 'fit', file, '--json'], { cwd: repoRoot, encoding: 'utf8' }));
     const survey = cli.surveys[0];
     expect(model).toBe(survey.best);
-    const expected = survey.fits.find((f: { model: string }) => f.model === survey.best).params.ampereTurns.value as number;
+    const estimate = survey.fits.find((f: { model: string }) => f.model === survey.best).params.ampereTurns as Omit<ParameterEstimate, 'name'>;
+    const expected = estimate.value;
     // same code on the same text: the page and the CLI must agree to rounding
     expectClose(shownValue, expected, { rel: 1e-9 });
-    expect(shownText).toContain(String(Math.round(expected)).slice(0, 2));
+    // the value and 95 % interval cells read as the CLI's estimate formatted for people
+    const shown = formatEstimate({ ...estimate, name: 'ampereTurns' });
+    expect(shownCells.slice(0, 2)).toEqual([shown.value, shown.interval]);
     await page.screenshot({ path: join(artifactsDir, 'web-report.png'), fullPage: true });
     await section.locator('.rf-map').screenshot({ path: join(artifactsDir, 'web-field-map.png') });
   });
@@ -130,7 +136,11 @@ describe('web page', () => {
     const before = await page.locator('#report-body').getAttribute('data-report-count');
     await card.getByRole('button', { name: 'Use this reading and refit' }).click();
     await page.waitForFunction((count) => document.querySelector('#report-body')?.getAttribute('data-report-count') !== count, before);
-    expect(await page.locator('#file-list li', { hasText: 'no-field-unit.csv' }).locator('.file-message').count()).toBe(0);
+    const item = page.locator('#file-list li', { hasText: 'no-field-unit.csv' });
+    expect(await item.locator('.file-message').count()).toBe(0);
+    // the file written above has three data rows, all read once B has a unit
+    await expect(item.innerText()).resolves.toContain('1 survey(s), 3 readings');
+    await expect(card.locator('summary').innerText()).resolves.toContain('(columns set by hand)');
   });
 
   it('shows a coil id of markup as text and runs none of it', async () => {
@@ -171,12 +181,38 @@ describe('web page', () => {
     await page.getByLabel('at', { exact: true }).fill('50 Hz');
     await andWaitForReport(() => page.getByRole('button', { name: 'Add the ICNIRP 2010 reference level' }).click());
     const radius = page.locator('.rf-params').first().locator('tr[data-param=radius]');
-    // the fixed value is reported as fixed, with no interval (DESIGN.md catalog rule)
+    // the fixed value is reported as fixed, with no interval (DESIGN.md catalog rule);
+    // 0.045 is the 45 mm typed above, in metres
     expect(Number(await radius.getAttribute('data-value'))).toBe(0.045);
     await expect(radius.innerText()).resolves.toContain('fixed');
     // ICNIRP 2010 general public, 25–400 Hz: 200 µT (DOMAIN.md §4.2)
     await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 uT');
     await andWaitForReport(() => page.locator('.fix-row button').last().click());
+  });
+
+  it('names a bad level or spec typed in, keeps the level out, and fits again once the spec is fixed', async () => {
+    const levels = page.locator('.threshold-list li');
+    const count = await levels.count();
+    await page.getByLabel('A level of your own').fill('0.2 mX');
+    await page.getByRole('button', { name: 'Add your level' }).click();
+    const levelError = page.locator('#levels-heading ~ p.field-error');
+    await expect(levelError.innerText()).resolves.toMatch(/"0\.2 mX".*Use one of/s);
+    expect(await levels.count()).toBe(count);
+
+    const spec = page.getByLabel('Spec to check against (JSON)');
+    const specError = page.locator(`#${await spec.getAttribute('aria-describedby')}`);
+    await spec.fill('{ "model": "loop",\n  "params": { "radius": "45 mm" ');
+    await spec.press('Tab');
+    await page.waitForSelector('#report-body[data-state=failed]');
+    await expect(page.locator('#run-status').innerText()).resolves.toContain('Fix the settings marked on the left');
+    // the spec typed above breaks off on its second line
+    await expect(specError.innerText()).resolves.toMatch(/not valid JSON.*line 2.*Fix the JSON syntax/s);
+    await andWaitForReport(async () => {
+      await spec.fill('');
+      await spec.press('Tab');
+    });
+    expect(await specError.isVisible()).toBe(false);
+    expect(await page.locator('#report-body').getAttribute('data-state')).toBe('ready');
   });
 
   it('keeps the page responsive while a large survey is fitted in the worker', async () => {
