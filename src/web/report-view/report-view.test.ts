@@ -40,6 +40,7 @@ describe('report view', () => {
   it('renderSurveySection() copes with 200,000 readings, drawing an even sample and saying so', () => {
     // Math.max(...values) overflows V8's call stack near 10⁵ arguments; the view must not use it on readings
     const markup = renderSurveySection(fabricatedReport('BIG', 200_000), standInLookup, 'rf-survey-1').value;
+    // drawnReadingsLimit (chart-spec.ts) is 1500; every fixture reading lies on the axis
     expect(markup).toContain('1500 of 200000 on-axis readings are drawn');
   });
 
@@ -62,6 +63,7 @@ describe('report view', () => {
   it('niceTicks(0, 100, 5) gives steps of 20', () => {
     // Heckbert's nice numbers: rough step 20 → 2×10¹
     expect(niceTicks(0, 100, 5)).toEqual([0, 20, 40, 60, 80, 100]);
+    // rough step 0.1/4 = 0.025 → 2×10⁻², the multiples of 0.02 inside ±0.05
     expect(niceTicks(-0.05, 0.05, 4)).toEqual([-0.04, -0.02, 0, 0.02, 0.04]);
   });
 
