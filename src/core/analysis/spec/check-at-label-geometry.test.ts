@@ -102,7 +102,7 @@ describe('checkAtLabelGeometry() through verifySpec()', () => {
     expect(loose.evidence).toContain(`widened by ±${describeValue(stack, 'current')} for the geometry's own tolerance`);
   });
 
-  it('fails a label whose ampere-turns no coil within its tolerances can give (label 1800 A, truth 1500 A)', () => {
+  it('fails a label whose ampere-turns the readings contradict even with the geometry tolerance (label 1800 A, truth 1500 A)', () => {
     const verdict = verifySpec(label(1800, 0.02), fits, 'dc', refit);
     const check = verdict.checks.find((c) => c.what === atLabelGeometry)!;
     expect(check.status).toBe('fail');

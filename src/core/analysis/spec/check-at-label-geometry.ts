@@ -27,7 +27,8 @@ export const atLabelGeometry = 'ampereTurns at label geometry';
  * widened by how far the held fit's ampere-turns move when each geometry value moves by
  * its tolerance, T = T_NI + Σ |ΔNI_j| (refits at g_j ± T_j; linear worst-case stacking, common
  * practice for tolerance stack-up). Pass means the readings agree with the label as a
- * whole; fail means no coil within the label's tolerances gives these readings.
+ * whole; fail means the readings disagree with the label even when each dimension is given
+ * its tolerance (to the linear stacking above).
  *
  * Null (no check) unless: the spec gives ampere-turns and the free fit could not determine
  * them; the label gives every geometry parameter the model has (or the user fixed it); and
@@ -88,7 +89,7 @@ export function checkAtLabelGeometry(
     `widened by ±${describeValue(stack * factor, kind)} for the geometry's own tolerance`;
   const evidence = {
     pass: `${measured}: the whole interval lies within ${zone}, so the readings agree with the label as a whole.`,
-    fail: `${measured}: the whole interval lies ${side === 'low' ? 'below' : 'above'} ${zone}, so no coil within the label's tolerances gives these readings.`,
+    fail: `${measured}: the whole interval lies ${side === 'low' ? 'below' : 'above'} ${zone}, so the readings disagree with the label even with each dimension given its tolerance.`,
     inconclusive: `${measured}: the interval straddles a limit of ${zone}.`,
   }[decision.status];
   const check: SpecCheck = {
