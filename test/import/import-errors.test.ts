@@ -60,6 +60,25 @@ describe('importSurveys() file-level errors carry a stable code and say what to 
     expect(value.skipped[0]?.survey.rejected).toHaveLength(2);
   });
 
+  it('importSurveys() keeps messages and notes short for a huge header cell or thousands of columns', () => {
+    const long = failure(`${'x'.repeat(1_000_000)}\n0,1\n`);
+    expect(long.code).toBe('IMPORT_NO_DISTANCE');
+    expect(long.message).toContain('(1000000 characters)');
+    expect(long.message.length).toBeLessThan(500);
+    const unknown = Array.from({ length: 5000 }, (_, i) => `c${i}`);
+    const wide = failure(`${unknown.join(',')}\n${unknown.map(() => '1').join(',')}\n`);
+    // 10 columns named (listedColumns in detect-columns.ts), the other 4990 counted
+    expect(wide.message).toContain('5000 columns "c0", "c1"');
+    expect(wide.message).toContain('"c9" and 4990 more');
+    expect(wide.message).not.toContain('"c10"');
+    const { surveys, detection } = importSurveys(`distance (mm),B (mT),${unknown.join(',')}\n${['0,1', '1,1', '2,1'].map((r) => `${r},${unknown.map(() => '').join(',')}`).join('\n')}\n`, { source });
+    expect(detection.columns).toHaveLength(5002);
+    expect(detection.notes).toHaveLength(11);
+    expect(detection.notes[0]).toBe('column 3 "c0" is not used: "c0" is not a column name ringfall knows; ignored');
+    expect(detection.notes[10]).toBe('4990 more columns, the last column 5002, are not used either (the column detection lists each)');
+    expect(surveys[0]?.readings).toHaveLength(3);
+  });
+
   it('detectSurveyLayout() returns the column problems with the detection instead of throwing', () => {
     const { detection, problems } = detectSurveyLayout('z;B\n0;1,7\n', { source });
     expect(problems.map((p) => p.code)).toEqual(['IMPORT_DISTANCE_UNIT_MISSING', 'IMPORT_FIELD_UNIT_MISSING']);

@@ -4,6 +4,7 @@ import { applyMapping } from './apply-mapping';
 import { exampleNames } from './header-names';
 import { importError, place } from './import-errors';
 import type { ColumnDetection, ColumnRole, ImportOptions } from './import-types';
+import { shorten } from './read-number';
 import { recognizeHeader } from './recognize-header';
 import { resolveUnits } from './resolve-units';
 
@@ -78,9 +79,9 @@ export function detectColumns(headers: readonly string[], headerLine: number, op
     ));
   }
   const { columns: resolved, factors } = resolveUnits(columns, options, headerLine, problems, notes);
-  for (const column of resolved) {
-    if (column.role === null && column.reason !== 'empty header; ignored') notes.push(`column ${column.index + 1} "${column.header}" is not used: ${column.reason}`);
-  }
+  const unused = resolved.filter((column) => column.role === null && column.reason !== 'empty header; ignored');
+  for (const column of unused.slice(0, listedColumns)) notes.push(`column ${column.index + 1} "${shorten(column.header)}" is not used: ${column.reason}`);
+  if (unused.length > listedColumns) notes.push(`${unused.length - listedColumns} more columns, the last column ${(unused.at(-1)?.index ?? 0) + 1}, are not used either (the column detection lists each)`);
   const layout = problems.length === 0 ? buildLayout(resolved, factors, fieldKind) : null;
   return { columns: resolved, fieldKind, notes, problems, layout };
 }
@@ -128,11 +129,15 @@ function conflict(role: string, claimed: readonly ColumnDetection[], source: str
   );
 }
 
+/** Columns named one by one in a message or in the notes; the rest are counted. */
+const listedColumns = 10;
+
 function describeHeaders(columns: readonly ColumnDetection[]): string {
   if (columns.length === 1) {
-    return `one column "${columns[0]?.header ?? ''}" (delimiters read: comma, semicolon, tab)`;
+    return `one column "${shorten(columns[0]?.header ?? '')}" (delimiters read: comma, semicolon, tab)`;
   }
-  return `${columns.length} columns ${columns.map((c) => `"${c.header}"`).join(', ')}`;
+  const more = columns.length > listedColumns ? ` and ${columns.length - listedColumns} more` : '';
+  return `${columns.length} columns ${columns.slice(0, listedColumns).map((c) => `"${shorten(c.header)}"`).join(', ')}${more}`;
 }
 
 function buildLayout(columns: readonly ColumnDetection[], factors: readonly number[], fieldKind: FieldKind): ColumnLayout {

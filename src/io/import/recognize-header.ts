@@ -1,6 +1,7 @@
 import { lookupUnit } from '../../core/units';
 import { isValueName, normalizeColumnName, roleForName, unitKindOf } from './header-names';
 import type { ColumnRole } from './import-types';
+import { shorten } from './read-number';
 
 /** What one header cell says: a role (or none), the unit text written in it, and why. */
 export interface HeaderReading {
@@ -57,5 +58,5 @@ export function recognizeHeader(header: string): HeaderReading {
       };
     }
   }
-  return { role: null, unitText: null, reason: `"${header}" is not a column name ringfall knows; ignored` };
+  return { role: null, unitText: null, reason: `"${shorten(header)}" is not a column name ringfall knows; ignored` };
 }
