@@ -11,8 +11,6 @@ export interface PipelineFile {
   readonly name: string;
   readonly text: string;
   readonly mapping?: readonly ColumnMapping[];
-  readonly fieldUnit?: string;
-  readonly distanceUnit?: string;
 }
 
 /** What became of one file: its detection, row counts and problems, or its error. */
@@ -62,12 +60,7 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
   const surveys: { survey: Survey; notes: readonly string[]; skipped: string | null }[] = [];
   files.forEach((file, index) => {
     progress({ stage: 'import', done: index, total: files.length, label: `reading ${file.name}` });
-    const options = {
-      source: file.name,
-      ...(file.mapping ? { mapping: file.mapping } : {}),
-      ...(file.fieldUnit ? { fieldUnit: file.fieldUnit } : {}),
-      ...(file.distanceUnit ? { distanceUnit: file.distanceUnit } : {}),
-    };
+    const options = { source: file.name, ...(file.mapping ? { mapping: file.mapping } : {}) };
     try {
       const result = importSurveys(file.text, options);
       for (const survey of result.surveys) surveys.push({ survey, notes: result.detection.notes, skipped: null });
