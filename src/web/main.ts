@@ -5,9 +5,8 @@
  */
 import { columnsPanel } from './columns-panel';
 import { h, replaceChildren } from './dom';
-import { modelLookup, parameterNames } from './fit-stage';
+import { modelLookup, parameterNames, parameterUnit } from './fit-stage';
 import { defaultSettings, parseFitSettings, type FitSettings } from './fit-settings';
-import { parameterUnit } from './fit-stage';
 import { intakePanel, type FileEntry } from './intake-panel';
 import type { ColumnMapping } from '../io';
 import { reportPanel } from './report-panel';

@@ -1,7 +1,6 @@
-import type { FitSettings } from './fit-settings';
+import type { FitSettings, SettingError } from './fit-settings';
 import type { PackedReport } from './packed-report';
 import type { FileOutcome, PipelineFile, PipelineProgress } from './pipeline';
-import type { SettingError } from './fit-settings';
 
 /** Page → worker: run the pipeline on these files with these settings. */
 export interface RunRequest {
