@@ -12,6 +12,7 @@ describe('readNumber()', () => {
   });
 
   it('readNumber() reads plain decimals, signs, exponents and a U+2212 minus', () => {
+    // the decimal value of each string as written; U+2212 is the minus sign (Unicode)
     expect([readNumber('12', false), readNumber('-0.5', false), readNumber('.25', false), readNumber('1e-3', false), readNumber('+5.', false), readNumber('\u22122', false)])
       .toEqual([12, -0.5, 0.25, 0.001, 5, -2]);
   });
@@ -33,6 +34,7 @@ describe('parseDate()', () => {
   });
 
   it('parseDate() reads ISO dates, date-times and day-first dotted dates', () => {
+    // ISO 8601 calendar date; 14.03.2026 is day-first dotted (DIN 5008)
     expect([parseDate('2026-03-14'), parseDate('2026-03-14T10:00:00Z'), parseDate('14.03.2026')]).toEqual(['2026-03-14', '2026-03-14', '2026-03-14']);
   });
 

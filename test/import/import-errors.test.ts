@@ -56,6 +56,7 @@ describe('importSurveys() file-level errors carry a stable code and say what to 
   it('importSurveys() IMPORT_TOO_FEW_ROWS carries the full result so every rejected row can be listed', () => {
     const error = failure('z (mm),B (mT)\n0,1\n1,NaN\n2,OL\n');
     const value = error.value as { counts: { dataRows: number }; skipped: { survey: { rejected: unknown[] } }[] };
+    // three data rows, NaN and OL rejected (counted by hand)
     expect(value.counts.dataRows).toBe(3);
     expect(value.skipped[0]?.survey.rejected).toHaveLength(2);
   });
@@ -107,6 +108,7 @@ describe('importSurveys() row-level problems: the row is listed, the rest is use
   for (const [name, row, code, column, fragment] of cases) {
     it(`importSurveys() rejects a row with ${name} as ${code} and uses the others`, () => {
       const { surveys, counts } = importSurveys(`${header}${good}${row}\n`, { source });
+      // header on line 1, three good rows, the bad row on line 5 (counted by hand)
       expect(surveys[0]?.readings).toHaveLength(3);
       expect(surveys[0]?.rejected).toHaveLength(1);
       const rejected = surveys[0]?.rejected[0];

@@ -35,6 +35,7 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
   it('importSurveys() detects tab and semicolon delimiters and reads a decimal comma with them', () => {
     const tab = importSurveys('z [mm]\tB [mT]\n0\t1,5\n1\t1,25\n2\t1\n', { source });
     expect(tab.detection).toMatchObject({ delimiter: '\t', decimalComma: true });
+    // "1,25" mT with a decimal comma = 1.25e-3 T (SI Brochure 9th ed.: 1 mT = 1e-3 T)
     expect(tab.surveys[0]?.readings[1]?.field).toBe(0.00125);
     const semicolon = importSurveys('z [mm];B [mT]\n0;1,5\n1;1.25\n2;1\n', { source });
     expect(semicolon.detection.delimiter).toBe(';');
@@ -83,6 +84,7 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
 
   it('importSurveys() reads the radial offset and uncertainty columns', () => {
     const { surveys } = importSurveys('z (mm),rho (mm),|B| (mT),uncertainty (uT)\n0,0,1,20\n0,-10,1.1,\n0,20,1.2,20\n', { source });
+    // 1 mm = 1e-3 m, 1 uT = 1e-6 T (SI Brochure 9th ed.); −10 mm is read as its absolute value
     expect(surveys[0]?.readings.map((r) => r.radial)).toEqual([0, 0.01, 0.02]);
     expect(surveys[0]?.readings[0]?.standardUncertainty).toBe(2e-5);
     expect(surveys[0]?.readings[1]).not.toHaveProperty('standardUncertainty');
@@ -91,12 +93,14 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
 
   it('importSurveys() uses --field-unit and --distance-unit only for headers without units', () => {
     const { surveys, detection } = importSurveys('z,B\n0,17\n1,9\n2,4\n', { source, fieldUnit: 'G', distanceUnit: 'cm' });
+    // NIST SP 811 (2008) App. B.8/B.9: 1 cm = 0.01 m, 1 G = 1e-4 T exactly
     expect(surveys[0]?.readings[1]).toMatchObject({ distance: 0.01, field: 0.0009 });
     expect(detection.columns.map((c) => c.unitSource)).toEqual(['option', 'option']);
   });
 
   it('importSurveys() keeps small negative readings of a plain B column and says so', () => {
     const { surveys } = importSurveys('distance (mm),B (uT)\n0,1700\n100,200\n300,-3\n400,-4\n', { source });
+    // 1 uT = 1e-6 T (SI Brochure 9th ed.), signs as written
     expect(surveys[0]?.readings.map((r) => r.field)).toEqual([0.0017, 0.0002, -0.000003, -0.000004]);
     expect(surveys[0]?.notes[0]).toContain('2 negative readings kept');
   });

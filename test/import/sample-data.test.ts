@@ -103,6 +103,8 @@ describe('sample-data/ files', () => {
     const { axial, radial } = loopOffAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, rho, z);
     return rho === 0 ? axial : Math.hypot(axial, radial);
   };
+  // rows per file, counted from scripts/sample-data: healthyOrderMm (25 distances + 3 repeats of 20 mm),
+  // applicatorDistancesMm (25), the mat's 15 and the thick coil's 17 distances, the 5 × 6 grid, fleet 3 coils × 5 dates × 12
   const cases: [file: string, predict: typeof loop, rows: number][] = [
     ['qa-107-2025-03-11-healthy.csv', loop, 28],
     ['qa-107-2026-03-10-degraded.csv', loop, 25],
@@ -120,6 +122,7 @@ describe('sample-data/ files', () => {
       expect(residuals).toHaveLength(rows);
       // noise is N(0, 1) per reading by construction; 5 SD allows rounding and placement scatter
       for (const r of residuals) expect(Math.abs(r)).toBeLessThan(5);
+      // the mean of n ≥ 15 N(0, 1) residuals has SD ≤ 1/√15 ≈ 0.26, so 1.5 is about 6 SD (closed form)
       expect(Math.abs(residuals.reduce((a, b) => a + b, 0) / rows)).toBeLessThan(1.5);
     });
   }
@@ -146,6 +149,7 @@ describe('sample-data/ files', () => {
     } catch (error) {
       expect((error as RingfallError).code).toBe('IMPORT_FIELD_UNIT_MISSING');
     }
+    // the healthy QA-107 survey: healthyOrderMm has 28 distances (scripts/sample-data/build-sample-data.ts)
     expect(importSurveys(text, { source: 'no-unit.csv', fieldUnit: 'mT' }).counts.used).toBe(28);
   });
 
@@ -166,6 +170,7 @@ describe('sample-data/ files', () => {
     };
     const catalog = (id: string) => names[id]?.map(([name, unit]) => ({ name, unit, lower: -Infinity, upper: Infinity, description: name }));
     const specPaths = [...files.keys()].filter((p) => p.endsWith('.spec.json'));
+    // six coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
     expect(specPaths).toHaveLength(7);
     for (const path of specPaths) expect(parseSpecText(read(path), path, catalog, Object.keys(names)).length, path).toBeGreaterThan(0);
     expect(parseSpecText(read('specs/all-coils.spec.json'), 'all', catalog, Object.keys(names)).flatMap((s) => s.coils ?? [])).toEqual(['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9']);
