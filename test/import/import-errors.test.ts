@@ -151,6 +151,15 @@ describe('importSurveys() row-level problems: the row is listed, the rest is use
     expect(counts).toMatchObject({ dataRows: 5, used: 3, rejected: 2 });
   });
 
+  it('importSurveys() hints at a decimal comma when one extra cell splits a number in a comma file, and only then', () => {
+    const { surveys } = importSurveys('distance (mm),B (mT)\n0,1.7\n10,1.6\n20,1.3\n30,1,2\n40,1.0,x\n', { source });
+    const [comma, text] = surveys[0]?.rejected ?? [];
+    expect(comma).toMatchObject({ line: 5, code: 'ROW_EXTRA_CELLS', value: '2' });
+    expect(comma?.reason).toContain('has a decimal comma, write a decimal point instead');
+    expect(text).toMatchObject({ line: 6, code: 'ROW_EXTRA_CELLS', value: 'x' });
+    expect(text?.reason).not.toContain('decimal comma');
+  });
+
   it('importSurveys() reads rows that lack only unused trailing cells, or carry a trailing delimiter', () => {
     const { surveys } = importSurveys('distance (mm),B (mT),note\n0,1\n1,0.5,x,\n2,0.2,,,\n', { source });
     expect(surveys[0]?.readings).toHaveLength(3);

@@ -64,7 +64,8 @@ function checkWidth(cells: readonly string[], context: RowContext): Problem | nu
     if (extra === undefined) return null;
     return {
       column: null, value: shorten(extra.trim()), code: 'ROW_EXTRA_CELLS',
-      reason: `the row has ${cells.length} cells but the header has ${width}; "${shorten(extra.trim())}" has no column. Fix the row or add a header for that column.`,
+      reason: `the row has ${cells.length} cells but the header has ${width}; "${shorten(extra.trim())}" has no column. Fix the row or add a header for that column.` +
+        decimalCommaHint(cells, width, context.decimalComma),
     };
   }
   const missing = context.headers.filter((_, index) => index >= cells.length && context.used[index]);
@@ -73,6 +74,17 @@ function checkWidth(cells: readonly string[], context: RowContext): Problem | nu
     column: missing[0] ?? null, value: null, code: 'ROW_MISSING_CELLS',
     reason: `the row has ${cells.length} cell${cells.length === 1 ? '' : 's'} but the header has ${width}; no ${missing.map((m) => `"${m}"`).join(', ')}. Fill in the missing cells or delete the row.`,
   };
+}
+
+/** A hint when one extra cell could come from a decimal comma in a comma-delimited file ("3,412" read as 3 and 412). */
+function decimalCommaHint(cells: readonly string[], width: number, decimalComma: boolean): string {
+  if (decimalComma || cells.length !== width + 1) return '';
+  for (let i = 0; i + 1 < cells.length; i += 1) {
+    if (/^\s*[+-]?\d+\s*$/u.test(cells[i] ?? '') && /^\s*\d+\s*$/u.test(cells[i + 1] ?? '')) {
+      return ' If a number in it has a decimal comma, write a decimal point instead (this comma-delimited file splits "1,5" into two cells), or save the file delimited by semicolons.';
+    }
+  }
+  return '';
 }
 
 function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): Reading | Problem {
