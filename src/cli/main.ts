@@ -23,7 +23,10 @@ export async function main(argv: readonly string[]): Promise<number> {
     .description('Reconcile gaussmeter survey readings with coil physics.')
     .option('--debug', 'print stack traces on errors')
     .exitOverride()
-    .configureOutput({ writeErr: (text) => process.stderr.write(text) });
+    .configureOutput({
+      writeErr: (text) => process.stderr.write(text),
+      outputError: (text, write) => write(usageErrorLine(text, argv, program.commands.map((command) => command.name()))),
+    });
   const status = { code: 0 };
   const context = { setExitCode: (code: number) => { status.code = Math.max(status.code, code); } };
   registerPredict(program, context);
@@ -54,4 +57,18 @@ export async function main(argv: readonly string[]): Promise<number> {
 /** What a command may do besides printing: raise the process exit status. */
 export interface CommandContext {
   setExitCode(code: number): void;
+}
+
+/**
+ * A usage error commander reports ("error: unknown option '--x'\n(Did you mean --y?)\n")
+ * as the one line CONTRACT.md asks for: what was wrong, then the help of the command named
+ * in `argv` (one of `commands`) or of ringfall.
+ * @example usageErrorLine("error: missing required argument 'files'\n", ['node', 'ringfall', 'fit'], ['fit'])
+ *   // ringfall: missing required argument 'files'. See "ringfall fit --help" for the usage.\n
+ */
+export function usageErrorLine(text: string, argv: readonly string[], commands: readonly string[]): string {
+  const what = text.trim().replace(/^error: /, '').replace(/\s*\n\s*\(Did you mean/, ' (did you mean').replace(/\s*\n\s*/g, ' ').replace(/\.$/, '');
+  const command = argv.slice(2).find((arg) => !arg.startsWith('-'));
+  const help = command !== undefined && commands.includes(command) ? `ringfall ${command} --help` : 'ringfall --help';
+  return `ringfall: ${what}. See "${help}" for the usage.\n`;
 }
