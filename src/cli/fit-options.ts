@@ -5,7 +5,7 @@ import { defaultModels, type FitSurveyOptions } from '../core/fit/fit-survey-opt
 import type { RobustLoss } from '../core/fit/robust-fit';
 import { getModel, parseParameterAssignment } from '../core/models';
 import type { FieldModel, ModelId } from '../core/models';
-import { parseQuantity, parseRelativePlusAbsolute } from '../core/units';
+import { lookupUnit, parseQuantity, parseRelativePlusAbsolute, unitsOfKind } from '../core/units';
 
 /** Options of `ringfall fit` (and `batch`), typed and in SI, ready for core. */
 export interface FitCommandOptions {
@@ -44,9 +44,9 @@ export interface FitFlags {
 const collect = (value: string, previous: string[] | undefined): string[] => [...(previous ?? []), value];
 
 /**
- * Declare the fitting options of CONTRACT.md on a command (`fit`, and later `batch`):
+ * Declare the fitting options of CONTRACT.md on a command (`fit` and `batch`):
  * --model, --fix, --uncertainty, --position-uncertainty, --distance-unit, --field-unit,
- * --json, --robust, --seed, --spec, --threshold, --html, --csv.
+ * --json, --robust, --seed, --all-starts, --spec, --threshold, --html, --csv.
  */
 export function addFitOptions(command: Command): Command {
   return command
@@ -59,7 +59,7 @@ export function addFitOptions(command: Command): Command {
     .option('--json', 'print the JSON report (SI units) instead of text')
     .option('--robust <loss>', 'robust loss that flags outliers: huber or soft-l1')
     .option('--seed <n>', 'seed of the multi-start (same seed, same report)', '1')
-    .option('--all-starts', 'run all 8 seeded starts of every model instead of stopping once two agree (slower; can find a lower minimum for models that do not describe the readings)')
+    .option('--all-starts', 'run every extra start of every model (the data-driven one and 8 seeded) instead of stopping once the fit is settled or two agree (slower; can find a lower minimum for models that do not describe the readings)')
     .option('--spec <file>', 'check against a spec file')
     .option('--threshold <qty|preset>', 'report where the field falls below this level, e.g. 0.5mT or implant-static (repeatable)', collect)
     .option('--html <file>', 'also write a self-contained HTML report')
@@ -74,7 +74,8 @@ export function addFitOptions(command: Command): Command {
  *   model has, naming the valid ones); `PARAMETER_SYNTAX`, `PARAMETER_VALUE` and the
  *   `QUANTITY_*` codes for a bad --fix; `OPTION_TWICE` (a parameter fixed twice);
  *   `TOLERANCE_SYNTAX` (--uncertainty); `OPTION_VALUE` (--position-uncertainty < 0,
- *   --threshold ≤ 0, --robust or --seed not understood).
+ *   --field-unit or --distance-unit not a unit of that kind, --robust or --seed not
+ *   understood); `THRESHOLD_LEVEL` and `THRESHOLD_FREQUENCY` (--threshold, parseThresholdLevel).
  * @example readFitFlags({ fix: ['radius=45mm'], uncertainty: '1.5%+2uT' }).fit.fixed // { radius: 0.045 }
  */
 export function readFitFlags(flags: FitFlags): FitCommandOptions {
@@ -94,8 +95,8 @@ export function readFitFlags(flags: FitFlags): FitCommandOptions {
   return {
     fit,
     import: {
-      ...(flags.fieldUnit === undefined ? {} : { fieldUnit: flags.fieldUnit }),
-      ...(flags.distanceUnit === undefined ? {} : { distanceUnit: flags.distanceUnit }),
+      ...(flags.fieldUnit === undefined ? {} : { fieldUnit: readUnit(flags.fieldUnit, 'field', '--field-unit') }),
+      ...(flags.distanceUnit === undefined ? {} : { distanceUnit: readUnit(flags.distanceUnit, 'length', '--distance-unit') }),
     },
     json: flags.json === true,
     spec: flags.spec ?? null,
@@ -132,6 +133,12 @@ function readPositionUncertainty(text: string): number {
   const value = parseQuantity(text, 'length', '--position-uncertainty').value;
   if (!(value >= 0)) throw optionValue('--position-uncertainty', text, 'a length of 0 or more, e.g. 0.5mm');
   return value;
+}
+
+/** A --field-unit or --distance-unit checked once here, so a bad one is not reported again for every file. */
+function readUnit(text: string, kind: 'field' | 'length', option: string): string {
+  if (lookupUnit(text)?.kind !== kind) throw optionValue(option, text, `a ${kind} unit: ${unitsOfKind(kind).join(', ')}`);
+  return text;
 }
 
 function readRobust(text: string | undefined): RobustLoss | null {
