@@ -103,13 +103,16 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
 
   it('batch prints the fleet summary on stdout (one entry per coil, then what needs attention first, the failed and degrading coil first) and progress only on stderr', () => {
     expect(text.status).toBe(1);
+    // the coils of TRUTH.json (QA-412 only in the fleet log)
     const coils = ['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9'];
     for (const coil of coils) expect(text.stdout).toMatch(new RegExp(`^${coil}: \\d+ surveys?, latest `, 'm'));
+    // TRUTH.json: QA-107's latest survey at 306 A and 45 mm (the estimate printing exactly 306 is a regression pin, not truth)
     expect(text.stdout).toMatch(/^ {4}ampere-turns 306 A \(\d+–\d+\) · radius 45\.\d mm/m);
     const attention = text.stdout.slice(text.stdout.indexOf('What needs attention first'));
     expect(attention).toMatch(/^ {2}1\. QA-107: failed its spec \(degraded[^)]*\); degrading -\d+ A\/yr/m);
     expect(attention.indexOf('QA-214')).toBeLessThan(attention.indexOf('no-field-unit.csv'));
     expect(text.stdout).not.toContain('ringfall batch:');
+    // TRUTH.json lists the 10 survey files of sample-data/ (flawed/ included); --workers 2
     expect(text.stderr).toMatch(/^ringfall batch: 10 survey files on 2 workers$/m);
     expect(text.stderr).toMatch(/^ringfall batch: 10 files in [\d.]+ s/m);
   });
@@ -187,6 +190,11 @@ describe('ringfall batch with broken files and hostile coil ids', () => {
     const html = ringfall('batch', 'sample-data', '--html', 'x.html');
     expect(html.status).toBe(2);
     expect(html.stderr).toContain('--out DIR');
+    // a unit option of the wrong kind is refused once, before any file is fitted (not as every file unreadable, exit 1)
+    const unit = ringfall('batch', 'sample-data', '--distance-unit', 'mT');
+    expect(unit.status).toBe(2);
+    expect(unit.stderr).toBe('ringfall: --distance-unit: "mT" is not usable. Give a length unit: m, cm, mm, um, in.\n');
+    expect(unit.stdout).toBe('');
     const missing = ringfall('batch', 'no-such-folder');
     expect(missing.status).toBe(2);
     expect(missing.stdout).toBe('');

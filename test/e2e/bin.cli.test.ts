@@ -28,6 +28,9 @@ describe('bin/ringfall.mjs', () => {
   it('finds files next to the sources from the bundle too (demo\'s sample data, the batch worker, Chart.js for --html)', () => {
     const demo = ringfall({}, 'demo', '--json');
     expect(demo.status).not.toBe(2);
+    // demo.ts: exit 0 when it ran (the fleet's failed checks are the demo's point)
+    expect(demo.status).toBe(0);
+    expect(demo.stderr).not.toContain('ringfall:');
     expect(JSON.parse(demo.stdout).surveys.length).toBeGreaterThan(5);
     const folder = mkdtempSync(join(tmpdir(), 'ringfall-bin-test-'));
     try {

@@ -25,6 +25,7 @@ describe('ringfall fit (CONTRACT.md)', () => {
     expect(report.surveys).toHaveLength(1);
     const survey = report.surveys[0];
     expect(survey).toMatchObject({ source: healthy, coil: 'QA-107', date: '2025-03-11', readingType: 'dc', best: 'loop', verdict: null, thresholds: [] });
+    // the sample file has 28 data rows after its 6 metadata lines and header, none of them flawed
     expect(survey.readings).toEqual({ total: 28, used: 28, rejected: [] });
     expect(Array.isArray(survey.warnings)).toBe(true);
     // CONTRACT.md default models, in that order
@@ -59,6 +60,7 @@ describe('ringfall fit (CONTRACT.md)', () => {
     const run = ringfall('fit', healthy, '--model', 'loop', '--fix', 'radius=45mm', '--json');
     expect(run.status).toBe(0);
     const loop = JSON.parse(run.stdout).surveys[0].fits[0];
+    // 45 mm as given on the command line, in m; k: the loop's 4 parameters (ampereTurns, radius, probeOffset, background) less the fixed one
     expect(loop.params.radius).toMatchObject({ value: 0.045, fixed: true, stderr: null, ci95: null });
     expect(loop.stats.k).toBe(3);
   });
@@ -93,6 +95,29 @@ describe('ringfall fit (CONTRACT.md)', () => {
     expect(run.stderr).toContain('"radii" is not a parameter of loop');
     expect(run.stderr).toContain('ampereTurns, radius, probeOffset, background');
   });
+
+  it('ringfall fit --field-unit furlong exits 2 with one line before reading any file, not one line per file', () => {
+    const run = ringfall('fit', healthy, 'sample-data/flawed/no-field-unit.csv', '--field-unit', 'furlong');
+    expect(run.status).toBe(2);
+    expect(run.stdout).toBe('');
+    expect(run.stderr).toBe('ringfall: --field-unit: "furlong" is not usable. Give a field unit: T, mT, uT, nT, kG, G, mG.\n');
+  });
+
+  const usage: [string, string[], string][] = [
+    ['an unknown option', ['fit', healthy, '--bogus'], `ringfall: unknown option '--bogus' (did you mean --robust?). See "ringfall fit --help" for the usage.\n`],
+    ['an option without its value', ['fit', healthy, '--seed'], `ringfall: option '--seed <n>' argument missing. See "ringfall fit --help" for the usage.\n`],
+    ['no file', ['fit'], `ringfall: missing required argument 'files'. See "ringfall fit --help" for the usage.\n`],
+    ['an unknown command', ['fitt', healthy], `ringfall: unknown command 'fitt' (did you mean fit?). See "ringfall --help" for the usage.\n`],
+  ];
+  for (const [what, args, line] of usage) {
+    it(`ringfall exits 2 with one line saying what was wrong and where to look for ${what} (commander's usage errors)`, () => {
+      // CONTRACT.md: exit status 2 for usage errors, one line on stderr that says what to do
+      const run = ringfall(...args);
+      expect(run.status).toBe(2);
+      expect(run.stdout).toBe('');
+      expect(run.stderr).toBe(line);
+    });
+  }
 
   it('ringfall fit with one good and one unreadable file reports the good one and exits 2 naming the other', () => {
     const run = ringfall('fit', healthy, 'sample-data/flawed/no-field-unit.csv', '--model', 'loop', '--json');

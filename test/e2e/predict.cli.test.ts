@@ -9,6 +9,7 @@ const ringfall = (...args: string[]) => {
   const result = spawnSync(process.execPath, [join(root, 'bin', 'ringfall.mjs'), ...args], { cwd: root, encoding: 'utf8' });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 };
+// μ0, CODATA 2018 recommended value (the one physics/vacuum-permeability.ts uses)
 const mu0 = 1.25663706212e-6;
 
 describe('ringfall predict (CLI)', () => {

@@ -39,6 +39,7 @@ describe('createBatchProgress()', () => {
     progress.update(6); // within 100 ms of the last redraw: skipped
     clock = 1000;
     progress.finish(7, true);
+    // the short figures leave room for the widest bar, 40 characters; 2 of 10 files fill a fifth of it, 8
     expect(out.writes[1]).toBe(`\r[${'█'.repeat(8)}${'░'.repeat(32)}] 2/10 files · … files/s · …\x1b[K`);
     // the bar takes what the 80 columns leave after the 39-character figures, the brackets and one spare column: 38, half of them filled
     expect(out.writes[2]).toBe(`\r[${'█'.repeat(19)}${'░'.repeat(19)}] 5/10 files · 10.0 files/s · 0.5 s left\x1b[K`);
