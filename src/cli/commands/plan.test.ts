@@ -56,4 +56,14 @@ describe('ringfall plan', () => {
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mT')).stderr).toContain('length');
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--reach', '5mm-200mm')).stderr).toContain('5mm..200mm');
   });
+
+  it('ringfall plan exits 2 for a parameter given twice, by --set twice or by --set and --fix, rather than keep the last silently', async () => {
+    const twice = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--set', 'radius=50mm');
+    expect(twice.code).toBe(2);
+    expect(twice.stderr).toBe('ringfall: --set: radius is given twice (--set and --fix together count). Give each parameter once.\n');
+    const both = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--fix', 'radius=50mm');
+    expect(both.code).toBe(2);
+    expect(both.stderr).toContain('--fix: radius is given twice');
+    expect(both.stdout).toBe('');
+  });
 });

@@ -65,6 +65,9 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
   for (const [list, option] of [[flags.set, '--set'], [flags.fix, '--fix']] as const) {
     for (const text of list) {
       const { index, name, value } = parseParameterAssignment(model, text, option);
+      if (given.has(name)) {
+        throw new RingfallError('OPTION_TWICE', `${option}: ${name} is given twice (--set and --fix together count). Give each parameter once.`, { value: text, where: option });
+      }
       values[index] = value;
       given.add(name);
       if (option === '--fix') fixed.add(name);
