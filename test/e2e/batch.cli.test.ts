@@ -195,6 +195,13 @@ describe('ringfall batch with broken files and hostile coil ids', () => {
     expect(unit.status).toBe(2);
     expect(unit.stderr).toBe('ringfall: --distance-unit: "mT" is not usable. Give a length unit: m, cm, mm, um, in.\n');
     expect(unit.stdout).toBe('');
+    // an --out that is a file is refused before any file is fitted (no progress line), not after the whole run
+    const file = join(temporaryFolder(), 'taken');
+    writeFileSync(file, '');
+    const out = ringfall('batch', 'sample-data', '--out', file);
+    expect(out.status).toBe(2);
+    expect(out.stderr).toBe(`ringfall: --out: cannot write "${file}" (EEXIST). Choose a folder you can write to.\n`);
+    expect(out.stdout).toBe('');
     const missing = ringfall('batch', 'no-such-folder');
     expect(missing.status).toBe(2);
     expect(missing.stdout).toBe('');

@@ -1,4 +1,4 @@
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { accessSync, constants, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { RingfallError } from '../../core/errors';
 import type { Report } from '../../core/report/report';
@@ -31,11 +31,7 @@ export function writeHtmlReports(folder: string, report: Report, coverage: Batch
     }
     written.push(path);
   };
-  try {
-    mkdirSync(folder, { recursive: true });
-  } catch (cause) {
-    throw unwritable(folder, cause);
-  }
+  prepareOutFolder(folder);
   write('index.html', renderFleetIndexPage(report, names, coverage));
   rows.forEach((row, i) => {
     const surveys = row.coil === null ? [row.latest] : report.surveys.filter((survey) => survey.coil === row.coil);
@@ -45,6 +41,20 @@ export function writeHtmlReports(folder: string, report: Report, coverage: Batch
     write(names[i]!, renderReportDocument({ surveys, fleet }, { chartLibrary, title, subtitle }));
   });
   return written;
+}
+
+/**
+ * Make the `--out` folder (and its parents) and check it can be written: `batch` calls
+ * this before fitting, so a bad folder is refused at once rather than after the whole run.
+ * @throws RingfallError `OUTPUT_UNWRITABLE`
+ */
+export function prepareOutFolder(folder: string): void {
+  try {
+    mkdirSync(folder, { recursive: true });
+    accessSync(folder, constants.W_OK);
+  } catch (cause) {
+    throw unwritable(folder, cause);
+  }
 }
 
 /**

@@ -7,7 +7,7 @@ import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
-import { writeHtmlReports } from '../batch/write-html-reports';
+import { prepareOutFolder, writeHtmlReports } from '../batch/write-html-reports';
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
 import { checksStatus } from '../checks-status';
 import { findSurveyFiles } from '../find-survey-files';
@@ -46,6 +46,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
       const files = findSurveyFiles(paths);
+      if (flags.out !== undefined) prepareOutFolder(flags.out);
       const result = await runBatch(files, settings, { workers, progress: process.stderr });
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
       if (flags.json === true) {
