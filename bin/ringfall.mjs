@@ -78,8 +78,9 @@ async function loadMain() {
   if (process.env.RINGFALL_LOADER !== 'tsx') {
     try {
       return await import(pathToFileURL(await cachedBundle()).href);
-    } catch {
-      // fall through to tsx
+    } catch (error) {
+      // fall through to tsx (~0.5 s slower per start); --debug says why
+      if (process.argv.includes('--debug')) process.stderr.write(`ringfall: not using the cached CLI bundle (${error?.message ?? error}); loading through tsx\n`);
     }
   }
   const { register } = await import('tsx/esm/api');
