@@ -3,9 +3,10 @@
  * generated 30-reading survey files (bench/make-fleet.ts: 2,000 coils × 5 quarterly
  * surveys), the 5 default models per survey, text summary to a pipe. Target: under 10 s
  * wall on this 2-core machine. Prints wall and CPU seconds of the child process, the
- * fixed cost (the same command on one file: Node, tsx, worker start-up) and, to show
- * what dominates, a single-thread breakdown on 200 of the files: read + import, and
- * fitSurvey per model with the default multi-start and with the data-driven start only.
+ * fixed cost (the same command on one file: Node, the cached CLI bundle, bundling the
+ * worker, worker start-up) and, to show what dominates, a single-thread breakdown on 200
+ * of the files: read + import, and fitSurvey per model with the default multi-start and
+ * with the data-driven start only.
  * CPU seconds are less sensitive than wall time to other work on a shared machine; the
  * load average is printed. Exits 1 when the target is missed.
  *
