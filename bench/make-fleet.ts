@@ -78,11 +78,14 @@ function quarterDate(s: number): string {
 
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const [folder, files = '10000', readings = '30'] = process.argv.slice(2);
-  if (folder === undefined) {
-    process.stderr.write('usage: tsx bench/make-fleet.ts DIR [FILES] [READINGS]\n');
+  const count = Number(files);
+  const perFile = Number(readings);
+  if (folder === undefined || !Number.isInteger(count) || count < 1 || !Number.isInteger(perFile) || perFile < 2) {
+    const wrong = folder === undefined ? 'no DIR given' : `FILES "${files}" and READINGS "${readings}" must be whole numbers, at least 1 and 2`;
+    process.stderr.write(`make-fleet: ${wrong}. Usage: npx tsx bench/make-fleet.ts DIR [FILES] [READINGS]\n`);
     process.exitCode = 2;
   } else {
-    const written = makeFleet(folder, { files: Number(files), readings: Number(readings) });
+    const written = makeFleet(folder, { files: count, readings: perFile });
     process.stdout.write(`wrote ${written.length} survey files to ${folder}\n`);
   }
 }
