@@ -30,6 +30,11 @@ describe('readFitFlags(flags)', () => {
     expect(parse('--model', 'loop, dipole', '--model', 'loop,solenoid').fit.models).toEqual(['loop', 'dipole', 'solenoid']);
   });
 
+  it('readFitFlags() refuses a --model with no id in it rather than fitting the defaults silently (OPTION_VALUE)', () => {
+    expect(() => parse('--model', ' , ')).toThrow(/--model: " , " is not usable\. Give model ids, e\.g\. loop,dipole, or leave --model out/);
+    expect(() => parse('--model', '')).toThrow(expect.objectContaining({ code: 'OPTION_VALUE', where: '--model' }));
+  });
+
   it('readFitFlags() reads --fix NAME=QTY into SI in the unit kind of the parameter (mm, G, A)', () => {
     const fixed = parse('--model', 'loop', '--fix', 'radius=45mm', '--fix', 'background=0.2 G', '--fix', 'ampereTurns=360A').fit.fixed!;
     // 1 G = 1e-4 T exactly (DOMAIN.md §6)

@@ -74,12 +74,13 @@ export function addFitOptions(command: Command): Command {
  *   model has, naming the valid ones); `PARAMETER_SYNTAX`, `PARAMETER_VALUE` and the
  *   `QUANTITY_*` codes for a bad --fix; `OPTION_TWICE` (a parameter fixed twice);
  *   `TOLERANCE_SYNTAX` (--uncertainty); `OPTION_VALUE` (--position-uncertainty < 0,
- *   --field-unit or --distance-unit not a unit of that kind, --robust or --seed not
- *   understood); `THRESHOLD_LEVEL` and `THRESHOLD_FREQUENCY` (--threshold, parseThresholdLevel).
+ *   --model with no id, --field-unit or --distance-unit not a unit of that kind,
+ *   --robust or --seed not understood); `THRESHOLD_LEVEL` and `THRESHOLD_FREQUENCY` (--threshold, parseThresholdLevel).
  * @example readFitFlags({ fix: ['radius=45mm'], uncertainty: '1.5%+2uT' }).fit.fixed // { radius: 0.045 }
  */
 export function readFitFlags(flags: FitFlags): FitCommandOptions {
   const ids = [...new Set((flags.model ?? []).flatMap((list) => list.split(',')).map((id) => id.trim()).filter((id) => id !== ''))];
+  if (flags.model !== undefined && ids.length === 0) throw optionValue('--model', flags.model.join(' '), `model ids, e.g. loop,dipole, or leave --model out for the default ${defaultModels.join(',')}`);
   const models = ids.length === 0 ? defaultModels.map((id) => getModel(id)) : ids.map((id) => getModel(id, '--model'));
   const fixed = readFixed(flags.fix ?? [], models);
   const fit: FitSurveyOptions & { models: readonly ModelId[] } = {
