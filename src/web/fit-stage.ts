@@ -23,7 +23,7 @@ export function parameterUnit(name: string, models: readonly ModelId[] = modelId
  * with their cautions.
  * @throws RingfallError from fitSurvey for settings this survey cannot be fitted with
  */
-export function fitStage(survey: Survey, parsed: ParsedSettings, fileNotes: readonly string[] = []): SurveyReport {
+export function fitStage(survey: Survey, parsed: ParsedSettings): SurveyReport {
   return analyseSurvey(survey, {
     fit: {
       models: parsed.models,
@@ -33,12 +33,12 @@ export function fitStage(survey: Survey, parsed: ParsedSettings, fileNotes: read
     },
     specs: parsed.specs,
     thresholds: parsed.thresholds,
-  }, fileNotes);
+  });
 }
 
 /** The report of a survey that was not fitted, saying why. */
-export function unfittedReport(survey: Survey, reason: string, fileNotes: readonly string[] = []): SurveyReport {
-  return unfittedSurveyReport(survey, reason, fileNotes);
+export function unfittedReport(survey: Survey, reason: string): SurveyReport {
+  return unfittedSurveyReport(survey, reason);
 }
 
 /** The fleet section for several surveys (coil histories, trends, flags). */

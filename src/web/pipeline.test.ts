@@ -23,7 +23,7 @@ describe('runPipeline()', () => {
       fit: { models: plain.models, fixed: {}, instrumentUncertainty: { relative: 0.015, absolute: 2e-6 } },
       specs: parseSpecs(spec, 'the spec'),
       thresholds: [parseThresholdLevel('implant-static')],
-    }, imported.detection.notes);
+    });
     expect(outcome.settingErrors).toEqual([]);
     expect(outcome.report.surveys[0]).toEqual(reference);
   });

@@ -57,14 +57,14 @@ export const rowsListed = 500;
 export function runPipeline(files: readonly PipelineFile[], settings: FitSettings, progress: (p: PipelineProgress) => void = () => {}): PipelineOutcome {
   const { parsed, errors } = parseFitSettings(settings, (name) => parameterUnit(name, settings.models));
   const outcomes: FileOutcome[] = [];
-  const surveys: { survey: Survey; notes: readonly string[]; skipped: string | null }[] = [];
+  const surveys: { survey: Survey; skipped: string | null }[] = [];
   files.forEach((file, index) => {
     progress({ stage: 'import', done: index, total: files.length, label: `reading ${file.name}` });
     const options = { source: file.name, ...(file.mapping ? { mapping: file.mapping } : {}) };
     try {
       const result = importSurveys(file.text, options);
-      for (const survey of result.surveys) surveys.push({ survey, notes: result.detection.notes, skipped: null });
-      for (const group of result.skipped) surveys.push({ survey: group.survey, notes: result.detection.notes, skipped: group.reason });
+      for (const survey of result.surveys) surveys.push({ survey, skipped: null });
+      for (const group of result.skipped) surveys.push({ survey: group.survey, skipped: group.reason });
       outcomes.push({ ...rowsOf(result), id: file.id, name: file.name, error: null, detection: result.detection, counts: result.counts });
     } catch (error) {
       if (!isRingfallError(error)) throw error;
@@ -79,19 +79,19 @@ export function runPipeline(files: readonly PipelineFile[], settings: FitSetting
   });
   const reports: SurveyReport[] = [];
   if (errors.length === 0) {
-    surveys.forEach(({ survey, notes, skipped }, index) => {
+    surveys.forEach(({ survey, skipped }, index) => {
       progress({ stage: 'fit', done: index, total: surveys.length, label: `fitting ${survey.coil ?? survey.source}` });
       if (skipped !== null) {
-        reports.push(unfittedReport(survey, skipped, notes));
+        reports.push(unfittedReport(survey, skipped));
         return;
       }
       try {
-        reports.push(fitStage(survey, parsed, notes));
+        reports.push(fitStage(survey, parsed));
       } catch (error) {
         if (!isRingfallError(error)) throw error;
         // a setting this survey cannot be fitted with (e.g. a position uncertainty and no reading uncertainty)
         if (!errors.some((e) => e.message === error.message)) errors.push({ field: settingFieldOf(error.code), message: error.message });
-        reports.push(unfittedReport(survey, error.message, notes));
+        reports.push(unfittedReport(survey, error.message));
       }
     });
   }

@@ -30,7 +30,7 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   const reports: SurveyReport[] = [];
   for (const survey of imported.surveys) {
     try {
-      const report = analyseSurvey(survey, settings, imported.detection.notes);
+      const report = analyseSurvey(survey, settings);
       reports.push(settings.keepPoints ? report : { ...report, fits: report.fits.map((fit) => ({ ...fit, points: [] })) });
     } catch (error) {
       if (!isRingfallError(error)) throw error;

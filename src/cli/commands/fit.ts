@@ -92,9 +92,9 @@ function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnaly
     throw new RingfallError('INPUT_UNREADABLE', `Cannot read "${path}": ${(cause as Error).message}. Check the path and its permissions.`, { value: path, cause });
   }
   const imported = importSurveys(text, { source: path, ...options.import });
-  const notes = imported.detection.notes;
-  const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings, notes));
-  for (const skipped of imported.skipped) reports.push(unfittedSurveyReport(skipped.survey, skipped.reason, notes));
+  // each survey's notes already hold the file's (units read, columns ignored, …)
+  const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings));
+  for (const skipped of imported.skipped) reports.push(unfittedSurveyReport(skipped.survey, skipped.reason));
   const unassigned = imported.unassigned.map((row) => `Line ${row.line} belongs to no survey and was not used: ${row.reason}`);
   if (unassigned.length > 0 && reports[0] !== undefined) {
     reports[0] = { ...reports[0], warnings: [...unassigned, ...reports[0].warnings] };

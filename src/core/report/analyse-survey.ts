@@ -27,10 +27,9 @@ export interface SurveyAnalysisSettings {
  * held when the readings cannot determine it), find the threshold distances with their
  * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport.
  *
- * @param importNotes the importer's file-level notes (units read, columns ignored, …)
  * @throws RingfallError from fitSurvey for settings this survey cannot be fitted with
  */
-export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings, importNotes: readonly string[] = []): SurveyReport {
+export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings): SurveyReport {
   const spec = selectSpec(settings.specs, survey.coil);
   const models = spec && !settings.fit.models.includes(spec.model) ? [...settings.fit.models, spec.model] : settings.fit.models;
   const options: FitSurveyOptions & { models: readonly ModelId[] } = { ...settings.fit, models };
@@ -50,11 +49,11 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings, 
     verdict: spec ? verifySpec(spec, fits, survey.readingType, refit) : null,
     thresholds,
     cautions: thresholds.length > 0 ? thresholdCautions : [],
-    notes: [...importNotes, ...fitSurveyNotes(survey, options)],
+    notes: fitSurveyNotes(survey, options),
   });
 }
 
 /** The report of a survey that could not be fitted, saying why (nothing is dropped silently). */
-export function unfittedSurveyReport(survey: Survey, reason: string, importNotes: readonly string[] = []): SurveyReport {
-  return buildSurveyReport(survey, [], { warnings: [`Not fitted: ${reason}`], notes: importNotes });
+export function unfittedSurveyReport(survey: Survey, reason: string): SurveyReport {
+  return buildSurveyReport(survey, [], { warnings: [`Not fitted: ${reason}`] });
 }
