@@ -31,6 +31,22 @@ describe('buildSurveyReport(survey, fits, extras)', () => {
     expect(report).toMatchObject({ fits: [], best: null, comparison: [], warnings: ['Not fitted: 2 usable readings'] });
   });
 
+  it('buildSurveyReport() says too few readings, not "did not converge", when no model can be ranked by AICc', () => {
+    // AICc = AIC + 2k(k+1)/(n − k − 1) needs n ≥ k + 2 (Burnham & Anderson 2002, §2.4): 4 readings, 3-parameter models
+    const small = simulatedSurvey({
+      model: 'loop', params: { ampereTurns: 400, radius: 0.05, probeOffset: 0.003, background: 2e-5 },
+      distances: evenlySpaced(0.01, 0.04, 4), noise: { relative: 0.01, absolute: 5e-7 }, seed: 32,
+    });
+    const report = buildSurveyReport(small, fitSurvey(small, { models: ['inverse-square', 'dipole'] }));
+    expect(report.fits.every((fit) => fit.converged)).toBe(true);
+    expect(report.best).toBeNull();
+    expect(report.warnings.join(' ')).toContain('Too few readings to rank the models: 4 readings, and AICc needs at least 5');
+    expect(report.warnings.join(' ')).not.toContain('No model converged');
+    const text = renderTextReport({ surveys: [report] });
+    expect(text).toContain('No model can be ranked (too few readings)');
+    expect(text).not.toContain('did not converge');
+  });
+
   it('buildSurveyReport() warns when no model converged', () => {
     const survey = loopSurvey();
     const report = buildSurveyReport(survey, fitSurvey(survey, { models: ['loop'], signal: { aborted: true } }));

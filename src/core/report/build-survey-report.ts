@@ -30,7 +30,17 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
   const compared = fits.length === 0 ? { fits: [], best: null, comparison: [] } : compareModels(fits);
   const warnings = [...(extras.warnings ?? [])];
   if (fits.length > 0 && compared.best === null) {
-    warnings.push('No model converged: the values shown are the best the searches found; check the readings and units, or fix parameters the label states.');
+    const converged = fits.filter((fit) => fit.converged);
+    if (converged.length === 0) {
+      warnings.push('No model converged: the values shown are the best the searches found; check the readings and units, or fix parameters the label states.');
+    } else {
+      // AICc needs n ≥ k + 2 (Burnham & Anderson 2002, §2.4): with fewer readings no model can be ranked
+      const k = Math.min(...converged.map((fit) => fit.stats.k));
+      warnings.push(
+        `Too few readings to rank the models: ${survey.readings.length} reading${survey.readings.length === 1 ? '' : 's'}, and AICc needs at least ` +
+          `${k + 2} for the smallest model fitted (${k} free parameters). Add readings, or fix parameters the label states (--fix), before trusting any of these curves.`,
+      );
+    }
   }
   return {
     source: survey.source,

@@ -46,7 +46,7 @@ function renderSurvey(survey: SurveyReport): string {
     }
     lines.push('');
   } else {
-    lines.push('No model converged; see the warnings below.', '');
+    lines.push(survey.fits.some((fit) => fit.converged) ? 'No model can be ranked (too few readings); see the warnings below.' : 'No model converged; see the warnings below.', '');
   }
 
   if (survey.fits.length > 0) {
@@ -123,7 +123,7 @@ function comparisonTable(fits: readonly FitResult[], best: string | null): strin
     String(fit.stats.k),
     formatQuantity(fit.stats.rmse, 'field', { significant: 3 }),
     fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3),
-    fit.converged && Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'did not converge',
+    !fit.converged ? 'did not converge' : Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'too few readings',
     formatWeight(fit.stats.akaikeWeight),
   ]);
   return table(['model', 'k', 'RMS residual', 'red. χ²', 'ΔAICc', 'weight'], rows);

@@ -37,7 +37,7 @@ export function renderSurveySection(survey: SurveyReport, lookup: ModelLookup, i
 </header>
 ${survey.notes.length > 0 ? html`<ul class="rf-import-notes">${survey.notes.map((n) => html`<li>${n}</li>`)}</ul>` : ''}
 ${survey.verdict ? verdictSection(survey.verdict) : ''}
-${best ? parameterBlock(best, lookup, 'The coil as fitted') : html`<p class="rf-empty">No model converged; the warnings below say why.</p>`}
+${best ? parameterBlock(best, lookup, 'The coil as fitted') : html`<p class="rf-empty">${survey.fits.some((fit) => fit.converged) ? 'No model can be ranked (too few readings); the warnings below say why.' : 'No model converged; the warnings below say why.'}</p>`}
 ${falloff ? chartFigure(`${id}-falloff`, 'Falloff: field against distance', falloff) : html`<p class="rf-empty">No falloff chart: no reading at a positive distance with a positive field.</p>`}
 ${residuals ? chartFigure(`${id}-residuals`, 'Residuals: what each model leaves over', residuals) : ''}
 ${'svg' in map
@@ -73,7 +73,7 @@ function comparisonBlock(survey: SurveyReport, lookup: ModelLookup): SafeHtml | 
   return html`<section class="rf-block rf-comparison"><h3>Models side by side</h3>
 <p class="rf-sub">Same readings for every model. ΔAICc is the difference from the lowest AICc (small-sample Akaike criterion); the Akaike weight is each model's share of the evidence among these models.</p>
 <table class="rf-table"><thead><tr><th scope="col">model</th><th scope="col">free parameters</th><th scope="col">RMS residual</th><th scope="col">reduced χ²</th><th scope="col">ΔAICc</th><th scope="col">Akaike weight</th></tr></thead>
-<tbody>${ranked.map((fit) => html`<tr class="${fit.model === survey.best ? 'rf-best' : ''}"><th scope="row">${fit.model}${fit.model === survey.best ? ' (best)' : ''}</th><td class="rf-num">${fit.stats.k}</td><td class="rf-num">${formatQuantity(fit.stats.rmse, 'field', { significant: 3 })}</td><td class="rf-num">${fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3)}</td><td class="rf-num">${fit.converged && Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : `did not converge: ${fit.stopReason}`}</td><td class="rf-num">${fit.stats.akaikeWeight === null ? '—' : formatNumber(fit.stats.akaikeWeight, 3)}</td></tr>`)}</tbody></table>
+<tbody>${ranked.map((fit) => html`<tr class="${fit.model === survey.best ? 'rf-best' : ''}"><th scope="row">${fit.model}${fit.model === survey.best ? ' (best)' : ''}</th><td class="rf-num">${fit.stats.k}</td><td class="rf-num">${formatQuantity(fit.stats.rmse, 'field', { significant: 3 })}</td><td class="rf-num">${fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3)}</td><td class="rf-num">${!fit.converged ? `did not converge: ${fit.stopReason}` : Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'too few readings'}</td><td class="rf-num">${fit.stats.akaikeWeight === null ? '—' : formatNumber(fit.stats.akaikeWeight, 3)}</td></tr>`)}</tbody></table>
 ${survey.comparison.map((sentence) => html`<p>${sentence}</p>`)}
 ${ranked.filter((fit) => fit.model !== survey.best).length > 0
     ? html`<details class="rf-other-fits"><summary>Parameters of the other models</summary>${ranked.filter((fit) => fit.model !== survey.best).map((fit) => parameterBlock(fit, lookup, 'Model'))}</details>`
