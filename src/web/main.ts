@@ -19,6 +19,8 @@ import './styles.css';
 
 interface PageFile extends FileEntry {
   readonly mapping: readonly ColumnMapping[] | null;
+  /** Set when the browser could not read the file: it stays listed with the reason, never fitted. */
+  readonly unreadable?: boolean;
 }
 
 let files: PageFile[] = [];
@@ -56,8 +58,18 @@ replaceChildren(app,
 
 async function addFiles(list: readonly File[]): Promise<void> {
   performance.mark('ringfall:files');
-  const read = await Promise.all(list.map(async (file) => ({ name: file.name, text: await file.text() })));
-  files = [...files, ...read.map((f) => ({ id: `f${nextId++}`, name: f.name, text: f.text, outcome: null, mapping: null }))];
+  // one file the browser cannot read (moved, a folder, no permission) must not hide the others or vanish itself
+  const read = await Promise.allSettled(list.map((file) => file.text()));
+  files = [...files, ...list.map((file, i): PageFile => {
+    const id = `f${nextId++}`;
+    const result = read[i]!;
+    if (result.status === 'fulfilled') return { id, name: file.name, text: result.value, outcome: null, mapping: null };
+    const message = `The browser could not read this file (${String(result.reason)}). Check that it is a file, not a folder, and that it can be opened, then choose it again.`;
+    return {
+      id, name: file.name, text: '', mapping: null, unreadable: true,
+      outcome: { id, name: file.name, error: { code: 'FILE_UNREADABLE', message }, detection: null, counts: null, surveys: [], skipped: [], rowsNotUsed: [], rowsNotUsedTotal: 0 },
+    };
+  })];
   refit();
 }
 
@@ -91,7 +103,7 @@ function refit(): void {
     report.showMessage('Fix the settings marked on the left to fit again.', 'failed');
     return;
   }
-  const request = files.map((f) => ({ id: f.id, name: f.name, text: f.text, ...(f.mapping ? { mapping: f.mapping } : {}) }));
+  const request = files.filter((f) => !f.unreadable).map((f) => ({ id: f.id, name: f.name, text: f.text, ...(f.mapping ? { mapping: f.mapping } : {}) }));
   // User Timing marks, for profiling in the browser's performance panel and the benchmark
   performance.mark('ringfall:run');
   worker.run(request, settings, report.showProgress).then(({ outcome, elapsedMs }) => {

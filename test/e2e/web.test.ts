@@ -143,6 +143,24 @@ describe('web page', () => {
     await expect(card.locator('summary').innerText()).resolves.toContain('(columns set by hand)');
   });
 
+  it('lists a file the browser cannot read, with the reason, and fits the others', async () => {
+    await removeAllFiles();
+    const good = scratchFile('good-loop.csv', loopSurveyText('GOOD-2'));
+    await upload([good]);
+    // a dropped file whose read fails, as when it was moved or deleted after being chosen
+    await page.evaluate(() => {
+      const gone = new File(['x'], 'moved-away.csv');
+      Object.defineProperty(gone, 'text', { value: () => Promise.reject(new DOMException('the file changed on disk', 'NotReadableError')) });
+      const drop = new Event('drop', { cancelable: true });
+      Object.defineProperty(drop, 'dataTransfer', { value: { files: [gone] } });
+      document.dispatchEvent(drop);
+    });
+    const item = page.locator('#file-list li', { hasText: 'moved-away.csv' });
+    await expect(item.locator('.file-message').innerText()).resolves.toMatch(/FILE_UNREADABLE.*could not read this file.*NotReadableError.*choose it again/s);
+    await expect(page.locator('.rf-survey h2').first().innerText()).resolves.toContain('GOOD-2');
+    await removeAllFiles();
+  });
+
   it('shows a coil id of markup as text and runs none of it', async () => {
     await removeAllFiles();
     await upload([scratchFile('attack.csv', loopSurveyText(attack))]);
