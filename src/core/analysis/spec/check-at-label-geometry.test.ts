@@ -71,6 +71,10 @@ describe('checkAtLabelGeometry() through verifySpec()', () => {
     const verdict = verifySpec(label(1500, 0.02), fits, 'dc', refit);
     const check = verdict.checks.find((c) => c.what === atLabelGeometry)!;
     expect(check.status).toBe('pass');
+    // the undetermined check no longer suggests fixing the label's values: that was just done
+    const undetermined = verdict.checks.find((c) => c.what === 'ampereTurns')!;
+    expect(undetermined.toDecide).not.toContain('--fix');
+    expect(undetermined.toDecide).toContain('at the label\'s geometry is the one that decides');
     // truth of the generated survey: 1500 A
     expect(check.measured.ci95![0]).toBeLessThan(1500);
     expect(check.measured.ci95![1]).toBeGreaterThan(1500);

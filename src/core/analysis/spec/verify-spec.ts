@@ -45,7 +45,15 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
   const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
   const atLabel = refit ? checkAtLabelGeometry(spec, fitted, outcomes, relation, refit) : null;
-  if (atLabel && 'check' in atLabel) outcomes.push(atLabel);
+  if (atLabel && 'check' in atLabel) {
+    // the undetermined ampere-turns check no longer needs to suggest holding the label's values: that check was just made
+    const index = outcomes.findIndex((o) => o.blocked === 'undetermined' && o.role === 'amplitude');
+    const undetermined = outcomes[index];
+    if (undetermined) {
+      outcomes[index] = { ...undetermined, check: { ...undetermined.check, toDecide: 'Add readings where the curve changes shape — closer than about the coil\'s size — so the geometry is fitted rather than taken from the label; until then the check of ampere-turns at the label\'s geometry is the one that decides.' } };
+    }
+    outcomes.push(atLabel);
+  }
   if (outcomes.some((o) => o.blocked === 'undetermined')) {
     const dipoleFit = convergedFit(fits, 'dipole');
     const moment = checkMoment(fitted, spec.params, relation, dipoleFit && dipoleFit !== fit ? fittedModel(dipoleFit, getModel('dipole')) : null);
