@@ -126,4 +126,14 @@ describe('ringfall fit (CONTRACT.md)', () => {
     expect(run.stderr).toContain('--field-unit');
     expect(JSON.parse(run.stdout).surveys.map((s: { source: string }) => s.source)).toEqual([healthy]);
   });
+
+  it('ringfall fit --html/--csv into a folder that does not exist stops before fitting, exit 2, naming the folder', () => {
+    // CONTRACT.md: exit 2 for a usage or input error, one line saying what to do
+    for (const option of ['--html', '--csv']) {
+      const run = ringfall('fit', healthy, option, 'no-such-folder-here/out.file');
+      expect(run.status).toBe(2);
+      expect(run.stdout).toBe('');
+      expect(run.stderr).toMatch(new RegExp(`^ringfall: ${option}: the folder ".*no-such-folder-here" for "no-such-folder-here/out.file" does not exist\\. Create it first`));
+    }
+  });
 });

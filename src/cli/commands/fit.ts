@@ -1,4 +1,5 @@
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { Spec } from '../../core/analysis/spec/spec';
 import { isRingfallError, RingfallError } from '../../core/errors';
@@ -33,6 +34,8 @@ export function registerFit(program: Command, context: CommandContext): void {
       .argument('<files...>', 'survey CSV files, or folders to search for them'),
   ).action(async (files: string[], flags: FitFlags) => {
     const options = readFitFlags(flags);
+    // a side file's folder is checked before any fitting, so a typo costs nothing
+    for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
     const { reports, problems } = fitFiles(findSurveyFiles(files), options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${problem}\n`);
@@ -53,6 +56,19 @@ export function writeSideFiles(report: Report, options: Pick<FitCommandOptions, 
     writeOutput(options.html, '--html', renderReportDocument(report, { chartLibrary: chartLibrarySource(), title }));
   }
   if (options.csv !== null) writeOutput(options.csv, '--csv', reportCsv(report));
+}
+
+function checkOutputFolder(path: string, option: string): void {
+  const folder = dirname(resolve(path));
+  let isFolder = false;
+  try {
+    isFolder = statSync(folder).isDirectory();
+  } catch {
+    isFolder = false;
+  }
+  if (!isFolder) {
+    throw new RingfallError('OUTPUT_UNWRITABLE', `${option}: the folder "${folder}" for "${path}" does not exist. Create it first or choose another path.`, { value: path, where: option });
+  }
 }
 
 function writeOutput(path: string, option: string, text: string): void {
