@@ -8,6 +8,7 @@ import type { Detection, ImportOptions, MetadataLine } from './import-types';
 import { looksBinary } from './looks-binary';
 import { parseDate } from './parse-date';
 import { parseReadingType } from './parse-reading-type';
+import { shorten } from './read-number';
 import { readPreamble, type Preamble } from './read-preamble';
 
 /** Everything decided before the first data row. */
@@ -61,7 +62,8 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
   const parsedHeader = Papa.parse<string[]>(preamble.headerText, { delimiter, newline: preamble.newline }).data[0] ?? [];
   const headers = parsedHeader.map((h) => h.replace(/\r$/u, ''));
   const columns = detectColumns(headers, preamble.headerLine, options);
-  const meta: Record<string, string> = {};
+  // keys are the file's own words ("# constructor: …"): a null-prototype object holds them as plain data
+  const meta: Record<string, string> = Object.create(null) as Record<string, string>;
   for (const { key, value } of preamble.metadata) meta[key] = value;
   const detection: Detection = {
     delimiter,
@@ -90,7 +92,7 @@ function readDefaults(metadata: readonly MetadataLine[], source: string): FileLa
       if (date === null) {
         throw importError(
           'IMPORT_METADATA',
-          `Metadata date not read: "${value}" is not a date ringfall reads (${place(source, line)}). Write it as YYYY-MM-DD, e.g. 2026-03-14.`,
+          `Metadata date not read: "${shorten(value, 60)}" is not a date ringfall reads (${place(source, line)}). Write it as YYYY-MM-DD, e.g. 2026-03-14.`,
           place(source, line), value,
         );
       }
@@ -100,7 +102,7 @@ function readDefaults(metadata: readonly MetadataLine[], source: string): FileLa
       if (readingType === null) {
         throw importError(
           'IMPORT_METADATA',
-          `Metadata reading type not read: "${value}" is not dc, rms or peak (${place(source, line)}). Write "# reading: dc", "rms" or "peak".`,
+          `Metadata reading type not read: "${shorten(value, 60)}" is not dc, rms or peak (${place(source, line)}). Write "# reading: dc", "rms" or "peak".`,
           place(source, line), value,
         );
       }
