@@ -67,7 +67,7 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
   for (const { key, value } of preamble.metadata) meta[key] = value;
   const detection: Detection = {
     delimiter,
-    decimalComma: delimiter !== ',',
+    decimalComma: delimiter === ';',
     lineBreak: preamble.lineBreak,
     byteOrderMark,
     headerLine: preamble.headerLine,
@@ -77,7 +77,9 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
     fieldKind: columns.fieldKind,
     notes: columns.notes,
   };
-  return { preamble, delimiter, decimalComma: delimiter !== ',', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
+  // CONTRACT.md: a decimal comma only in semicolon files. In a tab file "1,700" could be
+  // 1.7 or 1700 (thousands separator); a guess would be silent, so such cells are refused.
+  return { preamble, delimiter, decimalComma: delimiter === ';', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
 }
 
 function readDefaults(metadata: readonly MetadataLine[], source: string): FileLayout['defaults'] {

@@ -54,7 +54,10 @@ export function explainNumberCell(cell: string, header: string, value: number): 
   if (/^(?:o\.?l\.?|ovl|over|overload|over ?range|ofl)$/iu.test(text)) {
     return { code: 'ROW_OVER_RANGE', reason: `column "${column}": "${shorten(text)}" is the meter's over-range display, not a reading. Re-measure this point on a higher range.` };
   }
-  const hint = /\d,\d/u.test(text) ? ' A decimal comma is read only in files delimited by semicolon or tab, and never together with a decimal point.' : '';
+  const hint = /\d,\d/u.test(text)
+    ? ' A comma in a number is read as a decimal comma only in files delimited by semicolons, and never together with a decimal point:' +
+      ' elsewhere "1,700" could mean 1.7 or 1700. Write a decimal point, or save the file delimited by semicolons.'
+    : '';
   return { code: 'ROW_NOT_A_NUMBER', reason: `column "${column}": "${shorten(text)}" is not a number.${hint} Correct the cell or delete the row.` };
 }
 
