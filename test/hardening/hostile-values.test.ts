@@ -8,7 +8,6 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { parseThresholdLevel } from '../../src/core/analysis/thresholds/threshold-level';
-import { RingfallError } from '../../src/core/errors';
 import { renderTextReport } from '../../src/core/report/render-text';
 import { summarizeSetAsideRows } from '../../src/core/report/set-aside-rows';
 import { toJsonReport } from '../../src/core/report/to-json-report';
@@ -18,17 +17,9 @@ import { fitFiles } from '../../src/cli/commands/fit';
 import { importSurveys } from '../../src/io';
 import { parseReadingType } from '../../src/io/import/parse-reading-type';
 import { parseSpecs } from '../../src/io/spec';
+import { thrownRingfallError } from '../support/thrown-ringfall-error';
 
-/** The RingfallError an action throws (the test fails if it throws anything else or nothing). */
-function failure(action: () => unknown): RingfallError {
-  try {
-    action();
-  } catch (error) {
-    expect(error).toBeInstanceOf(RingfallError);
-    return error as RingfallError;
-  }
-  throw new Error('expected a RingfallError');
-}
+const failure = thrownRingfallError;
 
 const prototypeNames = ['constructor', '__proto__', 'toString', 'hasOwnProperty', 'valueOf', '__defineGetter__'];
 const rows = 'distance (mm),B (mT)\n0,1.7\n10,1.2\n20,0.6\n30,0.3\n40,0.15\n';
