@@ -1,5 +1,5 @@
 /**
- * The property-based fuzz suite of issue #16 (fast-check), one property per class of
+ * The property-based fuzz suite (fast-check), one property per class of
  * hostile input: Object.prototype names, long inputs, control characters, decimal commas,
  * unit spellings, and malformed CSV through the library path `fit --json` uses (fitFiles →
  * importSurveys → analyseSurvey → toJsonReport). fuzz-runner.ts runs them in a child

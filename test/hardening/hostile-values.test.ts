@@ -1,5 +1,5 @@
 /**
- * Issue #16 items 1, 4, 7 and 8 with the inputs the issue reports: each case failed
+ * Hostile inputs found by fuzzing (prototype names, guesses, escapes, set-aside rows): each case failed
  * before the fix (an internal error, "function Object() { [native code] }" in a report,
  * a silent guess, a raw ESC or line break in a message, set-aside rows only in prose).
  */
@@ -26,7 +26,7 @@ const rows = 'distance (mm),B (mT)\n0,1.7\n10,1.2\n20,0.6\n30,0.3\n40,0.15\n';
 const folder = mkdtempSync(join(tmpdir(), 'ringfall-hostile-'));
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
-describe('Object.prototype names are unknown values, not table entries (issue #16 item 1)', () => {
+describe('Object.prototype names are unknown values, not table entries', () => {
   it('parseThresholdLevel() refuses "constructor", "__proto__" and friends with THRESHOLD_LEVEL listing the presets', () => {
     for (const name of prototypeNames) {
       const error = failure(() => parseThresholdLevel(name));
@@ -82,7 +82,7 @@ describe('Object.prototype names are unknown values, not table entries (issue #1
   });
 });
 
-describe('one line means one line (issue #16 item 7)', () => {
+describe('one line means one line', () => {
   it('printable() escapes C0, DEL, C1, line separators and bidi controls, and keeps backslashes and other text', () => {
     // ECMA-48 (ISO/IEC 6429): ESC = U+001B, CSI = U+009B; Unicode: U+2028 LINE SEPARATOR, U+202E RIGHT-TO-LEFT OVERRIDE
     expect(printable('a\r\nb\tc\u0000\u001b[31m\u007f\u009b\u2028\u202e C:\\data µT')).toBe('a\\r\\nb\\tc\\x00\\x1b[31m\\x7f\\x9b\\u2028\\u202e C:\\data µT');
@@ -116,7 +116,7 @@ describe('one line means one line (issue #16 item 7)', () => {
   });
 });
 
-describe('every set-aside row in one place (issue #16 item 8)', () => {
+describe('every set-aside row in one place', () => {
   it('fitFiles() lists rows outside any survey with file, line, code and reason, and the JSON report carries them as "rejected"', () => {
     const path = join(folder, 'set-aside.csv');
     writeFileSync(path, 'date,distance (mm),B (mT)\n2026-01-01,0,1.7\n2026-01-01,10,1.2\nbad,15,1\n#2026-01-01,17,0.9\nworse,18,0.8\n2026-01-01,20,0.6\n2026-01-01,30,0.3\n2026-01-01,"40,0.2\n');

@@ -1,7 +1,7 @@
 /**
  * Every parser that reads user text, called with inputs of 10⁵ characters shaped to make
  * a backtracking regular expression work quadratically (long runs of spaces, separators
- * or letters ending in a character that makes the match fail). Issue #16 measured 11 s
+ * or letters ending in a character that makes the match fail). A fuzz run measured 11 s
  * for a 30,000-character header cell and 26 s for a --fix with 100,000 spaces; linear
  * parsers finish each case in milliseconds. Run by long-input-runner.ts in a child
  * process under a watchdog (long-inputs.test.ts): a hang fails the test, naming the case.
@@ -20,7 +20,7 @@ import { parseReadingType } from '../../src/io/import/parse-reading-type';
 import { explainNumberCell, readNumber } from '../../src/io/import/read-number';
 import { parseSpecs } from '../../src/io/spec';
 
-/** Length of each long input (issue #16: "parsers called with 10⁵-character inputs must finish"). */
+/** Length of each long input. */
 export const longLength = 100_000;
 
 const spaces = ' '.repeat(longLength);

@@ -5,13 +5,13 @@ import { longInputCases } from './long-input-cases';
 
 const root = join(import.meta.dirname, '..', '..');
 /**
- * A hang watchdog, not a speed target (issue #16: "run them under a generous watchdog and
- * fail on hang"). Linear parsers run all cases in well under a second; the quadratic
+ * A hang watchdog, not a speed target (run under a generous watchdog that will
+ * fail on a hang). Linear parsers run all cases in well under a second; the quadratic
  * regular expressions they replace needed minutes for a single 10⁵-character case.
  */
 const watchdogMs = 90_000;
 
-describe('parsers of user text are linear (issue #16 item 2)', () => {
+describe('parsers of user text are linear', () => {
   it('every parser finishes on 10⁵-character inputs under a watchdog, with a RingfallError or a result, never a crash', () => {
     const run = spawnSync(process.execPath, ['--import', 'tsx', join('test', 'hardening', 'long-input-runner.ts')], {
       cwd: root, encoding: 'utf8', timeout: watchdogMs, killSignal: 'SIGKILL',

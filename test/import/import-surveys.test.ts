@@ -33,7 +33,7 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
   });
 
   it('importSurveys() detects tab and semicolon delimiters and reads a decimal comma only with a semicolon (CONTRACT.md)', () => {
-    // issue #16 item 4: in a tab file "1,700" uT beside 987 uT was read as 1.7 uT with no note
+    // in a tab file "1,700" uT beside 987 uT was read as 1.7 uT with no note
     const tab = importSurveys('z [mm]\tB [uT]\n0\t1,700\n1\t987\n2\t600\n3\t400\n', { source });
     expect(tab.detection).toMatchObject({ delimiter: '\t', decimalComma: false });
     expect(tab.surveys[0]?.readings.map((r) => r.line)).toEqual([3, 4, 5]);
