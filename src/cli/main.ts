@@ -1,5 +1,6 @@
 import { Command, CommanderError } from 'commander';
 import { isRingfallError } from '../core/errors';
+import { printable } from '../core/text/printable';
 import { registerPredict } from './commands/predict';
 import { registerFit } from './commands/fit';
 import { registerBatch } from './commands/batch';
@@ -13,6 +14,12 @@ import { exitCodeFor } from './exit-codes';
  */
 export async function main(argv: readonly string[]): Promise<number> {
   const debug = argv.includes('--debug');
+  if (argv.length <= 2) {
+    // a bare `ringfall` is a usage error: a short usage on stderr and exit 2, as git, cp and
+    // npm do (common practice); `ringfall --help` prints the whole help and exits 0
+    process.stderr.write(shortUsage);
+    return 2;
+  }
   // A reader that stops early (`ringfall … | head`) closes the pipe: nothing more to say,
   // so end quietly instead of printing a stack trace for EPIPE.
   process.stdout.on('error', (error: NodeJS.ErrnoException) => {
@@ -43,16 +50,21 @@ export async function main(argv: readonly string[]): Promise<number> {
       return error.exitCode === 0 ? 0 : 2;
     }
     if (isRingfallError(error)) {
-      process.stderr.write(`ringfall: ${error.message}\n`);
+      process.stderr.write(`ringfall: ${printable(error.message)}\n`);
       if (debug) process.stderr.write(`${error.stack ?? ''}\n`);
       return exitCodeFor(error);
     }
-    process.stderr.write(`ringfall: internal error: ${(error as Error)?.message ?? String(error)}\n`);
+    process.stderr.write(`ringfall: internal error: ${printable((error as Error)?.message ?? String(error))}\n`);
     if (debug) process.stderr.write(`${(error as Error)?.stack ?? ''}\n`);
     else process.stderr.write('Run again with --debug for details, and report it with the input file.\n');
     return 3;
   }
 }
+
+/** What a bare `ringfall` prints (stderr, exit 2). */
+export const shortUsage =
+  'Usage: ringfall <command> [options]   (commands: fit, predict, batch, plan, demo)\n' +
+  'Try "ringfall demo" for a sample report, or "ringfall --help" and "ringfall <command> --help" for the options.\n';
 
 /** What a command may do besides printing: raise the process exit status. */
 export interface CommandContext {
@@ -67,7 +79,10 @@ export interface CommandContext {
  *   // ringfall: missing required argument 'files'. See "ringfall fit --help" for the usage.\n
  */
 export function usageErrorLine(text: string, argv: readonly string[], commands: readonly string[]): string {
-  const what = text.trim().replace(/^error: /, '').replace(/\s*\n\s*\(Did you mean/, ' (did you mean').replace(/\s*\n\s*/g, ' ').replace(/\.$/, '');
+  // commander's lines joined by a split (linear: `\s*\n` backtracked over long runs of spaces
+  // in an argument), then the argument's own control characters shown escaped
+  const joined = text.trim().split('\n').map((line) => line.trim()).filter((line) => line !== '').join(' ');
+  const what = printable(joined.replace(/^error: /, '').replace(' (Did you mean', ' (did you mean').replace(/\.$/, ''), 300);
   const command = argv.slice(2).find((arg) => !arg.startsWith('-'));
   const help = command !== undefined && commands.includes(command) ? `ringfall ${command} --help` : 'ringfall --help';
   return `ringfall: ${what}. See "${help}" for the usage.\n`;

@@ -1,8 +1,12 @@
+import { printable } from './text/printable';
+
 /**
  * Project error: a problem the user can fix. Carries a stable `code`, the offending
  * value and where it was found, so callers (CLI, web page) can map it to an exit status
  * or show it next to the input. Message form: "what failed: what was found (where).
- * What to do."
+ * What to do." The message is one line: control characters that reach it from files and
+ * arguments (a header cell with a carriage return, an ESC sequence, JSON.parse's multi-line
+ * snippet) are shown escaped (printable), wherever the message is built.
  *
  * Programmer errors use TypeError / RangeError instead.
  */
@@ -17,7 +21,7 @@ export class RingfallError extends Error {
     message: string,
     details: { value?: unknown; where?: string | null; cause?: unknown } = {},
   ) {
-    super(message, details.cause === undefined ? undefined : { cause: details.cause });
+    super(printable(message), details.cause === undefined ? undefined : { cause: details.cause });
     this.code = code;
     this.value = details.value;
     this.where = details.where ?? null;

@@ -75,7 +75,7 @@ export function parseFitSettings(
     }
   };
   if (settings.models.length === 0) errors.push({ field: 'models', message: 'Models: none chosen. Tick at least one model to fit.' });
-  const fixed: Record<string, number> = {};
+  const fixed: Record<string, number> = Object.create(null) as Record<string, number>;
   settings.fixes.forEach((fix, i) => {
     const unit = unitOf(fix.name);
     if (unit === undefined) {

@@ -34,6 +34,10 @@ describe('importSurveys() file-level errors carry a stable code and say what to 
     ['a field column with no unit', 'distance (mm),B\n0,1\n', 'IMPORT_FIELD_UNIT_MISSING', '--field-unit mT'],
     ['a distance column with no unit', 'z,B (mT)\n0,1\n', 'IMPORT_DISTANCE_UNIT_MISSING', '--distance-unit mm'],
     ['an unknown unit', 'distance (mm),B (Oe)\n0,1\n', 'IMPORT_UNIT_UNKNOWN', '"Oe"'],
+    // "MT" is megatesla and "MG" megagauss in SI (SI Brochure 9th ed., Table 7: M = mega); never read as milli
+    ['an all-caps MT', 'distance (mm),B (MT)\n0,1\n', 'IMPORT_UNIT_AMBIGUOUS', 'write "mT" for millitesla'],
+    ['an all-caps MG', 'distance (mm),B (MG)\n0,1\n', 'IMPORT_UNIT_AMBIGUOUS', 'write "mG" for milligauss'],
+    ['a distance in Mm', 'distance (Mm),B (mT)\n0,1\n', 'IMPORT_UNIT_AMBIGUOUS', 'megametre'],
     ['a unit of the wrong kind', 'distance (mT),B (mT)\n0,1\n', 'IMPORT_UNIT_KIND', 'is a field unit but the column holds a length'],
     ['two distance columns', 'z (mm),distance (cm),B (mT)\n0,0,1\n', 'IMPORT_COLUMN_CONFLICT', '"z (mm)" (column 1) and "distance (cm)" (column 2)'],
     ['B and |B| together', 'z (mm),B (mT),|B| (mT)\n0,1,1\n', 'IMPORT_COLUMN_CONFLICT', 'More than one field column'],

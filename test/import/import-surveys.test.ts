@@ -32,11 +32,14 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
     expect(survey?.readings[0]?.line).toBe(7);
   });
 
-  it('importSurveys() detects tab and semicolon delimiters and reads a decimal comma with them', () => {
-    const tab = importSurveys('z [mm]\tB [mT]\n0\t1,5\n1\t1,25\n2\t1\n', { source });
-    expect(tab.detection).toMatchObject({ delimiter: '\t', decimalComma: true });
-    // "1,25" mT with a decimal comma = 1.25e-3 T (SI Brochure 9th ed.: 1 mT = 1e-3 T)
-    expect(tab.surveys[0]?.readings[1]?.field).toBe(0.00125);
+  it('importSurveys() detects tab and semicolon delimiters and reads a decimal comma only with a semicolon (CONTRACT.md)', () => {
+    // in a tab file "1,700" uT beside 987 uT was read as 1.7 uT with no note
+    const tab = importSurveys('z [mm]\tB [uT]\n0\t1,700\n1\t987\n2\t600\n3\t400\n', { source });
+    expect(tab.detection).toMatchObject({ delimiter: '\t', decimalComma: false });
+    expect(tab.surveys[0]?.readings.map((r) => r.line)).toEqual([3, 4, 5]);
+    expect(tab.surveys[0]?.rejected).toEqual([expect.objectContaining({ line: 2, column: 'B [uT]', value: '1,700', code: 'ROW_NOT_A_NUMBER' })]);
+    expect(tab.surveys[0]?.rejected[0]?.reason).toContain('only in files delimited by semicolons');
+    expect(tab.surveys[0]?.rejected[0]?.reason).toContain('could mean 1.7 or 1700');
     const semicolon = importSurveys('z [mm];B [mT]\n0;1,5\n1;1.25\n2;1\n', { source });
     expect(semicolon.detection.delimiter).toBe(';');
     expect(semicolon.surveys[0]?.readings.map((r) => r.field)).toEqual([0.0015, 0.00125, 0.001]);

@@ -6,6 +6,8 @@ import { isRingfallError, RingfallError } from '../../core/errors';
 import { analyseSurvey, unfittedSurveyReport, type SurveyAnalysisSettings } from '../../core/report/analyse-survey';
 import { renderTextReport } from '../../core/report/render-text';
 import type { Report, SurveyReport } from '../../core/report/report';
+import { summarizeSetAsideRows, type SetAsideRow } from '../../core/report/set-aside-rows';
+import { printable } from '../../core/text/printable';
 import { reportCsv } from '../../core/report/report-csv';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { importSurveys } from '../../io';
@@ -37,11 +39,11 @@ export function registerFit(program: Command, context: CommandContext): void {
     // a side file's folder is checked before any fitting, so a typo costs nothing
     for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
-    const { reports, problems } = fitFiles(findSurveyFiles(files), options, specs);
-    for (const problem of problems) process.stderr.write(`ringfall: ${problem}\n`);
+    const { reports, problems, rejected } = fitFiles(findSurveyFiles(files), options, specs);
+    for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;
-    const report: Report = { surveys: reports };
+    const report: Report = { surveys: reports, rejected };
     writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
     context.setExitCode(checksStatus(report));
@@ -81,26 +83,30 @@ function writeOutput(path: string, option: string, text: string): void {
 
 /**
  * Import and analyse every survey of the given files: one SurveyReport per survey (surveys
- * with too few readings get a report with no fits and a warning saying why; rows that
- * belong to no survey are named in the first report's warnings), and one message per file
- * that could not be read or imported.
+ * with too few readings get a report with no fits and a warning saying why), every row
+ * that belongs to no survey with its file (`rejected`, summed up one sentence per kind of
+ * problem in the file's first report's warnings), and one message per file that could not
+ * be read or imported.
  */
-export function fitFiles(paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = []): { reports: SurveyReport[]; problems: string[] } {
+export function fitFiles(
+  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = [],
+): { reports: SurveyReport[]; problems: string[]; rejected: SetAsideRow[] } {
   const settings: SurveyAnalysisSettings = { fit: options.fit, specs, thresholds: options.thresholds };
   const reports: SurveyReport[] = [];
   const problems: string[] = [];
+  const rejected: SetAsideRow[] = [];
   for (const path of paths) {
     try {
-      reports.push(...fitFile(path, options, settings));
+      reports.push(...fitFile(path, options, settings, rejected));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       problems.push(error.message);
     }
   }
-  return { reports, problems };
+  return { reports, problems, rejected };
 }
 
-function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings): SurveyReport[] {
+function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[]): SurveyReport[] {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
@@ -111,7 +117,8 @@ function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnaly
   // each survey's notes already hold the file's (units read, columns ignored, …)
   const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings));
   for (const skipped of imported.skipped) reports.push(unfittedSurveyReport(skipped.survey, skipped.reason));
-  const unassigned = imported.unassigned.map((row) => `Line ${row.line} belongs to no survey and was not used: ${row.reason}`);
+  for (const row of imported.unassigned) rejected.push({ source: path, ...row });
+  const unassigned = summarizeSetAsideRows(imported.unassigned);
   if (unassigned.length > 0 && reports[0] !== undefined) {
     reports[0] = { ...reports[0], warnings: [...unassigned, ...reports[0].warnings] };
   }

@@ -1,5 +1,6 @@
 import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
+import { printable } from '../../core/text/printable';
 import { planMeasurements } from '../../core/analysis/plan/plan-measurements';
 import { planToJson, renderPlanText } from '../../core/analysis/plan/render-plan';
 import type { DesignPoint, DesignProblem } from '../../core/analysis/plan/design-problem';
@@ -105,18 +106,25 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
 
 function readReach(text: string): readonly [number, number] {
   const parts = text.split('..');
-  if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${text}" is not a range. Write it like 5mm..200mm.`, { value: text });
+  if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${printable(text, 60)}" is not a range. Write it like 5mm..200mm.`, { value: text });
   return [length(parts[0]!, '--reach'), length(parts[1]!, '--reach')];
 }
 
 function readDistances(text: string): DesignPoint[] {
   const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
-  const unit = /[a-zA-Zµμ"]+\s*$/.exec(items[items.length - 1] ?? '')?.[0] ?? '';
-  return items.map((item) => ({ distance: length(/[a-zA-Zµμ"]\s*$/.test(item) ? item : `${item}${unit}`, '--compare'), radial: 0 }));
+  const unit = trailingUnit(items[items.length - 1] ?? '');
+  return items.map((item) => ({ distance: length(trailingUnit(item) !== '' ? item : `${item}${unit}`, '--compare'), radial: 0 }));
+}
+
+/** The unit letters at the end of a trimmed item ("mm" of "20mm"), by a scan from the end (linear, where an unanchored pattern was not). */
+function trailingUnit(item: string): string {
+  let at = item.length;
+  while (at > 0 && /[a-zA-Zµμ"]/.test(item[at - 1]!)) at -= 1;
+  return item.slice(at);
 }
 
 function length(text: string, what: string): number {
   const value = parseQuantity(text, 'length', what).value;
-  if (value < 0) throw new RingfallError('USAGE_LENGTH', `${what}: "${text}" is negative. Give a distance ≥ 0.`, { value: text });
+  if (value < 0) throw new RingfallError('USAGE_LENGTH', `${what}: "${printable(text, 60)}" is negative. Give a distance ≥ 0.`, { value: text });
   return value;
 }

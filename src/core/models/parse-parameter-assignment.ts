@@ -1,4 +1,5 @@
 import { RingfallError } from '../errors';
+import { printable } from '../text/printable';
 import { parseQuantity, type QuantityKind } from '../units';
 import type { FieldModel, ParameterSpec, ParameterUnit } from './field-model';
 
@@ -65,9 +66,12 @@ export function parseParameterAssignment(
   model: FieldModel, text: string, option: string,
 ): { index: number; name: string; value: number } {
   const names = model.parameters.map((p) => p.name).join(', ');
-  const match = /^\s*([A-Za-z]+)\s*=\s*(.*?)\s*$/.exec(text);
+  // split at the first "=" and trim: linear, where `=\s*(.*?)\s*$` backtracked quadratically on spaces
+  const equals = text.indexOf('=');
+  const written = equals === -1 ? '' : text.slice(0, equals).trim();
+  const match = equals !== -1 && /^[A-Za-z]+$/.test(written) ? [text, written, text.slice(equals + 1).trim()] as const : null;
   if (!match) {
-    throw new RingfallError('PARAMETER_SYNTAX', `${option}: "${text}" is not NAME=QTY (${model.id}). Write it like ${option} ${model.parameters[1]?.name ?? 'name'}=${exampleValue(model.parameters[1]?.unit ?? 'm')}.`, { value: text, where: option });
+    throw new RingfallError('PARAMETER_SYNTAX', `${option}: "${printable(text, 60)}" is not NAME=QTY (${model.id}). Write it like ${option} ${model.parameters[1]?.name ?? 'name'}=${exampleValue(model.parameters[1]?.unit ?? 'm')}.`, { value: text, where: option });
   }
   const name = match[1]!;
   const index = model.parameters.findIndex((p) => p.name === name);
@@ -81,13 +85,13 @@ export function parseParameterAssignment(
   if (kind === null) {
     value = match[2] === '' ? NaN : Number(match[2]);
     if (!Number.isFinite(value)) {
-      throw new RingfallError('PARAMETER_VALUE', `${what}: "${match[2]}" is not a number. Give a plain number in ${parameter.unit}, e.g. ${name}=${exampleValue(parameter.unit)}.`, { value: text, where: option });
+      throw new RingfallError('PARAMETER_VALUE', `${what}: "${printable(match[2], 60)}" is not a number. Give a plain number in ${parameter.unit}, e.g. ${name}=${exampleValue(parameter.unit)}.`, { value: text, where: option });
     }
   } else {
     value = parseQuantity(match[2]!, kind, what).value;
   }
   if (!acceptsValue(parameter, value)) {
-    throw new RingfallError('PARAMETER_VALUE', `${what}: ${match[2]} is out of range (${acceptedRange(parameter)}). Give the ${parameter.description.split(':')[0]}.`, { value: text, where: option });
+    throw new RingfallError('PARAMETER_VALUE', `${what}: ${printable(match[2], 60)} is out of range (${acceptedRange(parameter)}). Give the ${parameter.description.split(':')[0]}.`, { value: text, where: option });
   }
   return { index, name, value };
 }

@@ -1,5 +1,6 @@
 import type { FitResult, ParameterEstimate } from '../fit/fit-result';
 import { parameterQuantityKind } from '../models/parse-parameter-assignment';
+import { printable } from '../text/printable';
 import { displayUnit, formatNumber, formatQuantity } from '../units';
 import type { Report, SurveyReport, ThresholdResult, Verdict } from './report';
 
@@ -17,9 +18,10 @@ export function renderTextReport(report: Report): string {
 
 function renderSurvey(survey: SurveyReport): string {
   const lines: string[] = [];
-  lines.push(`Survey ${survey.source}`);
+  // file names, coil ids, notes and reasons come from files and arguments: shown escaped (printable), one line each
+  lines.push(`Survey ${printable(survey.source)}`);
   const facts = [
-    `coil ${survey.coil ?? '(not stated)'}`,
+    `coil ${survey.coil === null ? '(not stated)' : printable(survey.coil, 60)}`,
     `date ${survey.date ?? '(not stated)'}`,
     `${survey.readingType ?? 'detector type not stated'}`,
     `${survey.readings.used} of ${survey.readings.total} rows used`,
@@ -159,7 +161,7 @@ export function table(header: readonly string[], rows: readonly (readonly string
 
 /** Word-wrap to 78 columns with a first-line indent and a hanging indent. */
 export function wrap(text: string, indent: number, hanging = indent, width = 78): string[] {
-  const words = text.split(/\s+/).filter((w) => w !== '');
+  const words = printable(text).split(/\s+/).filter((w) => w !== '');
   const lines: string[] = [];
   let current = ' '.repeat(indent);
   let empty = true;

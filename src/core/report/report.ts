@@ -1,6 +1,7 @@
 import type { FitResult } from '../fit/fit-result';
 import type { ModelId } from '../models/field-model';
 import type { ReadingType, RejectedRow } from '../survey/survey';
+import type { SetAsideRow } from './set-aside-rows';
 
 /**
  * The Report: everything a view shows, computed once in core. Views (CLI text, JSON,
@@ -132,4 +133,10 @@ export interface FleetSummary {
 export interface Report {
   readonly surveys: readonly SurveyReport[];
   readonly fleet?: FleetSummary;
+  /**
+   * Rows of the files read that belong to no survey (bad date or reading type, commented
+   * out, unclosed quote, …), each with its file, line, code and reason (CONTRACT.md
+   * `rejected`). Rows of a survey are in its `readings.rejected` instead.
+   */
+  readonly rejected?: readonly SetAsideRow[];
 }

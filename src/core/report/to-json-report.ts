@@ -1,4 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
+import type { RejectedRow } from '../survey/survey';
 import type { Report, SurveyReport } from './report';
 
 /** Schema tag of the JSON report (CONTRACT.md). */
@@ -14,6 +15,9 @@ export function toJsonReport(report: Report): Record<string, unknown> {
     schema: reportSchema,
     surveys: report.surveys.map(surveyToJson),
   };
+  if (report.rejected !== undefined) {
+    json['rejected'] = report.rejected.map((row) => ({ source: row.source, ...rowToJson(row) }));
+  }
   if (report.fleet !== undefined) json['fleet'] = report.fleet;
   return json;
 }
@@ -27,12 +31,7 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
     readings: {
       total: survey.readings.total,
       used: survey.readings.used,
-      rejected: survey.readings.rejected.map((row) => ({
-        line: row.line,
-        column: row.column,
-        value: row.value,
-        reason: row.reason,
-      })),
+      rejected: survey.readings.rejected.map(rowToJson),
     },
     fits: survey.fits.map(fitToJson),
     best: survey.best,
@@ -43,6 +42,10 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
     notes: survey.notes,
     cautions: survey.cautions,
   };
+}
+
+function rowToJson(row: RejectedRow): Record<string, unknown> {
+  return { line: row.line, column: row.column, value: row.value, code: row.code ?? null, reason: row.reason };
 }
 
 function fitToJson(fit: FitResult): Record<string, unknown> {

@@ -1,5 +1,6 @@
 import { RingfallError } from '../errors';
-import { lookupUnit, unitsOfKind, type QuantityKind, type UnitDefinition } from './unit-table';
+import { printable } from '../text/printable';
+import { ambiguousUnit, lookupUnit, unitsOfKind, type QuantityKind, type UnitDefinition } from './unit-table';
 
 /** A parsed quantity: the value in SI (T, m, A, A·m²) and the unit it was written in. */
 export interface Quantity {
@@ -8,7 +9,10 @@ export interface Quantity {
   readonly unit: UnitDefinition;
 }
 
-const numberPattern = /^\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$/;
+/** The number at the start of a trimmed quantity; sticky and free of nested repeats, so linear. */
+const numberPattern = /[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?/y;
+/** Quantities longer than this are shown cut in messages. */
+const shownLength = 60;
 
 /**
  * Parse "45mm", "45 mm", "0.5mT", "5 G", "120A", "2 µT", "-1.5e-3 T" into SI.
@@ -22,29 +26,38 @@ const numberPattern = /^\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*
  * @example parseQuantity('45 mm', 'length').value // 0.045
  */
 export function parseQuantity(text: string, expected?: QuantityKind, what = 'quantity'): Quantity {
-  const match = numberPattern.exec(text);
+  // trim, then match the number at the start and take the rest as the unit: no pattern
+  // with two adjacent repeats over the same characters (`(.*?)\s*$` is quadratic on spaces)
+  const trimmed = text.trim();
+  const shown = printable(text, shownLength);
+  numberPattern.lastIndex = 0;
+  const match = numberPattern.exec(trimmed);
   if (!match) {
     throw new RingfallError(
       'QUANTITY_SYNTAX',
-      `${what}: "${text}" is not a number with a unit. Write it like ${example(expected)}.`,
+      `${what}: "${shown}" is not a number with a unit. Write it like ${example(expected)}.`,
       { value: text },
     );
   }
-  const number = Number(match[1]);
-  const unitText = match[2] ?? '';
+  const number = Number(match[0]);
+  const unitText = trimmed.slice(numberPattern.lastIndex).trimStart();
   if (unitText === '') {
     throw new RingfallError(
       'QUANTITY_UNIT',
-      `${what}: "${text}" has no unit. Add one, e.g. ${example(expected)}` +
+      `${what}: "${shown}" has no unit. Add one, e.g. ${example(expected)}` +
         (expected ? ` (units: ${unitsOfKind(expected).join(', ')}).` : '.'),
       { value: text },
     );
   }
   const unit = lookupUnit(unitText);
+  const ambiguous = ambiguousUnit(unitText);
+  if (ambiguous !== null) {
+    throw new RingfallError('QUANTITY_UNIT', `${what}: the unit in "${shown}" is ambiguous: ${ambiguous}.`, { value: text });
+  }
   if (!unit) {
     throw new RingfallError(
       'QUANTITY_UNIT',
-      `${what}: unknown unit "${unitText}" in "${text}". Use one of: ` +
+      `${what}: unknown unit "${printable(unitText, shownLength)}" in "${shown}". Use one of: ` +
         `${(expected ? unitsOfKind(expected) : ['T', 'mT', 'uT', 'nT', 'G', 'kG', 'mG', 'm', 'cm', 'mm', 'in', 'A']).join(', ')}.`,
       { value: text },
     );
@@ -52,12 +65,12 @@ export function parseQuantity(text: string, expected?: QuantityKind, what = 'qua
   if (expected && unit.kind !== expected) {
     throw new RingfallError(
       'QUANTITY_KIND',
-      `${what}: "${text}" is a ${unit.kind} but a ${expected} is needed. Write it like ${example(expected)}.`,
+      `${what}: "${shown}" is a ${unit.kind} but a ${expected} is needed. Write it like ${example(expected)}.`,
       { value: text },
     );
   }
   if (!Number.isFinite(number)) {
-    throw new RingfallError('QUANTITY_SYNTAX', `${what}: "${text}" is not a finite number. Write it like ${example(expected)}.`, { value: text });
+    throw new RingfallError('QUANTITY_SYNTAX', `${what}: "${shown}" is not a finite number. Write it like ${example(expected)}.`, { value: text });
   }
   return { value: number * unit.factor, kind: unit.kind, unit };
 }

@@ -34,35 +34,65 @@ const definitions: readonly UnitDefinition[] = [
 ];
 
 /** Spellings people write, mapped to the canonical symbol. Matched case-sensitively first. */
-const aliases: Readonly<Record<string, string>> = {
-  'µT': 'uT', 'μT': 'uT', 'microtesla': 'uT',
-  'tesla': 'T', 'millitesla': 'mT', 'nanotesla': 'nT',
-  'Gs': 'G', 'gauss': 'G', 'Gauss': 'G', 'kGs': 'kG', 'kilogauss': 'kG', 'mGs': 'mG', 'milligauss': 'mG',
-  'µm': 'um', 'μm': 'um',
-  'inch': 'in', 'inches': 'in', '"': 'in',
-  'A m2': 'A·m²', 'A*m^2': 'A·m²', 'Am2': 'A·m²', 'A m^2': 'A·m²', 'A.m2': 'A·m²', 'A·m2': 'A·m²', 'A m²': 'A·m²',
-  'At': 'A', 'A-t': 'A', 'AT': 'A', 'ampere-turns': 'A', 'amperes': 'A', 'ampere': 'A',
-};
+const aliases: ReadonlyMap<string, string> = new Map([
+  ['µT', 'uT'], ['μT', 'uT'], ['microtesla', 'uT'],
+  ['tesla', 'T'], ['millitesla', 'mT'], ['nanotesla', 'nT'],
+  ['Gs', 'G'], ['gauss', 'G'], ['Gauss', 'G'], ['kGs', 'kG'], ['kilogauss', 'kG'], ['mGs', 'mG'], ['milligauss', 'mG'],
+  ['µm', 'um'], ['μm', 'um'],
+  ['inch', 'in'], ['inches', 'in'], ['"', 'in'],
+  ['A m2', 'A·m²'], ['A*m^2', 'A·m²'], ['Am2', 'A·m²'], ['A m^2', 'A·m²'], ['A.m2', 'A·m²'], ['A·m2', 'A·m²'], ['A m²', 'A·m²'],
+  ['At', 'A'], ['A-t', 'A'], ['AT', 'A'], ['ampere-turns', 'A'], ['amperes', 'A'], ['ampere', 'A'],
+]);
+
+/**
+ * Lower-cased spellings read whatever their case (MM, CM, IN, UT, NT, GAUSS), except the
+ * ones {@link ambiguousUnit} refuses. 'mg' could be milligram; in a field column it can
+ * only mean milligauss.
+ */
+const caseless: ReadonlyMap<string, string> = new Map([
+  ['t', 'T'], ['mt', 'mT'], ['ut', 'uT'], ['µt', 'uT'], ['μt', 'uT'], ['nt', 'nT'], ['g', 'G'], ['gs', 'G'], ['kg', 'kG'], ['mg', 'mG'],
+  ['gauss', 'G'], ['tesla', 'T'], ['m', 'm'], ['cm', 'cm'], ['mm', 'mm'], ['in', 'in'], ['inch', 'in'], ['inches', 'in'], ['a', 'A'],
+]);
+
+/**
+ * Spellings that differ from a unit ringfall reads only in the case of a prefix letter,
+ * where the SI Brochure (9th ed., Table 7) reads the capital as another prefix: M is mega,
+ * m is milli. "B (MT)" is megatesla in SI though a gaussmeter log means millitesla; a
+ * guess would be a factor of 10⁹, so these are refused with what to write instead.
+ */
+const ambiguous: ReadonlyMap<string, string> = new Map([
+  ['MT', '"MT" is megatesla in SI (M = mega); write "mT" for millitesla'],
+  ['Mt', '"Mt" reads as mega- in SI (M = mega); write "mT" for millitesla'],
+  ['MG', '"MG" is megagauss (M = mega); write "mG" for milligauss'],
+  ['Mg', '"Mg" is megagram in SI (M = mega); write "mG" for milligauss'],
+  ['Mm', '"Mm" is megametre in SI (M = mega); write "mm" for millimetre'],
+  ['MGs', '"MGs" is megagauss (M = mega); write "mG" for milligauss'],
+]);
 
 const bySymbol = new Map<string, UnitDefinition>(definitions.map((d) => [d.symbol, d]));
 
 /**
- * Look a unit spelling up. Case-sensitive first (mT vs MT matter in principle), then a
- * case-insensitive pass for the unambiguous spellings (MM, Mm, CM, IN, UT, NT, GAUSS).
- * Returns undefined for an unknown unit.
+ * Look a unit spelling up. Case-sensitive first (mT vs MT matter), then a case-insensitive
+ * pass for the unambiguous spellings (MM, CM, IN, UT, NT, GAUSS); the spellings
+ * {@link ambiguousUnit} names (MT, MG, Mm, …) are not read.
+ * Returns undefined for an unknown or ambiguous unit.
  */
 export function lookupUnit(spelling: string): UnitDefinition | undefined {
   const text = spelling.trim();
-  const direct = bySymbol.get(text) ?? bySymbol.get(aliases[text] ?? '');
+  const direct = bySymbol.get(text) ?? bySymbol.get(aliases.get(text) ?? '');
   if (direct) return direct;
-  const lower = text.toLowerCase();
-  // 'mg' could be milligram; in a field column it can only mean milligauss.
-  const caseless: Record<string, string> = {
-    t: 'T', mt: 'mT', ut: 'uT', 'µt': 'uT', 'μt': 'uT', nt: 'nT', g: 'G', gs: 'G', kg: 'kG', mg: 'mG',
-    gauss: 'G', tesla: 'T', m: 'm', cm: 'cm', mm: 'mm', in: 'in', inch: 'in', inches: 'in', a: 'A',
-  };
-  const symbol = caseless[lower];
+  if (ambiguous.has(text)) return undefined;
+  const symbol = caseless.get(text.toLowerCase());
   return symbol === undefined ? undefined : bySymbol.get(symbol);
+}
+
+/**
+ * Why a unit spelling is refused as ambiguous ("MT" is megatesla in SI …), or null when
+ * it is not one of those spellings.
+ * @example ambiguousUnit('MT') // '"MT" is megatesla in SI (M = mega); write "mT" for millitesla'
+ */
+export function ambiguousUnit(spelling: string): string | null {
+  return ambiguous.get(spelling.trim()) ?? null;
 }
 
 /** All canonical symbols of one kind, for messages ("use one of: T, mT, …"). */

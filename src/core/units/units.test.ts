@@ -100,4 +100,21 @@ describe('formatQuantity()', () => {
   it('lookupUnit() returns undefined for an unknown unit', () => {
     expect(lookupUnit('parsec')).toBeUndefined();
   });
+
+  it('lookupUnit() refuses spellings where a capital M reads as mega (MT, MG, Mm) and keeps the unambiguous all-caps ones (MM, UT, GAUSS)', () => {
+    // SI Brochure 9th ed., Table 7: M = mega (1e6), m = milli (1e-3); "MM" and "UT" are no SI symbol of anything else
+    for (const spelling of ['MT', 'Mt', 'MG', 'Mg', 'Mm']) expect(lookupUnit(spelling), spelling).toBeUndefined();
+    expect(lookupUnit('MM')?.symbol).toBe('mm');
+    expect(lookupUnit('UT')?.symbol).toBe('uT');
+    expect(lookupUnit('GAUSS')?.symbol).toBe('G');
+    expect(codeOf(() => parseQuantity('0.5 MT', 'field'))).toBe('QUANTITY_UNIT');
+    expect(() => parseQuantity('0.5 MT', 'field')).toThrow(/megatesla.*write "mT"/u);
+  });
+
+  it('lookupUnit() and parseQuantity() treat Object.prototype names as unknown units', () => {
+    for (const spelling of ['constructor', '__proto__', 'toString', 'hasOwnProperty']) {
+      expect(lookupUnit(spelling), spelling).toBeUndefined();
+      expect(codeOf(() => parseQuantity(`1 ${spelling}`)), spelling).toBe('QUANTITY_UNIT');
+    }
+  });
 });

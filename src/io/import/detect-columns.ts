@@ -92,7 +92,7 @@ function chooseFieldKind(columns: ColumnDetection[], notes: string[], problems: 
   if (components.length === 3) {
     for (const column of columns) {
       if (column.role === 'field' || column.role === 'magnitude') {
-        notes.push(`column ${column.index + 1} "${column.header}" is not used: the magnitude is computed from Bx, By and Bz (map it by hand to use it instead)`);
+        notes.push(`column ${column.index + 1} "${shorten(column.header, 60)}" is not used: the magnitude is computed from Bx, By and Bz (map it by hand to use it instead)`);
         Object.assign(column, { role: null, unit: null, unitSource: null, reason: 'field computed from Bx, By, Bz instead' });
       }
     }
@@ -123,7 +123,7 @@ function chooseFieldKind(columns: ColumnDetection[], notes: string[], problems: 
 function conflict(role: string, claimed: readonly ColumnDetection[], source: string, headerLine: number): RingfallError {
   return importError(
     'IMPORT_COLUMN_CONFLICT',
-    `More than one ${role} column: ${claimed.map((c) => `"${c.header}" (column ${c.index + 1})`).join(' and ')} (${place(source, headerLine)}). ` +
+    `More than one ${role} column: ${claimed.map((c) => `"${shorten(c.header, 60)}" (column ${c.index + 1})`).join(' and ')} (${place(source, headerLine)}). ` +
       'Remove or rename all but one, or map the columns by hand.',
     place(source, headerLine), claimed.map((c) => c.header),
   );

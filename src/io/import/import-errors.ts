@@ -1,4 +1,5 @@
 import { RingfallError } from '../../core/errors';
+import { printable } from '../../core/text/printable';
 
 /**
  * Stable codes of file-level import problems (CLI exit status 2; the web page shows the
@@ -15,6 +16,7 @@ export type ImportErrorCode =
   | 'IMPORT_DISTANCE_UNIT_MISSING'
   | 'IMPORT_UNIT_UNKNOWN'
   | 'IMPORT_UNIT_KIND'
+  | 'IMPORT_UNIT_AMBIGUOUS'
   | 'IMPORT_COLUMN_CONFLICT'
   | 'IMPORT_COMPONENTS_INCOMPLETE'
   | 'IMPORT_METADATA'
@@ -30,7 +32,8 @@ export function importError(code: ImportErrorCode, message: string, where: strin
   return new RingfallError(code, message, { where, value });
 }
 
-/** "survey.csv line 3, column 2" for messages. */
+/** "survey.csv line 3, column 2" for messages (control characters in the name shown escaped). */
 export function place(source: string, line: number, column?: number): string {
-  return column === undefined ? `${source} line ${line}` : `${source} line ${line}, column ${column}`;
+  const name = printable(source);
+  return column === undefined ? `${name} line ${line}` : `${name} line ${line}, column ${column}`;
 }

@@ -72,7 +72,7 @@ export interface MetadataLine {
 /** How the file was read: everything the web page needs to show and override detection. */
 export interface Detection {
   readonly delimiter: ',' | ';' | '\t';
-  /** True when "12,5" is read as 12.5 (delimiter is semicolon or tab). */
+  /** True when "12,5" is read as 12.5: the delimiter is a semicolon (CONTRACT.md); never with tab or comma. */
   readonly decimalComma: boolean;
   readonly lineBreak: 'LF' | 'CRLF' | 'CR';
   readonly byteOrderMark: boolean;

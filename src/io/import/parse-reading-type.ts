@@ -1,10 +1,11 @@
 import type { ReadingType } from '../../core/survey/survey';
 
-const spellings: Readonly<Record<string, ReadingType>> = {
-  dc: 'dc', 'd.c.': 'dc', static: 'dc',
-  rms: 'rms', 'true rms': 'rms', trms: 'rms', 'ac rms': 'rms', 'rms ac': 'rms',
-  peak: 'peak', pk: 'peak', 'ac peak': 'peak', 'peak ac': 'peak',
-};
+/** A Map, not an object literal: "constructor" or "__proto__" must not find Object.prototype's members. */
+const spellings: ReadonlyMap<string, ReadingType> = new Map([
+  ['dc', 'dc'], ['d.c.', 'dc'], ['static', 'dc'],
+  ['rms', 'rms'], ['true rms', 'rms'], ['trms', 'rms'], ['ac rms', 'rms'], ['rms ac', 'rms'],
+  ['peak', 'peak'], ['pk', 'peak'], ['ac peak', 'peak'], ['peak ac', 'peak'],
+]);
 
 /**
  * Read a detector type (DOMAIN §3.6): dc, rms or peak, case-insensitively, with a few
@@ -15,5 +16,5 @@ const spellings: Readonly<Record<string, ReadingType>> = {
  * @example parseReadingType('True RMS') // 'rms'
  */
 export function parseReadingType(text: string): ReadingType | null {
-  return spellings[text.trim().toLowerCase().replace(/[\s_-]+/g, ' ')] ?? null;
+  return spellings.get(text.trim().toLowerCase().replace(/[\s_-]+/g, ' ')) ?? null;
 }

@@ -8,6 +8,7 @@ import type { Detection, ImportOptions, MetadataLine } from './import-types';
 import { looksBinary } from './looks-binary';
 import { parseDate } from './parse-date';
 import { parseReadingType } from './parse-reading-type';
+import { shorten } from './read-number';
 import { readPreamble, type Preamble } from './read-preamble';
 
 /** Everything decided before the first data row. */
@@ -61,11 +62,12 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
   const parsedHeader = Papa.parse<string[]>(preamble.headerText, { delimiter, newline: preamble.newline }).data[0] ?? [];
   const headers = parsedHeader.map((h) => h.replace(/\r$/u, ''));
   const columns = detectColumns(headers, preamble.headerLine, options);
-  const meta: Record<string, string> = {};
+  // keys are the file's own words ("# constructor: …"): a null-prototype object holds them as plain data
+  const meta: Record<string, string> = Object.create(null) as Record<string, string>;
   for (const { key, value } of preamble.metadata) meta[key] = value;
   const detection: Detection = {
     delimiter,
-    decimalComma: delimiter !== ',',
+    decimalComma: delimiter === ';',
     lineBreak: preamble.lineBreak,
     byteOrderMark,
     headerLine: preamble.headerLine,
@@ -75,7 +77,9 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
     fieldKind: columns.fieldKind,
     notes: columns.notes,
   };
-  return { preamble, delimiter, decimalComma: delimiter !== ',', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
+  // CONTRACT.md: a decimal comma only in semicolon files. In a tab file "1,700" could be
+  // 1.7 or 1700 (thousands separator); a guess would be silent, so such cells are refused.
+  return { preamble, delimiter, decimalComma: delimiter === ';', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
 }
 
 function readDefaults(metadata: readonly MetadataLine[], source: string): FileLayout['defaults'] {
@@ -90,7 +94,7 @@ function readDefaults(metadata: readonly MetadataLine[], source: string): FileLa
       if (date === null) {
         throw importError(
           'IMPORT_METADATA',
-          `Metadata date not read: "${value}" is not a date ringfall reads (${place(source, line)}). Write it as YYYY-MM-DD, e.g. 2026-03-14.`,
+          `Metadata date not read: "${shorten(value, 60)}" is not a date ringfall reads (${place(source, line)}). Write it as YYYY-MM-DD, e.g. 2026-03-14.`,
           place(source, line), value,
         );
       }
@@ -100,7 +104,7 @@ function readDefaults(metadata: readonly MetadataLine[], source: string): FileLa
       if (readingType === null) {
         throw importError(
           'IMPORT_METADATA',
-          `Metadata reading type not read: "${value}" is not dc, rms or peak (${place(source, line)}). Write "# reading: dc", "rms" or "peak".`,
+          `Metadata reading type not read: "${shorten(value, 60)}" is not dc, rms or peak (${place(source, line)}). Write "# reading: dc", "rms" or "peak".`,
           place(source, line), value,
         );
       }

@@ -1,3 +1,5 @@
+import { printable } from '../../core/text/printable';
+
 /**
  * Read a numeric cell: optional sign, digits with one decimal point, optional exponent
  * ("12", "-0.5", ".25", "1e-3"). With `decimalComma` a single comma is the decimal mark
@@ -39,23 +41,30 @@ export function readNumber(cell: string, decimalComma: boolean): number {
  * Why a cell gave no finite number: a stable code and a reason for people.
  * @param value what readNumber returned for the cell (NaN or ±Infinity)
  */
-export function explainNumberCell(cell: string, column: string, value: number): { code: string; reason: string } {
+export function explainNumberCell(cell: string, header: string, value: number): { code: string; reason: string } {
   const text = cell.trim();
+  const column = shorten(header, 60);
   if (text === '') return { code: 'ROW_EMPTY_CELL', reason: `column "${column}" is empty. Fill in the value or delete the row.` };
   if (value === Infinity || value === -Infinity) {
     return { code: 'ROW_NOT_FINITE', reason: `column "${column}": "${shorten(text)}" is too large to be a number. Write the measured value.` };
   }
   if (/^[+-]?(?:nan|inf|infinity)$/iu.test(text)) {
-    return { code: 'ROW_NOT_FINITE', reason: `column "${column}": "${text}" is not a finite number. Write the measured value.` };
+    return { code: 'ROW_NOT_FINITE', reason: `column "${column}": "${shorten(text)}" is not a finite number. Write the measured value.` };
   }
   if (/^(?:o\.?l\.?|ovl|over|overload|over ?range|ofl)$/iu.test(text)) {
-    return { code: 'ROW_OVER_RANGE', reason: `column "${column}": "${text}" is the meter's over-range display, not a reading. Re-measure this point on a higher range.` };
+    return { code: 'ROW_OVER_RANGE', reason: `column "${column}": "${shorten(text)}" is the meter's over-range display, not a reading. Re-measure this point on a higher range.` };
   }
-  const hint = /\d,\d/u.test(text) ? ' A decimal comma is read only in files delimited by semicolon or tab, and never together with a decimal point.' : '';
+  const hint = /\d,\d/u.test(text)
+    ? ' A comma in a number is read as a decimal comma only in files delimited by semicolons, and never together with a decimal point:' +
+      ' elsewhere "1,700" could mean 1.7 or 1700. Write a decimal point, or save the file delimited by semicolons.'
+    : '';
   return { code: 'ROW_NOT_A_NUMBER', reason: `column "${column}": "${shorten(text)}" is not a number.${hint} Correct the cell or delete the row.` };
 }
 
-/** Keep messages short when a cell is very long (fuzzed or corrupted lines). */
+/**
+ * A cell or header as shown in a message: short when it is very long (fuzzed or corrupted
+ * lines), with control characters escaped so the message stays one line (printable).
+ */
 export function shorten(text: string, limit = 40): string {
-  return text.length <= limit ? text : `${text.slice(0, limit)}… (${text.length} characters)`;
+  return printable(text, limit);
 }

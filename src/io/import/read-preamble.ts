@@ -14,7 +14,28 @@ export interface Preamble {
   readonly dataOffset: number;
 }
 
-const metadataPattern = /^#+\s*([^:=]*[^:=\s])\s*[:=]\s*(.*?)\s*$/u;
+/**
+ * A trimmed `#` line as metadata `# key: value` (or `# key = value`): the key is what
+ * comes before the first ":" or "=", the value what follows, both trimmed; null when there
+ * is no separator or no key. A scan, linear in the line: the regular expression it
+ * replaces backtracked quadratically on a long run of spaces.
+ */
+function readMetadataLine(trimmed: string): { key: string; value: string } | null {
+  let start = 0;
+  while (trimmed.charCodeAt(start) === 35) start += 1;
+  let separator = -1;
+  for (let i = start; i < trimmed.length; i += 1) {
+    const code = trimmed.charCodeAt(i);
+    if (code === 58 || code === 61) {
+      separator = i;
+      break;
+    }
+  }
+  if (separator === -1) return null;
+  const key = trimmed.slice(start, separator).trim();
+  if (key === '') return null;
+  return { key, value: trimmed.slice(separator + 1).trim() };
+}
 
 /**
  * Read metadata lines (`# key: value`), comment lines and blank lines up to the header
@@ -46,9 +67,9 @@ export function readPreamble(text: string, final: boolean, source: string): Prea
       continue;
     }
     if (trimmed.startsWith('#')) {
-      const match = metadataPattern.exec(trimmed);
+      const match = readMetadataLine(trimmed);
       if (match) {
-        metadata.push({ line, key: (match[1] ?? '').toLowerCase().replace(/[\s_-]+/g, ' '), value: match[2] ?? '' });
+        metadata.push({ line, key: match.key.toLowerCase().replace(/[\s_-]+/g, ' '), value: match.value });
       } else {
         comments.push({ line, text: trimmed });
       }
@@ -74,3 +95,4 @@ export function readPreamble(text: string, final: boolean, source: string): Prea
     source,
   );
 }
+

@@ -27,7 +27,7 @@ export function readRowKey(cells: readonly string[], line: number, context: RowC
     const column = headers[layout.date ?? 0] ?? 'date';
     collector.unassigned.push({
       line, column, value: shorten(dateText), code: 'ROW_BAD_DATE',
-      reason: `column "${column}": "${shorten(dateText)}" is not a date ringfall reads, so the row belongs to no survey. Write dates as YYYY-MM-DD, e.g. 2026-03-14.`,
+      reason: `column "${shorten(column, 60)}": "${shorten(dateText)}" is not a date ringfall reads, so the row belongs to no survey. Write dates as YYYY-MM-DD, e.g. 2026-03-14.`,
     });
     return null;
   }
@@ -36,7 +36,7 @@ export function readRowKey(cells: readonly string[], line: number, context: RowC
     const column = headers[layout.reading ?? 0] ?? 'reading';
     collector.unassigned.push({
       line, column, value: shorten(readingText), code: 'ROW_BAD_READING_TYPE',
-      reason: `column "${column}": "${shorten(readingText)}" is not dc, rms or peak, so the row belongs to no survey. ` +
+      reason: `column "${shorten(column, 60)}": "${shorten(readingText)}" is not dc, rms or peak, so the row belongs to no survey. ` +
         'Write the detector type, or if the column holds field values write its unit in the header, e.g. "reading (mT)".',
     });
     return null;

@@ -72,7 +72,7 @@ function checkWidth(cells: readonly string[], context: RowContext): Problem | nu
   if (missing.length === 0) return null;
   return {
     column: missing[0] ?? null, value: null, code: 'ROW_MISSING_CELLS',
-    reason: `the row has ${cells.length} cell${cells.length === 1 ? '' : 's'} but the header has ${width}; no ${missing.map((m) => `"${m}"`).join(', ')}. Fill in the missing cells or delete the row.`,
+    reason: `the row has ${cells.length} cell${cells.length === 1 ? '' : 's'} but the header has ${width}; no ${missing.map((m) => `"${shorten(m, 60)}"`).join(', ')}. Fill in the missing cells or delete the row.`,
   };
 }
 
@@ -162,5 +162,5 @@ function readColumn(cells: readonly string[], column: NumericColumn, decimalComm
 
 function problem(cells: readonly string[], column: NumericColumn, code: string, what: string): Problem {
   const value = shorten((cells[column.index] ?? '').trim());
-  return { column: column.header, value, code, reason: `column "${column.header}": "${value}" ${what}` };
+  return { column: column.header, value, code, reason: `column "${shorten(column.header, 60)}": "${value}" ${what}` };
 }

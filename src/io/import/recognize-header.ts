@@ -1,7 +1,7 @@
 import { lookupUnit } from '../../core/units';
 import { isValueName, normalizeColumnName, roleForName, unitKindOf } from './header-names';
 import type { ColumnRole } from './import-types';
-import { shorten } from './read-number';
+import { printable } from '../../core/text/printable';
 
 /** What one header cell says: a role (or none), the unit text written in it, and why. */
 export interface HeaderReading {
@@ -11,15 +11,68 @@ export interface HeaderReading {
   readonly reason: string;
 }
 
-/** Unit forms tried in order; each splits a header into name and unit text. */
-const unitForms: readonly { readonly form: string; readonly pattern: RegExp; readonly knownUnitOnly: boolean }[] = [
-  { form: 'in parentheses', pattern: /^(.*?)\s*\(\s*([^()]*?)\s*\)$/u, knownUnitOnly: false },
-  { form: 'in brackets', pattern: /^(.*?)\s*\[\s*([^[\]]*?)\s*\]$/u, knownUnitOnly: false },
-  { form: 'in braces', pattern: /^(.*?)\s*\{\s*([^{}]*?)\s*\}$/u, knownUnitOnly: false },
-  { form: 'after a slash', pattern: /^(.*?)\s*\/\s*([^/]+?)$/u, knownUnitOnly: false },
-  { form: 'after "in"', pattern: /^(.*?)\s+in\s+(\S+)$/iu, knownUnitOnly: true },
-  { form: 'as a suffix', pattern: /^(.*?)[\s_-]+([^\s_-]+)$/u, knownUnitOnly: true },
+/** A header split into the name before a unit and the unit text, or null when the form does not apply. */
+type Split = { readonly name: string; readonly unitText: string } | null;
+
+/**
+ * Unit forms tried in order; each splits a trimmed header into name and unit text.
+ * Hand-written scans from the end of the cell, each linear in its length: the regular
+ * expressions these replace (`^(.*?)\s*\(…\)$` and the like) backtracked quadratically
+ * on a long run of spaces (a 30,000-character cell took seconds).
+ */
+const unitForms: readonly { readonly form: string; readonly split: (text: string) => Split; readonly knownUnitOnly: boolean }[] = [
+  { form: 'in parentheses', split: (text) => enclosed(text, '(', ')'), knownUnitOnly: false },
+  { form: 'in brackets', split: (text) => enclosed(text, '[', ']'), knownUnitOnly: false },
+  { form: 'in braces', split: (text) => enclosed(text, '{', '}'), knownUnitOnly: false },
+  { form: 'after a slash', split: afterSlash, knownUnitOnly: false },
+  { form: 'after "in"', split: afterIn, knownUnitOnly: true },
+  { form: 'as a suffix', split: asSuffix, knownUnitOnly: true },
 ];
+
+/** `name (unit)`: the cell ends with the closing mark and the unit holds neither mark. */
+function enclosed(text: string, open: string, close: string): Split {
+  if (!text.endsWith(close)) return null;
+  const at = text.lastIndexOf(open, text.length - 2);
+  if (at === -1 || text.indexOf(close, at + 1) !== text.length - 1) return null;
+  return { name: text.slice(0, at).trimEnd(), unitText: text.slice(at + 1, -1).trim() };
+}
+
+/** `name / unit`: the unit is what follows the last slash. */
+function afterSlash(text: string): Split {
+  const at = text.lastIndexOf('/');
+  if (at === -1) return null;
+  return { name: text.slice(0, at).trimEnd(), unitText: text.slice(at + 1).trim() };
+}
+
+/** `name in unit`: the last word, after the word "in" (any case) with white space around it. */
+function afterIn(text: string): Split {
+  let at = text.length;
+  while (at > 0 && !isSpace(text.charCodeAt(at - 1))) at -= 1;
+  if (at === 0 || at === text.length) return null;
+  const before = text.slice(0, at).trimEnd();
+  const word = before.slice(-2).toLowerCase();
+  if (word !== 'in' || before.length < 3 || !isSpace(before.charCodeAt(before.length - 3))) return null;
+  return { name: before.slice(0, -2).trimEnd(), unitText: text.slice(at) };
+}
+
+/** `name_unit`, `name-unit`, `name unit`: the last run of other characters after a separator. */
+function asSuffix(text: string): Split {
+  let at = text.length;
+  while (at > 0 && !isSeparator(text.charCodeAt(at - 1))) at -= 1;
+  if (at === 0 || at === text.length) return null;
+  let end = at;
+  while (end > 0 && isSeparator(text.charCodeAt(end - 1))) end -= 1;
+  return { name: text.slice(0, end), unitText: text.slice(at) };
+}
+
+function isSpace(code: number): boolean {
+  return code === 32 || (code >= 9 && code <= 13) || code === 0xa0 || code === 0x1680 || (code >= 0x2000 && code <= 0x200a) ||
+    code === 0x2028 || code === 0x2029 || code === 0x202f || code === 0x205f || code === 0x3000 || code === 0xfeff;
+}
+
+function isSeparator(code: number): boolean {
+  return code === 95 || code === 45 || isSpace(code);
+}
 
 /**
  * Recognise one header cell: `distance (mm)`, `distance_mm`, `z [cm]`, `Distance/in`,
@@ -35,28 +88,29 @@ const unitForms: readonly { readonly form: string; readonly pattern: RegExp; rea
 export function recognizeHeader(header: string): HeaderReading {
   const bare = normalizeColumnName(header);
   const bareRole = roleForName(bare);
-  if (bareRole) return { role: bareRole, unitText: null, reason: `name "${header}" with no unit written` };
-  for (const { form, pattern, knownUnitOnly } of unitForms) {
-    const match = pattern.exec(header.trim());
+  if (bareRole) return { role: bareRole, unitText: null, reason: `name "${printable(header, 40)}" with no unit written` };
+  const trimmed = header.trim();
+  for (const { form, split, knownUnitOnly } of unitForms) {
+    const match = split(trimmed);
     if (!match) continue;
-    const name = normalizeColumnName(match[1] ?? '');
-    const unitText = (match[2] ?? '').trim();
+    const name = normalizeColumnName(match.name);
+    const unitText = match.unitText;
     if (name === '' || unitText === '') continue;
     const unit = lookupUnit(unitText);
     if (knownUnitOnly && !unit) continue;
     const role = roleForName(name);
     // "Reading (mT)" or "value [G]": a field unit makes a value name a field column.
     if ((role === 'reading' || (!role && isValueName(name))) && unit?.kind === 'field') {
-      return { role: 'field', unitText, reason: `name "${match[1]}" with field unit "${unitText}" ${form}: field values` };
+      return { role: 'field', unitText, reason: `name "${printable(match.name, 40)}" with field unit "${printable(unitText, 40)}" ${form}: field values` };
     }
     if (role) {
       const numeric = unitKindOf(role) !== null;
       return {
         role,
         unitText: numeric ? unitText : null,
-        reason: `name "${match[1]}"${numeric ? ` with unit "${unitText}" ${form}` : ` ("${unitText}" ${form} is not used)`}`,
+        reason: `name "${printable(match.name, 40)}"${numeric ? ` with unit "${printable(unitText, 40)}" ${form}` : ` ("${printable(unitText, 40)}" ${form} is not used)`}`,
       };
     }
   }
-  return { role: null, unitText: null, reason: `"${shorten(header)}" is not a column name ringfall knows; ignored` };
+  return { role: null, unitText: null, reason: `"${printable(header, 40)}" is not a column name ringfall knows; ignored` };
 }

@@ -1,5 +1,6 @@
 import type { RingfallError } from '../../core/errors';
-import { lookupUnit, unitsOfKind, type UnitDefinition } from '../../core/units';
+import { ambiguousUnit, lookupUnit, unitsOfKind, type UnitDefinition } from '../../core/units';
+import { printable } from '../../core/text/printable';
 import { unitKindOf } from './header-names';
 import { importError, place } from './import-errors';
 import type { ColumnDetection, ImportOptions } from './import-types';
@@ -31,10 +32,19 @@ export function resolveUnits(
     const where = place(options.source, headerLine, column.index + 1);
     if (column.unit !== null) {
       const unit = lookupUnit(column.unit);
+      const ambiguous = ambiguousUnit(column.unit);
+      if (ambiguous !== null) {
+        problems.push(importError(
+          'IMPORT_UNIT_AMBIGUOUS',
+          `Ambiguous unit in column "${printable(column.header, 60)}": ${ambiguous} (${where}). Correct the header, or map the column by hand with its unit.`,
+          where, column.unit,
+        ));
+        return column;
+      }
       if (!unit) {
         problems.push(importError(
           'IMPORT_UNIT_UNKNOWN',
-          `Unknown unit in column "${column.header}": "${column.unit}" (${where}). Use one of ${unitsOfKind(kind).join(', ')}` +
+          `Unknown unit in column "${printable(column.header, 60)}": "${printable(column.unit, 40)}" (${where}). Use one of ${unitsOfKind(kind).join(', ')}` +
             (kind === 'field' ? ' (a meter that reads oersted in air reads gauss: write G).' : '.'),
           where, column.unit,
         ));
@@ -43,7 +53,7 @@ export function resolveUnits(
       if (unit.kind !== kind) {
         problems.push(importError(
           'IMPORT_UNIT_KIND',
-          `Wrong kind of unit in column "${column.header}": "${column.unit}" is a ${unit.kind} unit but the column holds a ${kind} (${where}). ` +
+          `Wrong kind of unit in column "${printable(column.header, 60)}": "${printable(column.unit, 40)}" is a ${unit.kind} unit but the column holds a ${kind} (${where}). ` +
             `Write a ${kind} unit (${unitsOfKind(kind).join(', ')}) or map the column by hand.`,
           where, column.unit,
         ));
@@ -51,7 +61,7 @@ export function resolveUnits(
       }
       const optionForKind = optionUnits[kind];
       if (optionForKind && optionForKind.symbol !== unit.symbol) {
-        notes.push(`column "${column.header}" states its unit ${unit.symbol}; ${kind === 'field' ? '--field-unit' : '--distance-unit'} ${optionForKind.symbol} applies only to columns without a unit`);
+        notes.push(`column "${printable(column.header, 60)}" states its unit ${unit.symbol}; ${kind === 'field' ? '--field-unit' : '--distance-unit'} ${optionForKind.symbol} applies only to columns without a unit`);
       }
       factors[column.index] = unit.factor;
       return { ...column, unit: unit.symbol };
@@ -64,13 +74,13 @@ export function resolveUnits(
     problems.push(kind === 'field'
       ? importError(
         'IMPORT_FIELD_UNIT_MISSING',
-        `No unit for field column "${column.header}": the header states none (${where}). ` +
-          `Write the unit in the header, e.g. "${column.header} (mT)", or pass --field-unit mT (or G, uT); ringfall does not guess between gauss and millitesla.`,
+        `No unit for field column "${printable(column.header, 60)}": the header states none (${where}). ` +
+          `Write the unit in the header, e.g. "${printable(column.header, 60)} (mT)", or pass --field-unit mT (or G, uT); ringfall does not guess between gauss and millitesla.`,
         where, column.header)
       : importError(
         'IMPORT_DISTANCE_UNIT_MISSING',
-        `No unit for distance column "${column.header}": the header states none (${where}). ` +
-          `Write the unit in the header, e.g. "${column.header} (mm)", or pass --distance-unit mm (or cm, m, in).`,
+        `No unit for distance column "${printable(column.header, 60)}": the header states none (${where}). ` +
+          `Write the unit in the header, e.g. "${printable(column.header, 60)} (mm)", or pass --distance-unit mm (or cm, m, in).`,
         where, column.header));
     return column;
   });
@@ -89,7 +99,7 @@ function optionUnit(
   if (unit && unit.kind === kind) return unit;
   problems.push(importError(
     'IMPORT_OPTION_UNIT',
-    `${flag} not usable: "${text}" is ${unit ? `a ${unit.kind} unit` : 'not a unit ringfall knows'} (importing ${source}). ` +
+    `${flag} not usable: "${printable(text, 40)}" is ${ambiguousUnit(text) ?? (unit ? `a ${unit.kind} unit` : 'not a unit ringfall knows')} (importing ${printable(source)}). ` +
       `Give a ${kind} unit: ${unitsOfKind(kind).join(', ')}.`,
     source, text,
   ));

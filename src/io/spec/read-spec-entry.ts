@@ -22,7 +22,8 @@ export interface EntryContext {
 
 const topKeys = ['coil', 'model', 'params', 'tolerance', 'tolerances', 'claims', 'readingType', 'waveform', 'crestFactor', 'note'];
 const claimKeys = ['distance', 'radial', 'field', 'tolerance', 'note'];
-const waveforms: Readonly<Record<string, number>> = { sine: Math.SQRT2, square: 1 };
+/** Crest factors (peak/rms) of the waveforms a spec may name; a Map, so "constructor" is no waveform. */
+const waveforms: ReadonlyMap<string, number> = new Map([['sine', Math.SQRT2], ['square', 1]]);
 
 /**
  * Turn one parsed spec object into a Spec in SI, checking every key, model, parameter,
@@ -55,8 +56,9 @@ export function readSpecEntry(entry: unknown, context: EntryContext): Spec {
       throw specError('SPEC_QUANTITY', 'Spec parameter', `${name} ${value.text} is outside what the model allows (${range} ${parameter.unit})`, at(`params.${name}`),
         `Give ${name} as the label states it${parameter.lower === 0 ? ' (a size is never negative)' : ''}.`, written);
     }
-    const toleranceText = tolerances[name] ?? defaultTolerance;
-    const tolerancePath = tolerances[name] !== undefined ? `tolerances.${name}` : 'tolerance';
+    const own = Object.hasOwn(tolerances, name) ? tolerances[name] : undefined;
+    const toleranceText = own ?? defaultTolerance;
+    const tolerancePath = own !== undefined ? `tolerances.${name}` : 'tolerance';
     params.push({ name, value: value.value, text: value.text, tolerance: readTolerance(toleranceText, kind, at(tolerancePath), name) });
   }
   for (const name of Object.keys(tolerances)) {
@@ -132,9 +134,9 @@ function readReadingType(value: unknown, place: SpecPlace): ReadingType | null {
 function readCrestFactor(waveform: unknown, crestFactor: unknown, at: (path: string) => SpecPlace): number | null {
   let fromWaveform: number | null = null;
   if (waveform !== undefined && waveform !== null) {
-    fromWaveform = typeof waveform === 'string' ? waveforms[waveform.trim().toLowerCase()] ?? null : null;
+    fromWaveform = typeof waveform === 'string' ? waveforms.get(waveform.trim().toLowerCase()) ?? null : null;
     if (fromWaveform === null) {
-      throw specError('SPEC_WAVEFORM', 'Spec waveform', `found ${describe(waveform)}`, at('waveform'), `Use ${Object.keys(waveforms).map((w) => `"${w}"`).join(' or ')}, or state "crestFactor" (peak/rms) for other waveforms.`, waveform);
+      throw specError('SPEC_WAVEFORM', 'Spec waveform', `found ${describe(waveform)}`, at('waveform'), `Use ${[...waveforms.keys()].map((w) => `"${w}"`).join(' or ')}, or state "crestFactor" (peak/rms) for other waveforms.`, waveform);
     }
   }
   if (crestFactor === undefined || crestFactor === null) return fromWaveform;

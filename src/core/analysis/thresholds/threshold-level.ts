@@ -1,5 +1,6 @@
 import { isRingfallError, RingfallError } from '../../errors';
 import type { ReadingType } from '../../survey/survey';
+import { printable } from '../../text/printable';
 import { parseQuantity } from '../../units';
 import { icnirp2010ReferenceLevel, type ExposureGroup } from './icnirp-reference-level';
 
@@ -16,8 +17,11 @@ export interface ThresholdLevel {
   readonly notes: readonly string[];
 }
 
-/** Fixed presets a user can name instead of a quantity (ids are our own, part of the CLI). */
-export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = {
+/**
+ * Fixed presets a user can name instead of a quantity (ids are our own, part of the CLI).
+ * A null-prototype object: a typed "constructor" or "__proto__" finds no preset.
+ */
+export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = Object.freeze(Object.assign(Object.create(null) as Record<string, ThresholdLevel>, {
   'implant-static': {
     value: 5e-4,
     label: 'implant line, static (ICNIRP 2009)',
@@ -60,10 +64,10 @@ export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = {
     flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
     notes: [],
   },
-};
+}));
 
 const frequencyPattern = /^\s*((?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(Hz|kHz|MHz)\s*$/i;
-const frequencyFactor: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6 };
+const frequencyFactor: ReadonlyMap<string, number> = new Map([['hz', 1], ['khz', 1e3], ['mhz', 1e6]]);
 
 /**
  * Read a threshold as written on the command line or in the web page: a field quantity
@@ -76,20 +80,22 @@ const frequencyFactor: Record<string, number> = { hz: 1, khz: 1e3, mhz: 1e6 };
  */
 export function parseThresholdLevel(text: string, what = '--threshold'): ThresholdLevel {
   const trimmed = text.trim();
-  const preset = thresholdPresets[trimmed.toLowerCase()];
+  const key = trimmed.toLowerCase();
+  const preset = Object.hasOwn(thresholdPresets, key) ? thresholdPresets[key] : undefined;
   if (preset) return preset;
   const icnirp = /^icnirp-(public|occupational)(?:@(.*))?$/i.exec(trimmed);
   if (icnirp) return icnirpLevel(icnirp[1]!.toLowerCase() as ExposureGroup, icnirp[2], text, what);
-  if (/^[a-z]/i.test(trimmed)) {
+  // a level that does not start like a number is meant as a preset name ("__proto__" too)
+  if (!/^[+\-.\d]/.test(trimmed)) {
     throw new RingfallError(
       'THRESHOLD_LEVEL',
-      `${what}: "${text}" is neither a field nor a known preset. Give a field like "0.5mT" or one of: ${[...Object.keys(thresholdPresets), 'icnirp-public@50Hz', 'icnirp-occupational@50Hz'].join(', ')}.`,
+      `${what}: unknown preset "${printable(text, 60)}"; it is neither a field nor a known preset. Give a field like "0.5mT" or one of: ${[...Object.keys(thresholdPresets), 'icnirp-public@50Hz', 'icnirp-occupational@50Hz'].join(', ')}.`,
       { value: text },
     );
   }
   const level = parseQuantity(trimmed, 'field', what).value;
   if (!(level > 0)) {
-    throw new RingfallError('THRESHOLD_LEVEL', `${what}: "${text}" is not a positive field. Give a level above zero, e.g. "0.5mT".`, { value: text });
+    throw new RingfallError('THRESHOLD_LEVEL', `${what}: "${printable(text, 60)}" is not a positive field. Give a level above zero, e.g. "0.5mT".`, { value: text });
   }
   return { value: level, label: null, readingType: null, flag: null, notes: [] };
 }
@@ -99,17 +105,17 @@ function icnirpLevel(group: ExposureGroup, frequencyText: string | undefined, te
   if (!match) {
     throw new RingfallError(
       'THRESHOLD_FREQUENCY',
-      `${what}: "${text}" needs the frequency of the field, written like "icnirp-${group}@50Hz" or "icnirp-${group}@1kHz".`,
+      `${what}: "${printable(text, 60)}" needs the frequency of the field, written like "icnirp-${group}@50Hz" or "icnirp-${group}@1kHz".`,
       { value: text },
     );
   }
-  const frequency = Number(match[1]) * frequencyFactor[match[2]!.toLowerCase()]!;
+  const frequency = Number(match[1]) * frequencyFactor.get(match[2]!.toLowerCase())!;
   let reference: ReturnType<typeof icnirp2010ReferenceLevel>;
   try {
     reference = icnirp2010ReferenceLevel(frequency, group);
   } catch (error) {
     // name the option and the text as written, not only the frequency
-    if (isRingfallError(error, 'THRESHOLD_FREQUENCY')) throw new RingfallError('THRESHOLD_FREQUENCY', `${what}: "${text}": ${error.message}`, { value: text, cause: error });
+    if (isRingfallError(error, 'THRESHOLD_FREQUENCY')) throw new RingfallError('THRESHOLD_FREQUENCY', `${what}: "${printable(text, 60)}": ${error.message}`, { value: text, cause: error });
     throw error;
   }
   return {
