@@ -49,7 +49,8 @@ try {
   rmSync(staging, { recursive: true, force: true });
   throw error;
 }
-process.stdout.write(`built ${target}\n`);
+// stderr: `npm pack --json` prints its JSON on stdout, after prepack
+process.stderr.write(`built ${target}\n`);
 
 function declarationFiles(folder: string): string[] {
   return readdirSync(folder, { withFileTypes: true }).flatMap((entry) => {

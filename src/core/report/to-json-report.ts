@@ -1,4 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
+import type { JsonFit, JsonParameter, JsonReport, JsonSurvey } from './json-types';
 import type { Report, SurveyReport } from './report';
 
 /** Schema tag of the JSON report (CONTRACT.md). */
@@ -8,9 +9,10 @@ export const reportSchema = 'ringfall-report/1';
  * Map a Report onto the CONTRACT.md JSON report: fixed field names, SI values with
  * their units. Non-finite numbers become null (JSON has no NaN). Extra fields beyond the
  * contract (notes, cautions, comparison, correlation) are additions the contract allows.
+ * The shape: JsonReport (json-types.ts) and schema/report.schema.json.
  */
-export function toJsonReport(report: Report): Record<string, unknown> {
-  const json: Record<string, unknown> = {
+export function toJsonReport(report: Report): JsonReport {
+  const json: JsonReport = {
     schema: reportSchema,
     surveys: report.surveys.map(surveyToJson),
   };
@@ -18,7 +20,7 @@ export function toJsonReport(report: Report): Record<string, unknown> {
   return json;
 }
 
-function surveyToJson(survey: SurveyReport): Record<string, unknown> {
+function surveyToJson(survey: SurveyReport): JsonSurvey {
   return {
     source: survey.source,
     coil: survey.coil,
@@ -45,8 +47,8 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
   };
 }
 
-function fitToJson(fit: FitResult): Record<string, unknown> {
-  const params: Record<string, unknown> = {};
+function fitToJson(fit: FitResult): JsonFit {
+  const params: Record<string, JsonParameter> = {};
   for (const [name, estimate] of Object.entries(fit.params)) {
     params[name] = {
       value: finite(estimate.value),
