@@ -1,48 +1,21 @@
-import { spawnSync, type SpawnSyncOptions } from 'node:child_process';
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join, relative, sep } from 'node:path';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { npx, packAndInstall, runCommand as sh, type PackedTarball } from '../support/packed-install';
 
-// ringfall as a user gets it (issue 13): `npm pack` in a copy of the checkout (prepack
+// ringfall as a user gets it: `npm pack` in a copy of the checkout (prepack
 // builds dist/), the tarball installed into an empty project with its dependencies from
 // the registry, then the CLI, the library and its types used from there with nothing
 // else. Slow (a build and an install), so one install serves every check.
 const root = join(import.meta.dirname, '..', '..');
-const npm = process.platform === 'win32' ? 'npm.cmd' : 'npm';
-const npx = process.platform === 'win32' ? 'npx.cmd' : 'npx';
 let scratch = '';
 let consumer = '';
-let tarball = '';
-let packed: { size: number; files: { path: string }[] } = { size: 0, files: [] };
-
-function sh(command: string, args: readonly string[], options: SpawnSyncOptions & { cwd: string }) {
-  // npm_config_* from an `npm test` run would steer the inner npm (workspace, prefix, …)
-  const env = Object.fromEntries(Object.entries(process.env).filter(([key]) => !key.toLowerCase().startsWith('npm_')));
-  const result = spawnSync(command, args, { encoding: 'utf8', timeout: 600_000, maxBuffer: 1 << 26, env: { ...env, NO_UPDATE_NOTIFIER: '1', ...options.env }, ...options, stdio: 'pipe' });
-  return { status: result.status, stdout: String(result.stdout), stderr: String(result.stderr), error: result.error };
-}
-
-function ok(run: ReturnType<typeof sh>, what: string): string {
-  if (run.status !== 0) throw new Error(`${what} failed (status ${run.status}${run.error ? `, ${run.error.message}` : ''}):\n${run.stderr}\n${run.stdout}`);
-  return run.stdout;
-}
+let packed: PackedTarball = { path: '', size: 0, files: [] };
 
 beforeAll(() => {
   scratch = mkdtempSync(join(tmpdir(), 'ringfall-package-test-'));
-  // a copy of the checkout without its build, VCS or install, with node_modules linked in
-  // (the build tools are devDependencies), so the test never writes into the checkout
-  const source = join(scratch, 'source');
-  const skip = new Set(['node_modules', 'dist', '.git', 'test-artifacts', join('bench', 'out')]);
-  cpSync(root, source, { recursive: true, filter: (path) => !skip.has(relative(root, path)) && !relative(root, path).split(sep).includes('node_modules') });
-  symlinkSync(join(root, 'node_modules'), join(source, 'node_modules'), 'dir');
-  const listing = ok(sh(npm, ['pack', '--json', '--pack-destination', scratch], { cwd: source }), 'npm pack');
-  packed = (JSON.parse(listing.slice(listing.indexOf('['))) as (typeof packed & { filename: string })[])[0]!;
-  tarball = join(scratch, (JSON.parse(listing.slice(listing.indexOf('['))) as { filename: string }[])[0]!.filename);
-  consumer = join(scratch, 'consumer');
-  mkdirSync(consumer);
-  writeFileSync(join(consumer, 'package.json'), `${JSON.stringify({ name: 'ringfall-consumer', version: '1.0.0', private: true, type: 'module' }, null, 2)}\n`);
-  ok(sh(npm, ['install', '--no-audit', '--no-fund', tarball], { cwd: consumer }), 'npm install of the tarball');
+  ({ tarball: packed, project: consumer } = packAndInstall(root, scratch));
 }, 900_000);
 
 afterAll(() => {
@@ -51,9 +24,9 @@ afterAll(() => {
 
 describe('the packed tarball (npm pack → npm install)', () => {
   it('is under 300 kB and holds what a user runs: no test, bench, script or source file', () => {
-    // issue 13: "the tarball is under 300 kB"
-    expect(statSync(tarball).size).toBeLessThan(300_000);
-    expect(packed.size).toBe(statSync(tarball).size);
+    // the size budget set for the package: under 300 kB
+    expect(statSync(packed.path).size).toBeLessThan(300_000);
+    expect(packed.size).toBe(statSync(packed.path).size);
     const paths = packed.files.map((file) => file.path);
     expect(paths).toContain('bin/ringfall.mjs');
     expect(paths).toContain('dist/cli.js');
