@@ -24,4 +24,8 @@ export { parseQuantity, formatQuantity } from './core/units';
 export { RingfallError, isRingfallError } from './core/errors';
 export type { Survey, Reading, RejectedRow } from './core/survey/survey';
 export type { FitResult, ParameterEstimate } from './core/fit/fit-result';
-export type { Report, SurveyReport, Verdict, ThresholdResult } from './core/report/report';
+export type { Report, SurveyReport, Verdict, ThresholdResult, FleetSummary } from './core/report/report';
+export type {
+  JsonReport, JsonSurvey, JsonFit, JsonFitStats, JsonParameter, JsonRejectedRow, JsonInterval, JsonFleet,
+  JsonPrediction, JsonPlan, JsonPlanIntervals, JsonQuantity,
+} from './core/report/json-types';

@@ -1,4 +1,4 @@
-import { readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, extname } from 'node:path';
 import { RingfallError } from '../core/errors';
 
@@ -46,4 +46,48 @@ function walk(folder: string, found: Set<string>): void {
     if (entry.isDirectory()) walk(path, found);
     else if (entry.isFile() && surveyEndings.has(extname(entry.name).toLowerCase())) found.add(path);
   }
+}
+
+/** Missing paths named one by one in the --files-from message; the rest are counted. */
+const missingShown = 5;
+
+/**
+ * The survey files of `fit` and `batch`: the command line's DIR|FILE arguments plus, with
+ * `--files-from LIST`, the paths in LIST (`-`: standard input), one per line, relative to
+ * the current folder as on the command line; blank lines are skipped, folders are searched.
+ * A list has no length limit, where a command line does (the shell refuses one over
+ * 128 KiB per argument string on Linux, and npx passes its whole command as one).
+ * @throws RingfallError `USAGE_NO_INPUT` when nothing is named, `INPUT_UNREADABLE` when
+ *   the list cannot be read, `INPUT_LIST_EMPTY` when it names nothing, `INPUT_NOT_FOUND`
+ *   naming the lines whose paths do not exist, and findSurveyFiles's errors.
+ */
+export function surveyFilesFrom(paths: readonly string[], filesFrom: string | undefined): string[] {
+  if (filesFrom === undefined) {
+    if (paths.length === 0) {
+      throw new RingfallError('USAGE_NO_INPUT', 'No survey files given. Name the files or the folders that hold them, or give a list with --files-from FILE (one path per line).');
+    }
+    return findSurveyFiles(paths);
+  }
+  const listName = filesFrom === '-' ? 'standard input' : `"${filesFrom}"`;
+  let text: string;
+  try {
+    text = readFileSync(filesFrom === '-' ? 0 : filesFrom, 'utf8');
+  } catch (cause) {
+    throw new RingfallError('INPUT_UNREADABLE', `--files-from: cannot read ${listName}: ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}. Give a file that lists one survey path per line, or - to read the list from standard input.`, { value: filesFrom, where: '--files-from', cause });
+  }
+  const listed = text.replace(/^\uFEFF/, '').split(/\r?\n/).flatMap((line, index) => (line.trim() === '' ? [] : [{ path: line, line: index + 1 }]));
+  if (listed.length === 0) {
+    throw new RingfallError('INPUT_LIST_EMPTY', `--files-from: ${listName} names no file (blank lines are skipped). Put one survey path per line.`, { value: filesFrom, where: '--files-from' });
+  }
+  const missing = listed.filter((entry) => !existsSync(entry.path));
+  if (missing.length > 0) {
+    const named = missing.slice(0, missingShown).map((entry) => `line ${entry.line} "${entry.path}"`).join(', ');
+    const more = missing.length > missingShown ? ` and ${missing.length - missingShown} more` : '';
+    throw new RingfallError(
+      'INPUT_NOT_FOUND',
+      `--files-from ${listName}: ${missing.length} of ${listed.length} paths do not exist: ${named}${more}. Paths are read relative to the current folder (${process.cwd()}); fix the list or run from the folder it was written for.`,
+      { value: missing.map((entry) => entry.path), where: '--files-from' },
+    );
+  }
+  return findSurveyFiles([...paths, ...listed.map((entry) => entry.path)]);
 }

@@ -106,7 +106,7 @@ describe('ringfall fit (CONTRACT.md)', () => {
   const usage: [string, string[], string][] = [
     ['an unknown option', ['fit', healthy, '--bogus'], `ringfall: unknown option '--bogus' (did you mean --robust?). See "ringfall fit --help" for the usage.\n`],
     ['an option without its value', ['fit', healthy, '--seed'], `ringfall: option '--seed <n>' argument missing. See "ringfall fit --help" for the usage.\n`],
-    ['no file', ['fit'], `ringfall: missing required argument 'files'. See "ringfall fit --help" for the usage.\n`],
+    ['no file', ['fit'], 'ringfall: No survey files given. Name the files or the folders that hold them, or give a list with --files-from FILE (one path per line).\n'],
     ['an unknown command', ['fitt', healthy], `ringfall: unknown command 'fitt' (did you mean fit?). See "ringfall --help" for the usage.\n`],
   ];
   for (const [what, args, line] of usage) {

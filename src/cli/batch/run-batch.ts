@@ -1,9 +1,9 @@
 import { fleetHistory } from '../../core/analysis/fleet/fleet-history';
 import type { Report } from '../../core/report/report';
 import { createBatchProgress, type ProgressStream } from './batch-progress';
-import { bundledWorkerSource } from './bundle-worker';
 import type { BatchSettings } from './batch-settings';
 import type { FileOutcome } from './batch-types';
+import { batchWorkerEntry } from '../package-files';
 import { runWorkerPool } from './worker-pool';
 
 /** How a batch runs (not what it computes: that is BatchSettings). */
@@ -44,11 +44,10 @@ export async function runBatch(files: readonly string[], settings: BatchSettings
   const chunkSize = Math.max(1, Math.min(largestChunk, Math.ceil(files.length / (workers * chunksPerWorker))));
   const progress = createBatchProgress(options.progress, files.length, workers, options.progressInterval === undefined ? {} : { intervalSeconds: options.progressInterval });
   let done = 0;
-  const source = await bundledWorkerSource();
   const run = runWorkerPool(files.map((path, index) => ({ index, path })), {
     workers,
     chunkSize,
-    entry: source !== null ? { source } : new URL('./batch-worker-entry.mjs', import.meta.url),
+    entry: batchWorkerEntry(),
     workerData: settings,
     onOutcomes: (finished) => {
       for (const outcome of finished) outcomes[outcome.index] = outcome;

@@ -9,10 +9,10 @@ export interface WorkerPoolOptions {
   /** Files per message sent to a worker. */
   readonly chunkSize: number;
   /**
-   * The worker: an entry module (an .mjs that registers tsx, then loads the worker), or
-   * the worker's whole source as one script (bundle-worker.ts), run with `eval`.
+   * The worker's entry file (package-files.ts): the built dist/batch-worker.js, or from
+   * the sources an .mjs that registers tsx, then loads the worker.
    */
-  readonly entry: URL | { readonly source: string };
+  readonly entry: URL;
   /** Passed to every worker once, as `workerData` (the batch settings). */
   readonly workerData: unknown;
   /** Called with each finished chunk's outcomes, in the order chunks finish. */
@@ -60,9 +60,7 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
   };
 
   const start = () => {
-    const worker = options.entry instanceof URL
-      ? new Worker(options.entry, { workerData: options.workerData })
-      : new Worker(options.entry.source, { eval: true, workerData: options.workerData });
+    const worker = new Worker(options.entry, { workerData: options.workerData });
     const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
     let ready = false;
     workers.add(worker);

@@ -10,13 +10,14 @@ import { runBatch } from '../batch/run-batch';
 import { prepareOutFolder, writeHtmlReports } from '../batch/write-html-reports';
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
 import { checksStatus } from '../checks-status';
-import { findSurveyFiles } from '../find-survey-files';
+import { surveyFilesFrom } from '../find-survey-files';
 import type { CommandContext } from '../main';
 
 /** Flags of `batch` besides the fitting options it shares with `fit`. */
 interface BatchFlags extends FitFlags {
   readonly out?: string;
   readonly workers?: string;
+  readonly filesFrom?: string;
 }
 
 /** Exit status of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report it. */
@@ -35,7 +36,8 @@ export function registerBatch(program: Command, context: CommandContext): void {
     program
       .command('batch')
       .description('fit many survey files in parallel: fleet summary, histories and what needs attention')
-      .argument('<paths...>', 'folders to search for survey files, or the files'),
+      .argument('[paths...]', 'folders to search for survey files, or the files')
+      .option('--files-from <list>', 'also fit the paths listed in this file, one per line (- reads standard input); for runs too long for a command line'),
   );
   // fit's single-report files; batch writes one report per coil with --out instead (refused below if given).
   for (const option of command.options) if (option.long === '--html' || option.long === '--csv') option.hideHelp();
@@ -45,7 +47,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
     .action(async (paths: string[], flags: BatchFlags) => {
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
-      const files = findSurveyFiles(paths);
+      const files = surveyFilesFrom(paths, flags.filesFrom);
       if (flags.out !== undefined) prepareOutFolder(flags.out);
       const result = await runBatch(files, settings, { workers, progress: process.stderr });
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };

@@ -1,6 +1,5 @@
 import { readdirSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { fileURLToPath } from 'node:url';
 import { join, relative } from 'node:path';
 import type { Command } from 'commander';
 import { parseThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
@@ -12,9 +11,10 @@ import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
 import type { CommandContext } from '../main';
+import { packageRoot } from '../package-files';
 
-/** The bundled sample data (invented: sample-data/README.md), next to the package root. */
-const sampleFolder = fileURLToPath(new URL('../../../sample-data/', import.meta.url));
+/** The bundled sample data (invented: sample-data/README.md), in the package root. */
+const sampleFolder = join(packageRoot, 'sample-data');
 
 /** The survey shown in full: the applicator that lost amplitude (sample-data/TRUTH.json). */
 const featured = 'qa-107-2026-03-10-degraded.csv';

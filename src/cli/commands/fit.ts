@@ -15,7 +15,7 @@ import { readSpecFile } from '../../io/spec';
 import { renderReportDocument } from '../../web/report-view';
 import { chartLibrarySource } from '../../web/report-view/chart-library-node';
 import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } from '../fit-options';
-import { findSurveyFiles } from '../find-survey-files';
+import { surveyFilesFrom } from '../find-survey-files';
 import type { CommandContext } from '../main';
 import { checksStatus } from '../checks-status';
 
@@ -33,13 +33,14 @@ export function registerFit(program: Command, context: CommandContext): void {
     program
       .command('fit')
       .description('fit coil models to survey files and print the report')
-      .argument('<files...>', 'survey CSV files, or folders to search for them'),
-  ).action(async (files: string[], flags: FitFlags) => {
+      .argument('[files...]', 'survey CSV files, or folders to search for them')
+      .option('--files-from <list>', 'also fit the paths listed in this file, one per line (- reads standard input); for runs too long for a command line'),
+  ).action(async (files: string[], flags: FitFlags & { readonly filesFrom?: string }) => {
     const options = readFitFlags(flags);
     // a side file's folder is checked before any fitting, so a typo costs nothing
     for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
-    const { reports, problems, rejected } = fitFiles(findSurveyFiles(files), options, specs);
+    const { reports, problems, rejected } = fitFiles(surveyFilesFrom(files, flags.filesFrom), options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;

@@ -3,6 +3,7 @@ import { isRingfallError, RingfallError } from '../../core/errors';
 import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, predictField } from '../../core/models';
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
+import type { JsonPrediction } from '../../core/report/json-types';
 import type { CommandContext } from '../main';
 
 interface PredictFlags {
@@ -108,10 +109,10 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
   return { model, params, distance, radial, field, axial, radialComponent };
 }
 
-const si = (value: number, unit: string) => ({ value, unit });
+const si = <Unit extends string>(value: number, unit: Unit) => ({ value, unit });
 
 /** The JSON form of CONTRACT.md (`field`, `components.axial`, `components.radial`) plus the inputs. */
-export function predictionToJson(prediction: Prediction): object {
+export function predictionToJson(prediction: Prediction): JsonPrediction {
   return {
     field: si(prediction.field, 'T'),
     components: { axial: si(prediction.axial, 'T'), radial: si(prediction.radialComponent, 'T') },

@@ -57,11 +57,11 @@ describe('buildSurveyReport(survey, fits, extras)', () => {
   it('the JSON report gives each physical fit its far-field moment in A·m², and the text report shows it under the parameters', () => {
     const survey = loopSurvey();
     const report = { surveys: [buildSurveyReport(survey, fitSurvey(survey, { instrumentUncertainty: { relative: 0.01, absolute: 5e-7 } }))] };
-    const json = toJsonReport(report) as { surveys: { fits: { model: string; moment?: { unit: string; value: number } }[] }[] };
+    const json = toJsonReport(report);
     const loop = json.surveys[0]!.fits.find((fit) => fit.model === 'loop')!;
     expect(loop.moment!.unit).toBe('A·m²');
     // DOMAIN.md §1.11: m = N·I·π·R² = 400·π·0.05² ≈ 3.14 A·m²; within 3 % for 1 % noise
-    expect(Math.abs(loop.moment!.value / (400 * Math.PI * 0.0025) - 1)).toBeLessThan(0.03);
+    expect(Math.abs(loop.moment!.value! / (400 * Math.PI * 0.0025) - 1)).toBeLessThan(0.03);
     expect(json.surveys[0]!.fits.find((fit) => fit.model === 'power-law')!.moment).toBeUndefined();
     const text = renderTextReport(report);
     expect(text).toMatch(/far-field moment\s+\d\.\d+ A·m²\s+\d\.\d+ to \d\.\d+ A·m²/);

@@ -1,5 +1,6 @@
 import type { FitResult } from '../fit/fit-result';
 import type { RejectedRow } from '../survey/survey';
+import type { JsonFit, JsonParameter, JsonRejectedRow, JsonReport, JsonSurvey } from './json-types';
 import type { Report, SurveyReport } from './report';
 
 /** Schema tag of the JSON report (CONTRACT.md). */
@@ -9,9 +10,10 @@ export const reportSchema = 'ringfall-report/1';
  * Map a Report onto the CONTRACT.md JSON report: fixed field names, SI values with
  * their units. Non-finite numbers become null (JSON has no NaN). Extra fields beyond the
  * contract (notes, cautions, comparison, correlation) are additions the contract allows.
+ * The shape: JsonReport (json-types.ts) and schema/report.schema.json.
  */
-export function toJsonReport(report: Report): Record<string, unknown> {
-  const json: Record<string, unknown> = {
+export function toJsonReport(report: Report): JsonReport {
+  const json: JsonReport = {
     schema: reportSchema,
     surveys: report.surveys.map(surveyToJson),
   };
@@ -22,7 +24,7 @@ export function toJsonReport(report: Report): Record<string, unknown> {
   return json;
 }
 
-function surveyToJson(survey: SurveyReport): Record<string, unknown> {
+function surveyToJson(survey: SurveyReport): JsonSurvey {
   return {
     source: survey.source,
     coil: survey.coil,
@@ -44,12 +46,12 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
   };
 }
 
-function rowToJson(row: RejectedRow): Record<string, unknown> {
+function rowToJson(row: RejectedRow): JsonRejectedRow {
   return { line: row.line, column: row.column, value: row.value, code: row.code ?? null, reason: row.reason };
 }
 
-function fitToJson(fit: FitResult): Record<string, unknown> {
-  const params: Record<string, unknown> = {};
+function fitToJson(fit: FitResult): JsonFit {
+  const params: Record<string, JsonParameter> = {};
   for (const [name, estimate] of Object.entries(fit.params)) {
     params[name] = {
       value: finite(estimate.value),

@@ -1,6 +1,7 @@
 import { formatNumber, formatQuantity } from '../../units';
 import { parameterQuantityKind } from '../../models';
 import { describeValue } from '../describe-value';
+import type { JsonPlan, JsonPlanIntervals } from '../../report/json-types';
 import type { DesignProblem } from './design-problem';
 import type { ExpectedIntervals } from './expected-intervals';
 import type { MeasurementPlan } from './plan-measurements';
@@ -13,23 +14,23 @@ export const planSchema = 'ringfall-plan/1';
  * noise model, and for each plan (recommended, evenlySpaced, compared) its positions and
  * the expected 95 % half-widths of every free parameter and of the moment.
  */
-export function planToJson(problem: DesignProblem, plan: MeasurementPlan): Record<string, unknown> {
-  const parameters = Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, { value: problem.values[j], unit: p.unit, free: problem.free.includes(j) }]));
-  const planJson = (intervals: ExpectedIntervals | null) => intervals === null ? null : {
+export function planToJson(problem: DesignProblem, plan: MeasurementPlan): JsonPlan {
+  const parameters = Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, { value: problem.values[j]!, unit: p.unit, free: problem.free.includes(j) }]));
+  const planJson = (intervals: ExpectedIntervals): JsonPlanIntervals => ({
     points: intervals.points.map((p) => ({ distance: { value: p.distance, unit: 'm' }, radial: { value: p.radial, unit: 'm' } })),
     expected: Object.fromEntries(intervals.parameters.map((p) => [p.name, { halfWidth95: p.halfWidth, unit: p.unit, relative: p.relative }])),
     moment: intervals.moment && { value: intervals.moment.value, unit: 'A·m²', halfWidth95: intervals.moment.halfWidth, relative: intervals.moment.relative },
     correlation: intervals.correlation,
     determined: intervals.determined,
     warnings: intervals.warnings,
-  };
+  });
   return {
     schema: planSchema,
     model: problem.model.id,
     parameters,
     interest: plan.interest,
     noise: { relative: problem.noise.relative, absolute: { value: problem.noise.absolute, unit: 'T' }, position: { value: problem.noise.position, unit: 'm' } },
-    plans: { recommended: planJson(plan.recommended), evenlySpaced: planJson(plan.evenlySpaced), compared: planJson(plan.compared) },
+    plans: { recommended: planJson(plan.recommended), evenlySpaced: planJson(plan.evenlySpaced), compared: plan.compared === null ? null : planJson(plan.compared) },
     notes: plan.notes,
   };
 }
