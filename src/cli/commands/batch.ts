@@ -18,6 +18,7 @@ interface BatchFlags extends FitFlags {
   readonly out?: string;
   readonly workers?: string;
   readonly filesFrom?: string;
+  readonly progressEvery?: string;
 }
 
 /** Exit status of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report it. */
@@ -44,12 +45,14 @@ export function registerBatch(program: Command, context: CommandContext): void {
   command
     .option('--out <dir>', 'also write one HTML report per coil and an index.html into this folder')
     .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
+    .option('--progress-every <seconds>', 'seconds between progress lines when stderr is not a terminal (default 2)')
     .action(async (paths: string[], flags: BatchFlags) => {
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
+      const progressInterval = readProgressEvery(flags.progressEvery);
       const files = surveyFilesFrom(paths, flags.filesFrom);
       if (flags.out !== undefined) prepareOutFolder(flags.out);
-      const result = await runBatch(files, settings, { workers, progress: process.stderr });
+      const result = await runBatch(files, settings, { workers, progress: process.stderr, ...(progressInterval === null ? {} : { progressInterval }) });
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
       if (flags.json === true) {
         const json = toJsonReport(result.report);
@@ -89,6 +92,15 @@ function readWorkers(text: string | undefined): number {
     throw new RingfallError('OPTION_VALUE', `--workers: "${text}" is not usable. Give a whole number from 1 to 256.`, { value: text, where: '--workers' });
   }
   return workers;
+}
+
+function readProgressEvery(text: string | undefined): number | null {
+  if (text === undefined) return null;
+  const seconds = Number(text);
+  if (text.trim() === '' || !Number.isFinite(seconds) || seconds < 0.1 || seconds > 3600) {
+    throw new RingfallError('OPTION_VALUE', `--progress-every: "${text}" is not usable. Give seconds from 0.1 to 3600, e.g. 10.`, { value: text, where: '--progress-every' });
+  }
+  return seconds;
 }
 
 /** 1 when a file or survey could not be used, or a check failed as `fit` counts it (checksStatus); else 0 (CONTRACT.md). */
