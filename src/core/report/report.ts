@@ -41,6 +41,8 @@ export interface SpecCheck {
   readonly evidence: string;
   /** What was compared: a label parameter, a field claim, or the far-field moment derived from the label. */
   readonly kind?: 'parameter' | 'claim' | 'moment';
+  /** Claims only: where the claimed distance is measured from (the device surface, or the winding). */
+  readonly datum?: 'surface' | 'winding';
   /**
    * For an inconclusive check: the measurement that would decide it, in one sentence
    * (added points and where, or the uncertainty to reach). Absent when decided.
