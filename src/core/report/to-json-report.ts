@@ -1,4 +1,6 @@
 import type { FitResult } from '../fit/fit-result';
+import { summaryFit } from '../analysis/summary-fit';
+import { getModel } from '../models';
 import type { Report, SurveyReport } from './report';
 
 /** Schema tag of the JSON report (CONTRACT.md). */
@@ -37,12 +39,20 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
     fits: survey.fits.map(fitToJson),
     best: survey.best,
     comparison: survey.comparison,
+    summaryModel: summaryModelJson(survey),
+    spec: survey.spec ?? null,
     verdict: survey.verdict,
     thresholds: survey.thresholds,
     warnings: survey.warnings,
     notes: survey.notes,
     cautions: survey.cautions,
   };
+}
+
+/** The model summaries use (summaryFit): { model, basis: "spec" | "best-physical" }, or null. */
+function summaryModelJson(survey: SurveyReport): { model: string; basis: string } | null {
+  const summary = summaryFit(survey, getModel);
+  return summary === null ? null : { model: summary.fit.model, basis: summary.basis };
 }
 
 function fitToJson(fit: FitResult): Record<string, unknown> {
