@@ -19,4 +19,4 @@ export { planToJson, renderPlanText, planSchema } from './plan/render-plan';
 export { fittedModel, deltaVariance, type FittedModel } from './fitted-model';
 export { parameterRole, type ParameterRole } from './parameter-roles';
 export { bestPhysicalFit } from './best-fit';
-export { summaryFit, summaryModelWords, type SummaryFit } from './summary-fit';
+export { reportSummaryFit, summaryBasisWords, summaryFit, summaryModelWords, type SummaryFit } from './summary-fit';

@@ -1,5 +1,5 @@
 import type { FitResult } from '../fit/fit-result';
-import { summaryFit } from '../analysis/summary-fit';
+import { reportSummaryFit } from '../analysis/summary-fit';
 import { getModel } from '../models';
 import type { Report, SurveyReport } from './report';
 
@@ -14,13 +14,13 @@ export const reportSchema = 'ringfall-report/1';
 export function toJsonReport(report: Report): Record<string, unknown> {
   const json: Record<string, unknown> = {
     schema: reportSchema,
-    surveys: report.surveys.map(surveyToJson),
+    surveys: report.surveys.map((survey) => surveyToJson(survey, report)),
   };
   if (report.fleet !== undefined) json['fleet'] = report.fleet;
   return json;
 }
 
-function surveyToJson(survey: SurveyReport): Record<string, unknown> {
+function surveyToJson(survey: SurveyReport, report: Report): Record<string, unknown> {
   return {
     source: survey.source,
     coil: survey.coil,
@@ -39,7 +39,7 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
     fits: survey.fits.map(fitToJson),
     best: survey.best,
     comparison: survey.comparison,
-    summaryModel: summaryModelJson(survey),
+    summaryModel: summaryModelJson(report, survey),
     spec: survey.spec ?? null,
     verdict: survey.verdict,
     thresholds: survey.thresholds,
@@ -49,9 +49,9 @@ function surveyToJson(survey: SurveyReport): Record<string, unknown> {
   };
 }
 
-/** The model summaries use (summaryFit): { model, basis: "spec" | "best-physical" }, or null. */
-function summaryModelJson(survey: SurveyReport): { model: string; basis: string } | null {
-  const summary = summaryFit(survey, getModel);
+/** The model summaries use (reportSummaryFit): { model, basis: "spec" | "coil-history" | "best-physical" }, or null. */
+function summaryModelJson(report: Report, survey: SurveyReport): { model: string; basis: string } | null {
+  const summary = reportSummaryFit(report, survey, getModel);
   return summary === null ? null : { model: summary.fit.model, basis: summary.basis };
 }
 
