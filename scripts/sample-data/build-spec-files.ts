@@ -1,16 +1,16 @@
 /**
  * Spec files for the sample coils (CONTRACT.md "Spec file"): what each coil's label or
- * datasheet claims. Claimed fields are the label's own model at the stated distance
- * (measured like the bench does, probe offset included), rounded to two digits as a
- * datasheet prints them. QA-214 carries the QA applicator label although it was wound on
+ * datasheet claims. Claimed fields are the label's own model at the stated distance from
+ * the device surface, as the label states it ("datum": "surface": measured like the bench
+ * does, probe offset included), rounded to two digits as a datasheet prints them. QA-214 carries the QA applicator label although it was wound on
  * a larger former; that disagreement is the point of its sample.
  */
 import { applicatorLabel, applicatorProbeOffset } from './scenario';
 import { catalogReading } from './catalog-reading';
 
 /** A claim as a datasheet prints it: two significant digits, in mT. */
-function claim(distanceMm: number, tesla: number, tolerance: string): { distance: string; field: string; tolerance: string } {
-  return { distance: `${distanceMm} mm`, field: `${Number((tesla * 1000).toPrecision(2))} mT`, tolerance };
+function claim(distanceMm: number, tesla: number, tolerance: string): { distance: string; datum: string; field: string; tolerance: string } {
+  return { distance: `${distanceMm} mm`, datum: 'surface', field: `${Number((tesla * 1000).toPrecision(2))} mT`, tolerance };
 }
 
 export function buildSpecFiles(): Map<string, string> {

@@ -6,11 +6,12 @@ import { registerFit } from './commands/fit';
 import { registerBatch } from './commands/batch';
 import { registerPlan } from './commands/plan';
 import { registerDemo } from './commands/demo';
-import { exitCodeFor } from './exit-codes';
+import { exitCodeFor, exitStatus, worseStatus } from './exit-codes';
 
 /**
  * Run the ringfall CLI with `argv` (as process.argv). Returns the exit status
- * (CONTRACT.md): 0 done and every check passed; 1 a check failed; 2 usage or input error.
+ * (CONTRACT.md, exit-codes.ts): 0 done and every check passed; 1 a check failed; 2 usage
+ * or input error; 3 no check failed but one is inconclusive; 70 internal error (a defect).
  */
 export async function main(argv: readonly string[]): Promise<number> {
   const debug = argv.includes('--debug');
@@ -35,7 +36,7 @@ export async function main(argv: readonly string[]): Promise<number> {
       outputError: (text, write) => write(usageErrorLine(text, argv, program.commands.map((command) => command.name()))),
     });
   const status = { code: 0 };
-  const context = { setExitCode: (code: number) => { status.code = Math.max(status.code, code); } };
+  const context = { setExitCode: (code: number) => { status.code = worseStatus(status.code, code); } };
   registerPredict(program, context);
   registerFit(program, context);
   registerBatch(program, context);
@@ -47,17 +48,17 @@ export async function main(argv: readonly string[]): Promise<number> {
   } catch (error) {
     if (error instanceof CommanderError) {
       // help and version exit 0; everything else commander reports is a usage error
-      return error.exitCode === 0 ? 0 : 2;
+      return error.exitCode === 0 ? exitStatus.passed : exitStatus.input;
     }
     if (isRingfallError(error)) {
       process.stderr.write(`ringfall: ${printable(error.message)}\n`);
       if (debug) process.stderr.write(`${error.stack ?? ''}\n`);
-      return exitCodeFor(error);
+      return worseStatus(status.code, exitCodeFor(error));
     }
     process.stderr.write(`ringfall: internal error: ${printable((error as Error)?.message ?? String(error))}\n`);
     if (debug) process.stderr.write(`${(error as Error)?.stack ?? ''}\n`);
     else process.stderr.write('Run again with --debug for details, and report it with the input file.\n');
-    return 3;
+    return exitStatus.internal;
   }
 }
 

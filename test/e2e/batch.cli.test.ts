@@ -78,12 +78,12 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(sources).toEqual([...sources].sort());
   });
 
-  it('batch lists the file TRUTH.json says cannot be imported in fleet.unreadable with its error code and what to do, and exits 1', () => {
+  it('batch lists the file TRUTH.json says cannot be imported in fleet.unreadable with its error code and what to do, and exits 2 (an input error)', () => {
     const report = JSON.parse(json.stdout) as ReportJson;
     const refused = truth.filter((entry) => entry.expected?.errorCode !== undefined);
     expect(report.fleet.unreadable.map((u) => [u.source, u.code])).toEqual(refused.map((entry) => [`sample-data/${entry.file}`, entry.expected!.errorCode]));
     expect(report.fleet.unreadable[0]!.reason).toContain('--field-unit');
-    expect(json.status).toBe(1);
+    expect(json.status).toBe(2);
   });
 
   it('batch flags the degraded coil QA-107 (TRUTH.json: 360 A → 306 A, radius unchanged) as degrading with a negative trend, and the steady QA-330 not', () => {
@@ -102,12 +102,13 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
   });
 
   it('batch prints the fleet summary on stdout (one entry per coil, then what needs attention first, the failed and degrading coil first) and progress only on stderr', () => {
-    expect(text.status).toBe(1);
+    expect(text.status).toBe(2);
     // the coils of TRUTH.json (QA-412 only in the fleet log)
     const coils = ['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9'];
     for (const coil of coils) expect(text.stdout).toMatch(new RegExp(`^${coil}: \\d+ surveys?, latest `, 'm'));
     // TRUTH.json: QA-107's latest survey at 306 A and 45 mm (the estimate printing exactly 306 is a regression pin, not truth)
-    expect(text.stdout).toMatch(/^ {4}ampere-turns 306 A \(\d+–\d+\) · radius 45\.\d mm/m);
+    // each row names the model it reads the coil with, and why (here the spec's)
+    expect(text.stdout).toMatch(/^ {4}model loop \(spec's model\): ampere-turns 306 A \(\d+–\d+\) ·\s+radius 45\.\d mm/m);
     const attention = text.stdout.slice(text.stdout.indexOf('What needs attention first'));
     expect(attention).toMatch(/^ {2}1\. QA-107: failed its spec \(degraded[^)]*\); degrading -\d+ A\/yr/m);
     expect(attention.indexOf('QA-214')).toBeLessThan(attention.indexOf('no-field-unit.csv'));
@@ -161,7 +162,7 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
 });
 
 describe('ringfall batch with broken files and hostile coil ids', () => {
-  it('a broken file does not stop the batch: it is listed with its error, the other files are fitted, exit 1; coil ids are escaped in the HTML', () => {
+  it('a broken file does not stop the batch: it is listed with its error, the other files are fitted, exit 2; coil ids are escaped in the HTML', () => {
     const folder = temporaryFolder();
     copyFileSync(join(root, 'sample-data', 'qa-107-2025-03-11-healthy.csv'), join(folder, 'a-healthy.csv'));
     const healthy = readFileSync(join(root, 'sample-data', 'qa-107-2025-03-11-healthy.csv'), 'utf8');
@@ -170,7 +171,7 @@ describe('ringfall batch with broken files and hostile coil ids', () => {
     writeFileSync(join(folder, 'd-empty.csv'), '');
     const out = join(folder, 'html');
     const run = ringfall('batch', folder, '--json', '--out', out);
-    expect(run.status).toBe(1);
+    expect(run.status).toBe(2);
     const report = JSON.parse(run.stdout) as ReportJson;
     expect(report.surveys.map((s) => s.coil)).toEqual(['QA-107', '<img src=x onerror=alert(1)>']);
     expect(report.fleet.unreadable.map((u) => u.source)).toEqual([join(folder, 'b-broken.csv'), join(folder, 'd-empty.csv')]);

@@ -1,4 +1,4 @@
-import { bestPhysicalFit } from '../../core/analysis/best-fit';
+import { summaryBasisWords, summaryFit } from '../../core/analysis/summary-fit';
 import { describeValue, parameterWords } from '../../core/analysis/describe-value';
 import { parameterRole } from '../../core/analysis/parameter-roles';
 import type { FitResult, ParameterEstimate } from '../../core/fit/fit-result';
@@ -47,18 +47,22 @@ function later(a: SurveyReport, b: SurveyReport): boolean {
 }
 
 /**
- * The coil as the latest survey measured it: the best physical model (lowest AICc among
- * the coil models, DOMAIN.md §1.11) and its amplitude and geometry parameters, each as
+ * The coil as the row's latest survey measured it, read with the model summaries use
+ * (summaryFit: the spec's model, else the coil history's, else the best physical model
+ * by AICc; never a power law), and its amplitude and geometry parameters, each as
  * "ampere-turns 306 A (301–311)" (95 % interval; "fixed" or "not determined" instead when
- * so). Null when no physical model converged.
+ * so). `model` names the model and why it was chosen. Null when no physical model converged.
  */
-export function coilFigures(survey: SurveyReport): { fit: FitResult; figures: string[] } | null {
-  const fit = bestPhysicalFit(survey.fits, getModel);
-  if (fit === null) return null;
+export function coilFigures(row: FleetRow): { fit: FitResult; model: string; figures: string[] } | null {
+  const summary = summaryFit(row.latest, getModel, row.history?.model ?? null);
+  if (summary === null) return null;
+  const fit = summary.fit;
+  const survey = row.latest;
   const figures = Object.values(fit.params)
     .filter((estimate) => ['amplitude', 'geometry'].includes(parameterRole(estimate.name)))
     .map((estimate) => `${parameterWords(estimate.name)} ${describeEstimate(estimate)}`);
-  return { fit, figures };
+  const ranked = survey.best !== null && survey.best !== fit.model ? `; lowest AICc: ${survey.best}` : '';
+  return { fit, model: `${fit.model} (${summaryBasisWords[summary.basis]}${ranked})`, figures };
 }
 
 function describeEstimate(estimate: ParameterEstimate): string {

@@ -19,8 +19,8 @@ export interface BatchCoverage {
 /**
  * The fleet summary of `ringfall batch` as text for an 80-column terminal: a heading with
  * counts (and, for a stopped run, that it is partial), one entry per coil — latest
- * survey, best model, the best physical model's amplitude and geometry with 95 %
- * intervals, the latest spec verdict, threshold distances when asked, the history flags
+ * survey, the model the row reads the coil with and why (coilFigures), its amplitude and
+ * geometry with 95 % intervals, the latest spec verdict, threshold distances when asked, the history flags
  * and ampere-turn trend — then what
  * needs attention first (attentionList), then every file or part that could not be used.
  */
@@ -60,10 +60,10 @@ function rowLines(row: FleetRow): string[] {
   const verdict = survey.verdict
     ? `spec ${survey.verdict.status}${survey.verdict.findings.length ? ` (${survey.verdict.findings.join(', ')})` : ''}`
     : 'no spec';
-  const lines = wrap(`${heading} · best ${survey.best ?? 'none converged'} · ${verdict}`, 0, 4);
-  const coil = coilFigures(survey);
+  const coil = coilFigures(row);
+  const lines = wrap(`${heading} · ${verdict}`, 0, 4);
   if (coil) {
-    lines.push(...wrap(`${coil.fit.model === survey.best ? '' : `${coil.fit.model}: `}${coil.figures.join(' · ')}`, 4, 6));
+    lines.push(...wrap(`model ${coil.model}: ${coil.figures.join(' · ')}`, 4, 6));
   } else {
     lines.push('    no physical model converged on this survey');
   }

@@ -11,6 +11,8 @@ import { prepareOutFolder, writeHtmlReports } from '../batch/write-html-reports'
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
 import { checksStatus } from '../checks-status';
 import { surveyFilesFrom } from '../find-survey-files';
+import { exitStatus, worseStatus } from '../exit-codes';
+import { reportUnappliedSpecs } from './fit';
 import type { CommandContext } from '../main';
 
 /** Flags of `batch` besides the fitting options it shares with `fit`. */
@@ -21,16 +23,14 @@ interface BatchFlags extends FitFlags {
   readonly progressEvery?: string;
 }
 
-/** Exit status of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report it. */
-const interruptedStatus = 130;
-
 /**
  * `ringfall batch DIR|FILE... [options]` (CONTRACT.md): fit every survey of every file in
  * parallel on worker threads and print the fleet summary (or the JSON report with its
  * fleet section, --json); --out DIR also writes one HTML report per coil and an index.
- * Exit status: 0 all fitted and every check passed; 1 a file or survey could not be used,
- * or a check failed as for `fit` (spec failed or inconclusive, threshold not reached,
- * history flag); 2 a usage error; 130 stopped by Ctrl-C.
+ * Exit status (CONTRACT.md): 0 all fitted and every check passed; 1 a check failed as for
+ * `fit` (spec failed, threshold not reached, history flag); 3 none failed but a spec
+ * check is inconclusive; 2 a usage or input error (also a file or part that could not be
+ * used, or a spec that applies to no survey's coil); 130 stopped by Ctrl-C.
  */
 export function registerBatch(program: Command, context: CommandContext): void {
   const command = addFitOptions(
@@ -65,7 +65,8 @@ export function registerBatch(program: Command, context: CommandContext): void {
         const written = writeHtmlReports(flags.out, result.report, coverage);
         process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
       }
-      context.setExitCode(result.interrupted ? interruptedStatus : batchStatus(result.report));
+      reportUnappliedSpecs(result.report);
+      context.setExitCode(result.interrupted ? exitStatus.interrupted : batchStatus(result.report));
     });
 }
 
@@ -103,7 +104,7 @@ function readProgressEvery(text: string | undefined): number | null {
   return seconds;
 }
 
-/** 1 when a file or survey could not be used, or a check failed as `fit` counts it (checksStatus); else 0 (CONTRACT.md). */
+/** 2 when a file or part could not be used (an input error), combined with the checks as `fit` counts them (checksStatus) (CONTRACT.md). */
 export function batchStatus(report: Report): number {
-  return (report.fleet?.unreadable.length ?? 0) > 0 ? 1 : checksStatus(report);
+  return worseStatus(checksStatus(report), (report.fleet?.unreadable.length ?? 0) > 0 ? exitStatus.input : exitStatus.passed);
 }

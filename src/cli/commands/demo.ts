@@ -26,21 +26,33 @@ const introduction =
   'The meter is taken as ±(1.5 % + 2 µT). First one survey in full, then the fleet.';
 
 /**
+ * What demo's exit status means, for its help and the end of its output: unlike `fit` and
+ * `batch`, the sample fleet's failed and inconclusive checks are what it demonstrates.
+ */
+export const demoExitRule =
+  'Exit status of demo: 0 when the demo ran, whatever the sample verdicts (its failed and inconclusive checks ' +
+  'are the demonstration); 2 when the bundled sample files cannot be read; 70 on an internal error. ' +
+  'fit and batch exit 1 when a check fails and 3 when none fails but one is inconclusive.';
+
+/**
  * `ringfall demo [--json]`: fit the bundled sample fleet and print the report (one survey
  * in full, then the fleet summary), so a new user sees the whole tool in one command.
- * Exit 0 when it ran: the fleet's failed checks are the point of the demo, not an error.
+ * Exit status: demoExitRule (0 when it ran).
  */
 export function registerDemo(program: Command, _context: CommandContext): void {
   program
     .command('demo')
     .description('fit the bundled sample fleet and print the report')
+    .addHelpText('after', `\n${wrap(demoExitRule, 0).join('\n')}`)
     .option('--json', 'print the JSON report instead of text')
     .action(async (flags: { json?: boolean }) => {
-      const files = readdirSync(sampleFolder).filter((name) => name.endsWith('.csv')).sort().map((name) => relative(process.cwd(), join(sampleFolder, name)) || name);
+      // paths as seen from where the user stands, like paths they typed (never the install folder)
+      const asSeen = (path: string) => relative(process.cwd(), path) || path;
+      const files = readdirSync(sampleFolder).filter((name) => name.endsWith('.csv')).sort().map((name) => asSeen(join(sampleFolder, name)));
       const settings: BatchSettings = {
         fit: { models: defaultModels, instrumentUncertainty: { relative: 0.015, absolute: 2e-6 }, seed: 1 },
         import: {},
-        specs: await readSpecFile(join(sampleFolder, 'specs', 'all-coils.spec.json')),
+        specs: await readSpecFile(asSeen(join(sampleFolder, 'specs', 'all-coils.spec.json'))),
         thresholds: [parseThresholdLevel('implant-static')],
         keepPoints: false,
       };
@@ -54,6 +66,7 @@ export function registerDemo(program: Command, _context: CommandContext): void {
       process.stdout.write(renderTextReport({ surveys: shown }));
       process.stdout.write(`\n${'═'.repeat(78)}\n\n`);
       process.stdout.write(renderFleetSummary(result.report, { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted }));
+      process.stdout.write(`\n${wrap(demoExitRule, 0).join('\n')}\n`);
       process.stdout.write('\nNext: npx ringfall fit FILE --html report.html, or npm start for the web page.\n');
     });
 }

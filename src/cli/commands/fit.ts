@@ -25,8 +25,9 @@ import { checksStatus } from '../checks-status';
  * threshold distances when asked, and print the report — text for people, or the JSON
  * report with --json; --html and --csv also write those files. A file that cannot be read
  * or imported is named on stderr in one line and the exit status becomes 2; the other
- * files are still reported. Exit 1 when a spec check failed or was inconclusive, or a
- * threshold level was not reached by the fitted curve.
+ * files are still reported. Exit status by checksStatus: 1 when a check failed (spec,
+ * threshold not reached), 3 when none failed but one is inconclusive, 2 when a spec was
+ * given that applies to no survey's coil (also said on stderr).
  */
 export function registerFit(program: Command, context: CommandContext): void {
   addFitOptions(
@@ -47,8 +48,16 @@ export function registerFit(program: Command, context: CommandContext): void {
     const report: Report = { surveys: reports, rejected };
     writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
+    reportUnappliedSpecs(report);
     context.setExitCode(checksStatus(report));
   });
+}
+
+/** One line on stderr per survey that no given spec applies to (the report says it too; exit 2). */
+export function reportUnappliedSpecs(report: Report): void {
+  for (const survey of report.surveys) {
+    if (survey.spec?.applied === false) process.stderr.write(`ringfall: ${survey.source}${survey.coil ? ` (${survey.coil})` : ''}: ${survey.spec.reason ?? 'no spec applies'}\n`);
+  }
 }
 
 /** --html and --csv: write the self-contained HTML report and the per-reading CSV. */

@@ -18,11 +18,20 @@ export interface ConformityDecision {
 }
 
 /**
+ * The decision rule every spec check uses, in words for reports (CONTRACT.md "Decision
+ * rule"): guarded acceptance and rejection with the 95 % interval as the guard band.
+ */
+export const decisionRule =
+  'pass when the whole 95 % interval lies inside the tolerance zone, fail when it lies wholly outside, ' +
+  'inconclusive when it straddles a limit (guard bands as in ISO 14253-1:2017 and JCGM 106:2012)';
+
+/**
  * Three-way conformity decision of an interval against a two-sided tolerance zone:
  * **pass** when the whole interval lies within [nominal − T, nominal + T], **fail** when it
  * lies wholly outside, **inconclusive** otherwise. This is guarded acceptance and guarded
  * rejection with the guard band equal to the interval's half-width (JCGM 106:2012 §8,
- * acceptance/rejection zones with guard bands, clause numbers from memory), giving the
+ * acceptance/rejection zones with guard bands; ISO 14253-1:2017, decision rules for
+ * proving conformity and nonconformity with specifications; clause numbers from memory), giving the
  * non-binary statement of the Eurachem/CITAC guide "Use of uncertainty information in
  * compliance assessment", 2nd ed. 2021, §4.4 (conditional / inconclusive results).
  * The zone is closed: an interval end exactly on a limit still passes.

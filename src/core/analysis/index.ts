@@ -1,7 +1,8 @@
 /** The analyses' public surface: spec verdicts, threshold distances, fleet history, measurement plans. */
-export { decideConformity, type ConformityDecision } from './decide-conformity';
-export type { Spec, SpecParameter, SpecClaim } from './spec/spec';
+export { decideConformity, decisionRule, type ConformityDecision } from './decide-conformity';
+export { defaultClaimDatum, type Spec, type SpecParameter, type SpecClaim, type ClaimDatum } from './spec/spec';
 export { selectSpec } from './spec/select-spec';
+export { specUse } from './spec/spec-use';
 export { verifySpec } from './spec/verify-spec';
 export { readingRelation, type ReadingRelation } from './spec/reading-relation';
 export { thresholdDistances, type ThresholdContext } from './thresholds/threshold-distances';
@@ -18,3 +19,4 @@ export { planToJson, renderPlanText, planSchema } from './plan/render-plan';
 export { fittedModel, deltaVariance, type FittedModel } from './fitted-model';
 export { parameterRole, type ParameterRole } from './parameter-roles';
 export { bestPhysicalFit } from './best-fit';
+export { reportSummaryFit, summaryBasisWords, summaryFit, summaryModelWords, type SummaryFit } from './summary-fit';

@@ -1,5 +1,6 @@
 import type { Spec } from '../analysis/spec/spec';
 import { selectSpec } from '../analysis/spec/select-spec';
+import { specUse } from '../analysis/spec/spec-use';
 import { verifySpec } from '../analysis/spec/verify-spec';
 import { isRingfallError } from '../errors';
 import { thresholdCautions } from '../analysis/thresholds/threshold-cautions';
@@ -22,7 +23,8 @@ export interface SurveyAnalysisSettings {
 
 /**
  * The whole per-survey pipeline, shared by `ringfall fit`, `ringfall batch` and the web
- * page: pick the spec for the coil (its model is fitted too, CONTRACT.md), fit every model
+ * page: pick the spec for the coil (its model is fitted too, CONTRACT.md; when specs are
+ * given and none applies, the report says so: specUse), fit every model
  * (fitSurvey), check the spec (verifySpec, refitting its model with the label's geometry
  * held when the readings cannot determine it), find the threshold distances with their
  * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport.
@@ -47,6 +49,7 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings):
   const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
   return buildSurveyReport(survey, fits, {
     verdict: spec ? verifySpec(spec, fits, survey.readingType, refit) : null,
+    spec: specUse(settings.specs, spec, survey.coil),
     thresholds,
     cautions: thresholds.length > 0 ? thresholdCautions : [],
     notes: fitSurveyNotes(survey, options),

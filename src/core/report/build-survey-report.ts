@@ -1,12 +1,14 @@
 import { compareModels } from '../fit/compare-models';
 import type { FitResult } from '../fit/fit-result';
 import type { Survey } from '../survey/survey';
-import type { SurveyReport, ThresholdResult, Verdict } from './report';
+import type { SpecUse, SurveyReport, ThresholdResult, Verdict } from './report';
 
 /** What analyses add to a survey's report; everything optional. */
 export interface SurveyReportExtras {
   /** Spec verdict, or null/absent when no spec applies. */
   readonly verdict?: Verdict | null;
+  /** Which spec applied, or why none did; null/absent when no spec was given. */
+  readonly spec?: SpecUse | null;
   readonly thresholds?: readonly ThresholdResult[];
   /** Survey-level warnings (set before the fits' own). */
   readonly warnings?: readonly string[];
@@ -52,6 +54,7 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
     best: compared.best,
     comparison: compared.comparison,
     verdict: extras.verdict ?? null,
+    spec: extras.spec ?? null,
     thresholds: extras.thresholds ?? [],
     warnings,
     cautions: extras.cautions ?? [],

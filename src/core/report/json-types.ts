@@ -1,6 +1,6 @@
 import type { ModelId, ParameterUnit } from '../models/field-model';
 import type { ReadingType } from '../survey/survey';
-import type { FleetSummary, ThresholdResult, Verdict } from './report';
+import type { FleetSummary, SpecUse, ThresholdResult, Verdict } from './report';
 
 /**
  * The JSON the CLI prints and the library's `toJsonReport` returns (docs/CONTRACT.md), as
@@ -77,6 +77,10 @@ export interface JsonSurvey {
   /** Best model by AICc among converged fits, or null. */
   readonly best: ModelId | null;
   readonly comparison: readonly string[];
+  /** The model summaries read the coil from and why (summaryFit), or null when no coil model converged. */
+  readonly summaryModel: { readonly model: ModelId; readonly basis: 'spec' | 'coil-history' | 'best-physical' } | null;
+  /** The spec checked, or why none applied; null when no spec file was given. */
+  readonly spec: SpecUse | null;
   readonly verdict: Verdict | null;
   readonly thresholds: readonly ThresholdResult[];
   readonly warnings: readonly string[];

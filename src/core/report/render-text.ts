@@ -2,7 +2,7 @@ import type { FitResult, ParameterEstimate } from '../fit/fit-result';
 import { parameterQuantityKind } from '../models/parse-parameter-assignment';
 import { printable } from '../text/printable';
 import { displayUnit, formatNumber, formatQuantity } from '../units';
-import type { Report, SurveyReport, ThresholdResult, Verdict } from './report';
+import type { Report, SpecUse, SurveyReport, ThresholdResult, Verdict } from './report';
 
 /** How many set-aside rows the text report lists before pointing to --json. */
 const rejectedListed = 20;
@@ -58,7 +58,8 @@ function renderSurvey(survey: SurveyReport): string {
     lines.push('');
   }
 
-  if (survey.verdict) lines.push(...verdictLines(survey.verdict), '');
+  if (survey.spec?.applied === false) lines.push(...wrap(`Spec check: NOT MADE — ${survey.spec.reason ?? ''}`, 0, 2), '');
+  if (survey.verdict) lines.push(...verdictLines(survey.verdict, survey.spec ?? null), '');
   if (survey.thresholds.length > 0) lines.push(...thresholdLines(survey.thresholds), '');
 
   // The survey's and the best model's warnings in full; the other models' are counted
@@ -131,8 +132,11 @@ function comparisonTable(fits: readonly FitResult[], best: string | null): strin
   return table(['model', 'k', 'RMS residual', 'red. χ²', 'ΔAICc', 'weight'], rows);
 }
 
-function verdictLines(verdict: Verdict): string[] {
+function verdictLines(verdict: Verdict, spec: SpecUse | null): string[] {
   const lines = [`Spec check: ${verdict.status.toUpperCase()}` + (verdict.findings.length ? ` — ${verdict.findings.join(', ')}` : '')];
+  const which = [spec?.applied ? `spec ${spec.source}` : '', verdict.model ? `${verdict.model} model` : ''].filter((part) => part !== '').join(', ');
+  if (which !== '') lines.push(...wrap(`checked against ${which}`, 2, 4));
+  if (verdict.rule) lines.push(...wrap(`rule: ${verdict.rule}`, 2, 4));
   for (const check of verdict.checks) lines.push(...wrap(`[${check.status}] ${check.what}: ${check.evidence}`, 2, 4));
   for (const sentence of verdict.explanations) lines.push(...wrap(sentence, 2));
   return lines;

@@ -21,6 +21,11 @@ export interface SurveyReport {
   readonly comparison: readonly string[];
   /** Spec verdict (analyses), or null when no spec applies. */
   readonly verdict: Verdict | null;
+  /**
+   * Which spec was checked, when spec files were given: the one that applied, or why none
+   * did (a spec for another coil is never ignored silently). Null or absent: no spec given.
+   */
+  readonly spec?: SpecUse | null;
   readonly thresholds: readonly ThresholdResult[];
   readonly warnings: readonly string[];
   /** Cautions to show with thresholds and exposure (DOMAIN §4.5). */
@@ -30,6 +35,20 @@ export interface SurveyReport {
 }
 
 export type CheckStatus = 'pass' | 'fail' | 'inconclusive';
+
+/** The spec a survey was checked against (CONTRACT.md "Spec file"). */
+export interface SpecUse {
+  /** False when specs were given but none applies to this survey's coil. */
+  readonly applied: boolean;
+  /** The spec that applied ("specs.json" or "specs.json, spec 2"), or the file(s) given when none applied. */
+  readonly source: string;
+  /** Coil ids the applied spec names (null: it names none, so it applies to every coil); when none applied, every id the file names. */
+  readonly coils: readonly string[] | null;
+  /** The applied spec's model, or null. */
+  readonly model: ModelId | null;
+  /** Why no spec applied, in one sentence with what to do; null when one applied. */
+  readonly reason: string | null;
+}
 
 export interface SpecCheck {
   /** What was checked: "ampereTurns", "radius", "field at 0 mm". */
@@ -42,6 +61,8 @@ export interface SpecCheck {
   readonly evidence: string;
   /** What was compared: a label parameter, a field claim, or the far-field moment derived from the label. */
   readonly kind?: 'parameter' | 'claim' | 'moment';
+  /** Claims only: where the claimed distance is measured from (the device surface, or the winding). */
+  readonly datum?: 'surface' | 'winding';
   /**
    * For an inconclusive check: the measurement that would decide it, in one sentence
    * (added points and where, or the uncertainty to reach). Absent when decided.
@@ -53,6 +74,10 @@ export interface SpecCheck {
 
 export interface Verdict {
   readonly status: CheckStatus;
+  /** The decision rule in words (decide-conformity.ts decisionRule), naming ISO 14253-1 and JCGM 106. */
+  readonly rule?: string;
+  /** The model the checks were made with: the spec's. */
+  readonly model?: ModelId;
   readonly findings: readonly string[];
   readonly checks: readonly SpecCheck[];
   /** Sentences explaining findings (degraded vs mislabeled), and what would decide an inconclusive check. */

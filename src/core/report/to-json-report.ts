@@ -1,6 +1,8 @@
 import type { FitResult } from '../fit/fit-result';
 import type { RejectedRow } from '../survey/survey';
 import type { JsonFit, JsonParameter, JsonRejectedRow, JsonReport, JsonSurvey } from './json-types';
+import { reportSummaryFit } from '../analysis/summary-fit';
+import { getModel } from '../models';
 import type { Report, SurveyReport } from './report';
 
 /** Schema tag of the JSON report (CONTRACT.md). */
@@ -15,7 +17,7 @@ export const reportSchema = 'ringfall-report/1';
 export function toJsonReport(report: Report): JsonReport {
   const json: JsonReport = {
     schema: reportSchema,
-    surveys: report.surveys.map(surveyToJson),
+    surveys: report.surveys.map((survey) => surveyToJson(survey, report)),
   };
   if (report.rejected !== undefined) {
     json['rejected'] = report.rejected.map((row) => ({ source: row.source, ...rowToJson(row) }));
@@ -24,7 +26,7 @@ export function toJsonReport(report: Report): JsonReport {
   return json;
 }
 
-function surveyToJson(survey: SurveyReport): JsonSurvey {
+function surveyToJson(survey: SurveyReport, report: Report): JsonSurvey {
   return {
     source: survey.source,
     coil: survey.coil,
@@ -38,6 +40,8 @@ function surveyToJson(survey: SurveyReport): JsonSurvey {
     fits: survey.fits.map(fitToJson),
     best: survey.best,
     comparison: survey.comparison,
+    summaryModel: summaryModelJson(report, survey),
+    spec: survey.spec ?? null,
     verdict: survey.verdict,
     thresholds: survey.thresholds,
     warnings: survey.warnings,
@@ -48,6 +52,12 @@ function surveyToJson(survey: SurveyReport): JsonSurvey {
 
 function rowToJson(row: RejectedRow): JsonRejectedRow {
   return { line: row.line, column: row.column, value: row.value, code: row.code ?? null, reason: row.reason };
+}
+
+/** The model summaries use (reportSummaryFit): { model, basis: "spec" | "coil-history" | "best-physical" }, or null. */
+function summaryModelJson(report: Report, survey: SurveyReport): JsonSurvey['summaryModel'] {
+  const summary = reportSummaryFit(report, survey, getModel);
+  return summary === null ? null : { model: summary.fit.model, basis: summary.basis };
 }
 
 function fitToJson(fit: FitResult): JsonFit {

@@ -30,7 +30,7 @@ const contractExample = `{
   "model": "loop",
   "params": { "ampereTurns": "120 A", "radius": "45 mm" },
   "tolerance": "10%",
-  "claims": [ { "distance": "0 mm", "field": "1.7 mT", "tolerance": "15%" } ],
+  "claims": [ { "distance": "0 mm", "datum": "surface", "field": "1.7 mT", "tolerance": "15%" } ],
   "readingType": "dc"
 }`;
 
@@ -45,7 +45,8 @@ describe('parseSpecText()', () => {
     expect(spec!.params[1]!.tolerance).toEqual({ relative: 0.1, absolute: 0 });
     expectClose(spec!.claims[0]!.field, 1.7e-3, { rel: 1e-15 });
     expect(spec!.claims[0]!.tolerance.relative).toBeCloseTo(0.15, 15);
-    expect(spec!.claims[0]!.text).toBe('1.7 mT at 0 mm');
+    expect(spec!.claims[0]!.text).toBe('1.7 mT at 0 mm from the surface');
+    expect(spec!.claims[0]!.datum).toBe('surface');
     expect(spec!.readingType).toBe('dc');
     expect(spec!.crestFactor).toBeNull();
   });
@@ -102,6 +103,17 @@ describe('parseSpecText()', () => {
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "5%", "waveform": "triangle"}').code).toBe('SPEC_WAVEFORM');
     expect(thrown('{"model": "loop", "params": {"radius": "45 mm"}, "tolerance": "5%", "waveform": "sine", "crestFactor": 3}').code).toBe('SPEC_WAVEFORM');
     expect(thrown('{"model": "power-law", "params": {"amplitude": "1 T"}, "tolerance": "5%"}').code).toBe('SPEC_PARAM');
+  });
+
+  it('parseSpecText() reads a claim\'s datum, defaulting to the device surface as a label means it (SPEC_DATUM otherwise)', () => {
+    const claims = (datum: string) => `{"model": "loop", "tolerance": "5%", "claims": [{"distance": "50 mm", "field": "1 mT"${datum}}]}`;
+    // a label's "field at 50 mm" is measured from the device surface (common practice)
+    expect(parse(claims(''))[0]!.claims[0]!.datum).toBe('surface');
+    expect(parse(claims(', "datum": "winding"'))[0]!.claims[0]!.datum).toBe('winding');
+    expect(parse(claims(', "datum": "winding"'))[0]!.claims[0]!.text).toBe('1 mT at 50 mm from the winding');
+    const wrong = thrown(claims(', "datum": "tip"'));
+    expect(wrong.code).toBe('SPEC_DATUM');
+    expect(wrong.message).toContain('field claims[0].datum');
   });
 
   it('parseSpecText() rejects empty specs, bad claims and duplicate coils', () => {

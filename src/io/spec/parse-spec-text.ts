@@ -15,7 +15,7 @@ import { specError } from './spec-error';
  * @param modelIds the known ids, listed in messages
  * @throws RingfallError SPEC_JSON (syntax, with line and column), SPEC_EMPTY (also an empty
  *   file), SPEC_SHAPE, SPEC_KEY (also a key given twice in one object), SPEC_MODEL,
- *   SPEC_PARAM, SPEC_QUANTITY, SPEC_TOLERANCE, SPEC_READING_TYPE, SPEC_WAVEFORM,
+ *   SPEC_PARAM, SPEC_QUANTITY, SPEC_TOLERANCE, SPEC_READING_TYPE, SPEC_WAVEFORM, SPEC_DATUM,
  *   SPEC_DUPLICATE; each message names the line and field
  * @example parseSpecText('{"model":"loop","params":{"radius":"45 mm"},"tolerance":"5%"}', 'a.json', catalog, ids)[0].params[0].value // 0.045
  */

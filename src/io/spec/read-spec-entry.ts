@@ -1,5 +1,5 @@
 import type { ModelId, ParameterSpec, ParameterUnit } from '../../core/models/field-model';
-import type { Spec, SpecClaim, SpecParameter } from '../../core/analysis/spec/spec';
+import { defaultClaimDatum, type ClaimDatum, type Spec, type SpecClaim, type SpecParameter } from '../../core/analysis/spec/spec';
 import { parseQuantity, parseRelativePlusAbsolute, type QuantityKind, type RelativePlusAbsolute } from '../../core/units';
 import type { ReadingType } from '../../core/survey/survey';
 import { specError, type SpecPlace } from './spec-error';
@@ -21,7 +21,8 @@ export interface EntryContext {
 }
 
 const topKeys = ['coil', 'model', 'params', 'tolerance', 'tolerances', 'claims', 'readingType', 'waveform', 'crestFactor', 'note'];
-const claimKeys = ['distance', 'radial', 'field', 'tolerance', 'note'];
+const claimKeys = ['distance', 'datum', 'radial', 'field', 'tolerance', 'note'];
+const datums: readonly ClaimDatum[] = ['surface', 'winding'];
 /** Crest factors (peak/rms) of the waveforms a spec may name; a Map, so "constructor" is no waveform. */
 const waveforms: ReadonlyMap<string, number> = new Map([['sine', Math.SQRT2], ['square', 1]]);
 
@@ -97,15 +98,28 @@ function readClaims(value: unknown, defaultTolerance: unknown, at: (path: string
     if (distance.value < 0 || (radial?.value ?? 0) < 0 || !(field.value > 0)) {
       throw specError('SPEC_QUANTITY', 'Spec claim', `distance ${distance.text}, field ${field.text}: distances must be ≥ 0 and the field > 0`, place(''), 'Give the claimed field magnitude at a distance from the datum.');
     }
+    const datum = readDatum(claim['datum'], place('datum'));
     const tolerancePlace = claim['tolerance'] !== undefined ? place('tolerance') : defaultTolerance !== undefined ? at('tolerance') : place('');
     return {
       distance: distance.value,
+      datum,
       radial: radial?.value ?? 0,
       field: field.value,
       tolerance: readTolerance(claim['tolerance'] ?? defaultTolerance, 'field', tolerancePlace, `claim ${index + 1}`),
-      text: `${field.text} at ${distance.text}${radial ? `, ${radial.text} off axis` : ''}`,
+      text: `${field.text} at ${distance.text} from the ${datum}${radial ? `, ${radial.text} off axis` : ''}`,
     };
   });
+}
+
+/** A claim's datum: "surface" (default, as labels mean it) or "winding". */
+function readDatum(value: unknown, place: SpecPlace): ClaimDatum {
+  if (value === undefined || value === null) return defaultClaimDatum;
+  const datum = typeof value === 'string' ? datums.find((d) => d === value.trim().toLowerCase()) : undefined;
+  if (datum === undefined) {
+    throw specError('SPEC_DATUM', 'Spec claim datum', `found ${describe(value)}`, place,
+      'Use "surface" (distance from the outside of the device, where the probe touches it; the default) or "winding" (from the winding plane, or the near face of a coil with length).', value);
+  }
+  return datum;
 }
 
 function readModel(value: unknown, place: SpecPlace, context: EntryContext): string {

@@ -13,6 +13,7 @@ export type SpecErrorCode =
   | 'SPEC_TOLERANCE'
   | 'SPEC_READING_TYPE'
   | 'SPEC_WAVEFORM'
+  | 'SPEC_DATUM'
   | 'SPEC_DUPLICATE';
 
 /** Where a value sits in a spec file, for messages: source, 1-based line, and JSON path. */

@@ -9,18 +9,21 @@ import { html, type SafeHtml } from './html';
 import { largest, smallest } from './extent';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
-import { rankedFits } from './survey-facts';
+import { reportSummaryFit, summaryBasisWords } from '../../core/analysis/summary-fit';
+import { getModel } from '../../core/models';
 
 /** Colours for coils in the history chart, cycled; our own. */
 const seriesColours = ['#b23a48', '#2e6f95', '#3b8a5a', '#8c6d1f', '#7b4f9e', '#1f8a8a', '#a05a8c', '#707c3a'];
 
-/** The ampere-turns estimate of a survey: from the best-ranked converged model that has one. */
-export function ampereTurnsOf(survey: SurveyReport): { model: string; estimate: ParameterEstimate } | null {
-  for (const fit of rankedFits(survey)) {
-    const estimate = fit.params['ampereTurns'];
-    if (fit.converged && estimate) return { model: fit.model, estimate };
-  }
-  return null;
+/**
+ * The ampere-turns estimate of a survey from the model summaries use (reportSummaryFit:
+ * the spec's, else the coil history's, else the best physical model by AICc), with that
+ * model's name and why it was chosen; null when that model has no ampere-turns.
+ */
+export function ampereTurnsOf(report: Report, survey: SurveyReport): { model: string; basis: string; estimate: ParameterEstimate } | null {
+  const summary = reportSummaryFit(report, survey, getModel);
+  const estimate = summary?.fit.params['ampereTurns'];
+  return summary && estimate ? { model: summary.fit.model, basis: summaryBasisWords[summary.basis], estimate } : null;
 }
 
 /** Decimal year of an ISO date (2026-07-02 → 2026.5), or null. */
@@ -39,8 +42,9 @@ const amperes = (value: number) => formatQuantity(value, 'current', { significan
 /**
  * Fleet overview for a report with several surveys: the coils (surveys, latest date,
  * ampere-turn trend per year with interval, reference, flags and the sentences behind
- * them) when the report has a fleet section; every survey with its best model,
- * ampere-turns and verdict, linking to its section; and a history chart of ampere-turns
+ * them) when the report has a fleet section; every survey with the model its summary
+ * uses (the spec's, else the coil history's, else the best physical one; the same model
+ * the coils table names) and why, its ampere-turns and verdict, linking to its section; and a history chart of ampere-turns
  * per coil over time. `surveyIds[i]` is survey i's element id.
  */
 export function renderFleetSection(report: Report, surveyIds: readonly string[]): SafeHtml {
@@ -49,11 +53,12 @@ export function renderFleetSection(report: Report, surveyIds: readonly string[])
 ${report.fleet ? coilsBlock(report.fleet) : ''}
 ${history ? chartFigure('rf-fleet-history', 'History: ampere-turns of each coil over time', history) : html`<p class="rf-note">No history chart: no coil has two or more dated surveys with a fitted ampere-turns value.</p>`}
 <h3>Surveys</h3>
-<table class="rf-table rf-fleet-table"><thead><tr><th scope="col">coil</th><th scope="col">date</th><th scope="col">file</th><th scope="col">best model</th><th scope="col">ampere-turns (95% interval)</th><th scope="col">verdict</th></tr></thead>
+<table class="rf-table rf-fleet-table"><thead><tr><th scope="col">coil</th><th scope="col">date</th><th scope="col">file</th><th scope="col">model</th><th scope="col">ampere-turns (95% interval)</th><th scope="col">verdict</th></tr></thead>
 <tbody>${report.surveys.map((survey, i) => {
-    const at = ampereTurnsOf(survey);
-    const shown = at ? formatEstimate(at.estimate) : null;
-    return html`<tr><th scope="row" class="rf-nowrap"><a href="${`#${surveyIds[i] ?? ''}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a></th><td class="rf-nowrap">${survey.date ?? '—'}</td><td>${survey.source}</td><td>${survey.best ?? 'none'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})${at && at.model !== survey.best ? ` from ${at.model}` : ''}` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td></tr>`;
+    const summary = reportSummaryFit(report, survey, getModel);
+    const estimate = summary?.fit.params['ampereTurns'];
+    const shown = estimate ? formatEstimate(estimate) : null;
+    return html`<tr><th scope="row" class="rf-nowrap"><a href="${`#${surveyIds[i] ?? ''}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a></th><td class="rf-nowrap">${survey.date ?? '—'}</td><td>${survey.source}</td><td>${summary ? html`${summary.fit.model} <span class="rf-note">(${summaryBasisWords[summary.basis]})</span>` : 'no coil model converged'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td></tr>`;
   })}</tbody></table>
 </section>`;
 }
@@ -87,7 +92,7 @@ function historySeries(report: Report): [string, HistoryPoint[]][] {
     for (const coil of report.fleet.coils) for (const entry of coil.history) if (entry.ampereTurns) add(coil.coil, entry.date, entry.ampereTurns.value, entry.ampereTurns.ci95);
   } else {
     for (const survey of report.surveys) {
-      const at = ampereTurnsOf(survey);
+      const at = ampereTurnsOf(report, survey);
       if (survey.coil !== null && at) add(survey.coil, survey.date, at.estimate.value, at.estimate.ci95);
     }
   }

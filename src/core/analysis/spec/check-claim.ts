@@ -13,12 +13,15 @@ import type { SpecClaim } from './spec';
 
 /**
  * Check a claimed field at a point against the fitted model: the coil's own field there
- * (probe offset and background removed) with a 95 % interval by the delta method,
+ * (background removed) with a 95 % interval by the delta method,
  * Var(B) ≈ ∇_θBᵀ·C·∇_θB (JCGM 100:2008 §5.1.2), scaled into the label's reading type and
- * decided by decideConformity. Beside it, what the label's own coil and the fitted
- * inverse-square and power-law curves give at the same point: a claim that neither the
- * measured coil nor the label's coil reproduces, but a descriptive curve does, was most
- * likely extrapolated with a power law (DOMAIN.md §1.9).
+ * decided by decideConformity. The point follows the claim's datum: from the device
+ * surface (the default, what a label means) it is the claimed distance as a ruler reading,
+ * so the fitted probe offset is added and its uncertainty propagated; from the winding it
+ * is the distance from the coil's own datum, offset removed. Beside it, what the label's
+ * own coil (at the same point) and the fitted inverse-square and power-law curves give: a
+ * claim that neither the measured coil nor the label's coil reproduces, but a descriptive
+ * curve does, was most likely extrapolated with a power law.
  *
  * @param labelValues the spec model at the label's parameters (coil only), or null when the label does not give them all
  *
@@ -26,34 +29,37 @@ import type { SpecClaim } from './spec';
  */
 export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[], labelValues: Float64Array | null): CheckOutcome {
   const model = fitted.point.model;
-  const values = model.physical ? coilOnlyValues(model, fitted.values) : backgroundFree(fitted);
+  const fromSurface = claim.datum === 'surface' || !model.physical;
+  const values = fromSurface ? backgroundFree(fitted) : coilOnlyValues(model, fitted.values);
   const offset = model.physical ? probeOffsetOf(fitted) : 0;
+  // distance of the claimed point from the coil's datum, and as a ruler reading
+  const fieldPoint = fromSurface ? claim.distance + offset : claim.distance;
+  const reading = fieldPoint - offset;
   const factor = relation.factor;
   const value = fitted.point.field(values, claim.distance, claim.radial) * factor;
   const gradient = new Float64Array(values.length);
   fitted.point.gradient(values, claim.distance, claim.radial, gradient);
-  const mask = model.physical ? coilOnlyMask(model) : model.parameters.map((p) => parameterRole(p.name) === 'background');
+  const mask = fromSurface ? model.parameters.map((p) => parameterRole(p.name) === 'background') : coilOnlyMask(model);
   for (let j = 0; j < gradient.length; j += 1) gradient[j] = mask[j] ? 0 : gradient[j]! * factor;
   const variance = deltaVariance(fitted, gradient);
   const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
   const ci95 = half === null ? null : ([value - half, value + half] as const);
   const alternatives = naive.flatMap((other) => {
-    const reading = claim.distance - offset;
     const otherValue = fitted === other ? null : other.point.field(backgroundFree(other), reading, claim.radial) * factor;
     return otherValue === null || !Number.isFinite(otherValue) ? [] : [{ model: other.fit.model, value: otherValue, unit: 'T' as const }];
   });
-  const where = `field at ${describeValue(claim.distance, 'length')}${claim.radial > 0 ? `, ${describeValue(claim.radial, 'length')} off axis` : ''}`;
+  const where = `field at ${describeValue(claim.distance, 'length')} from the ${claim.datum}${claim.radial > 0 ? `, ${describeValue(claim.radial, 'length')} off axis` : ''}`;
   // The label's own coil at the claimed point: a claim it reproduces is the label's physics, not an extrapolation.
-  const labelField = labelValues === null ? null : fitted.point.field(labelValues, claim.distance, claim.radial);
+  const labelField = labelValues === null ? null : fitted.point.field(labelValues, fieldPoint, claim.radial);
   const labelZone = claim.tolerance.relative * claim.field + claim.tolerance.absolute;
   const labelConsistent = labelField !== null && Math.abs(labelField - claim.field) <= labelZone;
-  const base = { what: where, kind: 'claim' as const, expected: { value: claim.field, unit: 'T' }, measured: { value, unit: 'T', ci95 }, tolerance: claim.tolerance, alternatives };
+  const base = { what: where, kind: 'claim' as const, datum: claim.datum, expected: { value: claim.field, unit: 'T' }, measured: { value, unit: 'T', ci95 }, tolerance: claim.tolerance, alternatives };
   const side = value < claim.field ? 'low' : 'high';
   const claimText = describeTolerance(claim.field, 'field', claim.tolerance);
   const others = alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${describeValue(a.value, 'field')}`);
   if (labelField !== null) others.unshift(`the label's own coil ${describeValue(labelField, 'field')}`);
   const sideBySide = others.length === 0 ? '' : `; ${others.join(', ')}`;
-  const extrapolated = beyondSurvey(claim.distance, surveyedFieldRange(fitted, offset)) ? ' (outside the surveyed distances: the model extrapolates)' : '';
+  const extrapolated = beyondSurvey(fieldPoint, surveyedFieldRange(fitted, offset)) ? ' (outside the surveyed distances: the model extrapolates)' : '';
   const measuredText = `${describeValue(value, 'field', ci95)} from the ${model.id} fit${extrapolated} vs ${claimText} claimed${sideBySide}`;
   if (!relation.comparable) {
     return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}.`, toDecide: relation.note ?? '' }, role: 'claim', side, blocked: 'reading-type', matchesNaive: null };

@@ -36,15 +36,30 @@ export interface SpecParameter {
   readonly tolerance: RelativePlusAbsolute;
 }
 
-/** A claimed field at a point: "1.7 mT at 0 mm". */
+/**
+ * Where a claim's distance is measured from (CONTRACT.md "Spec file"): `surface`, the
+ * outside of the device where the probe touches it (what a label's "field at 50 mm" means
+ * in the trade, and the default), or `winding`, the coil's own datum (the winding plane of
+ * a flat coil, the near face of the winding of a coil with length; DESIGN.md "Distance
+ * datum"). A surface distance is a ruler distance as the survey reads it, so the check
+ * evaluates the fitted coil there with the fitted probe offset added.
+ */
+export type ClaimDatum = 'surface' | 'winding';
+
+/** Datum of a claim that does not state one: the device surface, as labels mean it. */
+export const defaultClaimDatum: ClaimDatum = 'surface';
+
+/** A claimed field at a point: "1.7 mT at 0 mm from the surface". */
 export interface SpecClaim {
-  /** Distance along the axis from the datum, m. */
+  /** Distance along the axis from `datum`, m. */
   readonly distance: number;
+  /** What `distance` is measured from. */
+  readonly datum: ClaimDatum;
   /** Radial offset from the axis, m (0 on axis). */
   readonly radial: number;
   /** Claimed field, T, in the spec's reading type. */
   readonly field: number;
   readonly tolerance: RelativePlusAbsolute;
-  /** As written, for messages: "1.7 mT at 0 mm". */
+  /** As written, for messages: "1.7 mT at 0 mm from the surface". */
   readonly text: string;
 }

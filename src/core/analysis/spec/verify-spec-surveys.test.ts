@@ -33,7 +33,7 @@ const label: Spec = {
     { name: 'ampereTurns', value: 120, text: '120 A', tolerance: { relative: 0.1, absolute: 0 } },
     { name: 'radius', value: 0.045, text: '45 mm', tolerance: { relative: 0.1, absolute: 0 } },
   ],
-  claims: [{ distance: 0, radial: 0, field: 1.7e-3, tolerance: { relative: 0.15, absolute: 0 }, text: '1.7 mT at 0 mm' }],
+  claims: [{ distance: 0, datum: 'winding', radial: 0, field: 1.7e-3, tolerance: { relative: 0.15, absolute: 0 }, text: '1.7 mT at 0 mm' }],
   readingType: 'dc', crestFactor: null,
 };
 const fitOptions = { models: ['loop', 'dipole', 'power-law', 'inverse-square'] as const, instrumentUncertainty: { relative: 0.01, absolute: 5e-7 } };

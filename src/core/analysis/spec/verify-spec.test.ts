@@ -88,12 +88,28 @@ describe('verifySpec()', () => {
 
   it('verifySpec() checks a claimed centre field with the coil\'s own field μ0NI/(2R)', () => {
     const centre = (mu0 * 120) / (2 * 0.045);
-    const claims = [{ distance: 0, radial: 0, field: centre, tolerance: { relative: 0.05, absolute: 0 }, text: 'centre' }];
+    const claims = [{ distance: 0, datum: 'winding' as const, radial: 0, field: centre, tolerance: { relative: 0.05, absolute: 0 }, text: 'centre' }];
     const verdict = verifySpec(label({ params: [], claims }), [loopFit(120, 0.5, 0.045, 0.0001)], 'dc');
     // probe offset and background are not the coil's field: the claim is met exactly
     expectClose(verdict.checks[0]!.measured.value, centre, { rel: 1e-6 });
     expect(verdict.checks[0]!.status).toBe('pass');
     expect(verdict.checks[0]!.kind).toBe('claim');
+  });
+
+  it('verifySpec() reads a claim\'s distance from the device surface by default: the coil is evaluated a probe offset further out', () => {
+    // on-axis loop field B(z) = μ0NI·R²/(2(R²+z²)^1.5) (Jackson, Classical Electrodynamics, 3rd ed., §5.5);
+    // a label's "field at 50 mm" is from the device surface (common practice), i.e. 50 mm plus the fitted offset of 2 mm from the winding
+    const onAxis = (z: number) => (mu0 * 120 * 0.045 ** 2) / (2 * (0.045 ** 2 + z ** 2) ** 1.5);
+    const claim = { distance: 0.05, radial: 0, field: onAxis(0.052), tolerance: { relative: 0.02, absolute: 0 } };
+    const surface = verifySpec(label({ params: [], claims: [{ ...claim, datum: 'surface', text: 'surface' }] }), [loopFit(120, 0.5, 0.045, 0.0001)], 'dc');
+    expectClose(surface.checks[0]!.measured.value, onAxis(0.052), { rel: 1e-6 });
+    expect(surface.checks[0]!.status).toBe('pass');
+    expect(surface.checks[0]!.datum).toBe('surface');
+    expect(surface.checks[0]!.what).toBe('field at 50.0 mm from the surface');
+    // the same figure claimed from the winding plane is 2 mm nearer the coil, 6.8 % higher (same formula): outside 2 %
+    const winding = verifySpec(label({ params: [], claims: [{ ...claim, datum: 'winding', text: 'winding' }] }), [loopFit(120, 0.5, 0.045, 0.0001)], 'dc');
+    expectClose(winding.checks[0]!.measured.value, onAxis(0.05), { rel: 1e-6 });
+    expect(winding.checks[0]!.status).toBe('fail');
   });
 
   it('verifySpec() flags a claim that only an inverse-square extrapolation reproduces', () => {
@@ -104,7 +120,7 @@ describe('verifySpec()', () => {
       { name: 'background', unit: 'T', value: 0, stderr: 1e-7 },
     ], { aicc: 50 });
     const claimed = (2e-3 * 0.012 ** 2) / (0.06 - 0.002) ** 2;
-    const claims = [{ distance: 0.06, radial: 0, field: claimed, tolerance: { relative: 0.1, absolute: 0 }, text: 'far' }];
+    const claims = [{ distance: 0.06, datum: 'winding' as const, radial: 0, field: claimed, tolerance: { relative: 0.1, absolute: 0 }, text: 'far' }];
     const verdict = verifySpec(label({ params: [], claims }), [loopFit(120, 0.5, 0.045, 0.0001), inverseSquare], 'dc');
     expect(verdict.checks[0]!.alternatives![0]!.model).toBe('inverse-square');
     expectClose(verdict.checks[0]!.alternatives![0]!.value, claimed, { rel: 1e-9 });

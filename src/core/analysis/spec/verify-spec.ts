@@ -3,6 +3,7 @@ import { getModel } from '../../models';
 import type { CheckStatus, Verdict } from '../../report/report';
 import type { ReadingType } from '../../survey/survey';
 import { convergedFit } from '../best-fit';
+import { decisionRule } from '../decide-conformity';
 import { coilOnlyValues } from '../coil-only-values';
 import { fittedModel, type FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
@@ -36,6 +37,8 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
     const tried = fits.some((f) => f.model === spec.model);
     return {
       status: 'inconclusive',
+      rule: decisionRule,
+      model: spec.model,
       findings: ['not-fitted'],
       checks: [],
       explanations: [`The spec (${spec.source}) is for the ${spec.model} model, which ${tried ? 'did not converge on this survey' : 'was not fitted'}; ${tried ? 'see its warnings' : `fit it with --model ${spec.model}`}.`],
@@ -70,7 +73,7 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   const notes = relation.note && relation.comparable ? [relation.note] : [];
   if (atLabel && 'unavailable' in atLabel) notes.push(atLabel.unavailable);
   if (fit.warnings.length > 0) notes.push(`The ${fit.model} fit behind this verdict has ${fit.warnings.length} warning${fit.warnings.length === 1 ? '' : 's'} (listed with the fit); read ${fit.warnings.length === 1 ? 'it' : 'them'} before acting on the verdict.`);
-  return { status, findings, checks: outcomes.map((o) => o.check), explanations: [...explanations, ...notes] };
+  return { status, rule: decisionRule, model: spec.model, findings, checks: outcomes.map((o) => o.check), explanations: [...explanations, ...notes] };
 }
 
 /** The spec model at the label's values (coil only) when the label gives every amplitude and geometry parameter; else null. */
