@@ -16,6 +16,8 @@ import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } fr
 import { findSurveyFiles } from '../find-survey-files';
 import type { CommandContext } from '../main';
 import { checksStatus } from '../checks-status';
+import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
+import { fitRunSettings, type RunInput } from '../../core/report/run-record';
 
 /**
  * `ringfall fit FILE... [options]` (CONTRACT.md): import every survey in the files (folders
@@ -34,14 +36,16 @@ export function registerFit(program: Command, context: CommandContext): void {
       .argument('<files...>', 'survey CSV files, or folders to search for them'),
   ).action(async (files: string[], flags: FitFlags) => {
     const options = readFitFlags(flags);
+    const time = runTime();
     // a side file's folder is checked before any fitting, so a typo costs nothing
     for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
-    const { reports, problems } = fitFiles(findSurveyFiles(files), options, specs);
+    const { reports, problems, inputs } = fitFiles(findSurveyFiles(files), options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${problem}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;
-    const report: Report = { surveys: reports };
+    const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import }));
+    const report: Report = { surveys: reports, run };
     writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
     context.setExitCode(checksStatus(report));
@@ -82,29 +86,33 @@ function writeOutput(path: string, option: string, text: string): void {
 /**
  * Import and analyse every survey of the given files: one SurveyReport per survey (surveys
  * with too few readings get a report with no fits and a warning saying why; rows that
- * belong to no survey are named in the first report's warnings), and one message per file
- * that could not be read or imported.
+ * belong to no survey are named in the first report's warnings), one message per file
+ * that could not be read or imported, and every file with its SHA-256 for the run record.
  */
-export function fitFiles(paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = []): { reports: SurveyReport[]; problems: string[] } {
+export function fitFiles(paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = []): { reports: SurveyReport[]; problems: string[]; inputs: RunInput[] } {
   const settings: SurveyAnalysisSettings = { fit: options.fit, specs, thresholds: options.thresholds };
   const reports: SurveyReport[] = [];
   const problems: string[] = [];
+  const inputs: RunInput[] = [];
   for (const path of paths) {
     try {
-      reports.push(...fitFile(path, options, settings));
+      reports.push(...fitFile(path, options, settings, inputs));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       problems.push(error.message);
     }
   }
-  return { reports, problems };
+  return { reports, problems, inputs };
 }
 
-function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings): SurveyReport[] {
+function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, inputs: RunInput[]): SurveyReport[] {
   let text: string;
   try {
-    text = readFileSync(path, 'utf8');
+    const bytes = readFileSync(path);
+    inputs.push(describeBytes(path, bytes));
+    text = bytes.toString('utf8');
   } catch (cause) {
+    inputs.push(unreadableInput(path, `could not be read: ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}`));
     throw new RingfallError('INPUT_UNREADABLE', `Cannot read "${path}": ${(cause as Error).message}. Check the path and its permissions.`, { value: path, cause });
   }
   const imported = importSurveys(text, { source: path, ...options.import });

@@ -7,6 +7,9 @@ import { parameterRole } from '../../core/analysis/parameter-roles';
 import { exampleValue, getModel, parseParameterAssignment } from '../../core/models';
 import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
 import type { CommandContext } from '../main';
+import { renderRunText } from '../../core/report/render-text';
+import type { RunRecord, RunValue } from '../../core/report/run-record';
+import { cliRunRecord, runTime } from '../run-record';
 
 interface PlanFlags {
   model: string;
@@ -50,9 +53,11 @@ export function registerPlan(program: Command, _context: CommandContext): void {
     .option('--interest <names>', 'parameters that matter, comma-separated (default amplitude and geometry)')
     .option('--json', 'print the plan as JSON')
     .action((flags: PlanFlags) => {
+      const time = runTime();
       const { problem, options } = readPlanFlags(flags);
       const plan = planMeasurements(problem, options);
-      process.stdout.write(flags.json ? `${JSON.stringify(planToJson(problem, plan), null, 2)}\n` : renderPlanText(problem, plan));
+      const run = planRun(problem, options, time);
+      process.stdout.write(flags.json ? `${JSON.stringify({ run, ...planToJson(problem, plan) }, null, 2)}\n` : `${renderPlanText(problem, plan)}\n${renderRunText(run)}`);
     });
 }
 
@@ -101,6 +106,24 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
       ...(compare ? { compare } : {}),
     },
   };
+}
+
+/** The run record of a plan: no input files; every setting the plan was made with, SI. */
+function planRun(problem: DesignProblem, options: Parameters<typeof planMeasurements>[1], time: string): RunRecord {
+  const m = (value: number): RunValue => ({ value, unit: 'm' });
+  return cliRunRecord('plan', time, [], {
+    model: problem.model.id,
+    parameters: Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, { value: problem.values[j]!, unit: p.unit }])),
+    fixed: problem.model.parameters.filter((_, j) => !problem.free.includes(j)).map((p) => p.name),
+    points: options.count,
+    reach: [m(options.reach[0]), m(options.reach[1])],
+    probeSize: m(options.probeSize),
+    readingUncertainty: { relative: problem.noise.relative, absolute: { value: problem.noise.absolute, unit: 'T' } },
+    positionUncertainty: m(problem.noise.position),
+    offAxis: options.maxRadial === undefined ? null : m(options.maxRadial),
+    interest: options.interest === undefined ? null : [...options.interest],
+    compare: options.compare === undefined ? null : options.compare.map((p) => m(p.distance)),
+  });
 }
 
 function readReach(text: string): readonly [number, number] {

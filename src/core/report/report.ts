@@ -1,6 +1,7 @@
 import type { FitResult } from '../fit/fit-result';
 import type { ModelId } from '../models/field-model';
 import type { ReadingType, RejectedRow } from '../survey/survey';
+import type { RunRecord } from './run-record';
 
 /**
  * The Report: everything a view shows, computed once in core. Views (CLI text, JSON,
@@ -132,4 +133,6 @@ export interface FleetSummary {
 export interface Report {
   readonly surveys: readonly SurveyReport[];
   readonly fleet?: FleetSummary;
+  /** How the report was made (version, time, input files and their SHA-256, settings); CONTRACT.md `run`. */
+  readonly run?: RunRecord;
 }

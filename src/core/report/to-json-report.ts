@@ -10,10 +10,10 @@ export const reportSchema = 'ringfall-report/1';
  * contract (notes, cautions, comparison, correlation) are additions the contract allows.
  */
 export function toJsonReport(report: Report): Record<string, unknown> {
-  const json: Record<string, unknown> = {
-    schema: reportSchema,
-    surveys: report.surveys.map(surveyToJson),
-  };
+  const json: Record<string, unknown> = { schema: reportSchema };
+  // how the report was made comes first, so a reader of the file sees it before the numbers
+  if (report.run !== undefined) json['run'] = report.run;
+  json['surveys'] = report.surveys.map(surveyToJson);
   if (report.fleet !== undefined) json['fleet'] = report.fleet;
   return json;
 }
