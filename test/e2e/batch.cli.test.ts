@@ -15,8 +15,9 @@ interface Run {
   readonly stderr: string;
 }
 
+// a fixed time of the run (SOURCE_DATE_EPOCH), so two runs can be compared byte for byte
 function ringfall(...args: string[]): Run {
-  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, maxBuffer: 1 << 28 });
+  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, maxBuffer: 1 << 28, env: { ...process.env, SOURCE_DATE_EPOCH: '1773480600' } });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 

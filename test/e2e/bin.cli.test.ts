@@ -8,8 +8,9 @@ import { describe, expect, it } from 'vitest';
 // both must print the same reports (common practice: a bundler must not change behaviour).
 const root = join(import.meta.dirname, '..', '..');
 
+// a fixed time of the run (SOURCE_DATE_EPOCH), so two runs can be compared byte for byte
 function ringfall(env: Record<string, string>, ...args: string[]) {
-  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, ...env } });
+  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, SOURCE_DATE_EPOCH: '1773480600', ...env } });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 
