@@ -194,7 +194,7 @@ describe('ringfall batch with broken files and hostile coil ids', () => {
     // a unit option of the wrong kind is refused once, before any file is fitted (not as every file unreadable, exit 1)
     const unit = ringfall('batch', 'sample-data', '--distance-unit', 'mT');
     expect(unit.status).toBe(2);
-    expect(unit.stderr).toBe('ringfall: --distance-unit: "mT" is not usable. Give a length unit: m, cm, mm, um, in.\n');
+    expect(unit.stderr).toBe('ringfall: --distance-unit: "mT" is not usable. Give a length unit: m, cm, mm, µm, in.\n');
     expect(unit.stdout).toBe('');
     // an --out that is a file is refused before any file is fitted (no progress line), not after the whole run
     const file = join(temporaryFolder(), 'taken');

@@ -204,7 +204,7 @@ describe('web page', () => {
     expect(Number(await radius.getAttribute('data-value'))).toBe(0.045);
     await expect(radius.innerText()).resolves.toContain('fixed');
     // ICNIRP 2010 general public, 25–400 Hz: 200 µT (DOMAIN.md §4.2)
-    await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 uT');
+    await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 µT');
     await andWaitForReport(() => page.locator('.fix-row button').last().click());
   });
 

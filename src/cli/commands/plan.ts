@@ -30,7 +30,7 @@ const collect = (value: string, previous: string[]) => [...previous, value];
 
 /**
  * `ringfall plan --model ID --set NAME=QTY... [--fix NAME=QTY] [--points N]
- * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1uT]
+ * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1µT]
  * [--position-uncertainty 0.5mm] [--off-axis 60mm] [--interest NAME,…] [--json]`:
  * where to put the probe so that the parameters that matter are determined
  * (planMeasurements), with the expected 95 % intervals of the recommended plan, an evenly
@@ -47,7 +47,7 @@ export function registerPlan(program: Command, _context: CommandContext): void {
     .option('--reach <near..far>', 'nearest and farthest probe distance, e.g. 5mm..200mm (default 0 to 4× the coil size)')
     .option('--probe-size <qty>', 'least spacing between positions (default min(5 mm, reach/(2·points)))')
     .option('--compare <list>', 'your planned distances, e.g. 10mm,20mm,40mm')
-    .option('--uncertainty <rel+abs>', 'standard uncertainty of one reading', '2%+1uT')
+    .option('--uncertainty <rel+abs>', 'standard uncertainty of one reading', '2%+1µT')
     .option('--position-uncertainty <qty>', 'standard uncertainty of each distance', '0.5mm')
     .option('--off-axis <qty>', 'also consider off-axis positions up to this radial offset')
     .option('--interest <names>', 'parameters that matter, comma-separated (default amplitude and geometry)')
