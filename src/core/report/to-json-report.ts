@@ -77,10 +77,31 @@ function fitToJson(fit: FitResult): Record<string, unknown> {
     uncertaintyScale: fit.uncertaintyScale,
     freeParameters: fit.freeParameters,
     correlation: fit.correlation ? fit.correlation.map(finite) : null,
+    covariance: fit.covariance ? fit.covariance.map(finite) : null,
+    points: pointsToJson(fit.points),
     ...(fit.moment
       ? { moment: { value: finite(fit.moment.value), unit: 'A·m²', stderr: finite(fit.moment.stderr), ci95: fit.moment.ci95 ? [finite(fit.moment.ci95[0]), finite(fit.moment.ci95[1])] : null } }
       : {}),
     warnings: fit.warnings,
+  };
+}
+
+/**
+ * Per-reading points as columns (one array per quantity, SI), so a saved report can be
+ * opened again and drawn with its charts (fromJsonReport). `outlier` only when a robust
+ * fit flagged readings.
+ */
+function pointsToJson(points: FitResult['points']): Record<string, unknown> {
+  const column = (read: (p: FitResult['points'][number]) => number | null) => points.map((p) => finite(read(p)));
+  return {
+    line: points.map((p) => p.line),
+    distance: column((p) => p.distance),
+    radial: column((p) => p.radial),
+    field: column((p) => p.field),
+    predicted: column((p) => p.predicted),
+    residual: column((p) => p.residual),
+    standardUncertainty: column((p) => p.standardUncertainty),
+    ...(points.length > 0 && 'outlier' in points[0]! ? { outlier: points.map((p) => p.outlier === true) } : {}),
   };
 }
 
