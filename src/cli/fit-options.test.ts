@@ -80,8 +80,8 @@ describe('readFitFlags(flags)', () => {
   });
 
   it('readFitFlags() refuses a --field-unit or --distance-unit that is not a unit of that kind before any file is read (OPTION_VALUE)', () => {
-    expect(() => parse('--field-unit', 'furlong')).toThrow(/--field-unit: "furlong" is not usable\. Give a field unit: T, mT, uT, nT, kG, G, mG\./);
-    expect(() => parse('--distance-unit', 'mT')).toThrow(/--distance-unit: "mT" is not usable\. Give a length unit: m, cm, mm, um, in\./);
+    expect(() => parse('--field-unit', 'furlong')).toThrow(/--field-unit: "furlong" is not usable\. Give a field unit: T, mT, µT, nT, kG, G, mG\./);
+    expect(() => parse('--distance-unit', 'mT')).toThrow(/--distance-unit: "mT" is not usable\. Give a length unit: m, cm, mm, µm, in\./);
     expect(() => parse('--field-unit', 'mm')).toThrow(expect.objectContaining({ code: 'OPTION_VALUE', value: 'mm' }));
     expect(parse('--field-unit', 'G', '--distance-unit', 'in').import).toEqual({ fieldUnit: 'G', distanceUnit: 'in' });
   });

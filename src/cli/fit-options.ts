@@ -52,10 +52,10 @@ export function addFitOptions(command: Command): Command {
   return command
     .option('--model <ids>', `models to fit, comma-separated (default ${defaultModels.join(',')})`, collect)
     .option('--fix <name=qty>', 'hold a parameter at a value, e.g. radius=45mm (repeatable)', collect)
-    .option('--uncertainty <rel%+abs>', 'standard uncertainty of one reading, e.g. 1.5%+2uT')
+    .option('--uncertainty <rel%+abs>', 'standard uncertainty of one reading, e.g. 1.5%+2µT')
     .option('--position-uncertainty <qty>', 'standard uncertainty of each distance, e.g. 0.5mm')
     .option('--distance-unit <unit>', 'unit of distance columns whose header states none (mm, cm, m, in)')
-    .option('--field-unit <unit>', 'unit of field columns whose header states none (mT, uT, G, …)')
+    .option('--field-unit <unit>', 'unit of field columns whose header states none (mT, µT, G, …)')
     .option('--json', 'print the JSON report (SI units) instead of text')
     .option('--robust <loss>', 'robust loss that flags outliers: huber or soft-l1')
     .option('--seed <n>', 'seed of the multi-start (same seed, same report)', '1')
@@ -76,7 +76,7 @@ export function addFitOptions(command: Command): Command {
  *   `TOLERANCE_SYNTAX` (--uncertainty); `OPTION_VALUE` (--position-uncertainty < 0,
  *   --model with no id, --field-unit or --distance-unit not a unit of that kind,
  *   --robust or --seed not understood); `THRESHOLD_LEVEL` and `THRESHOLD_FREQUENCY` (--threshold, parseThresholdLevel).
- * @example readFitFlags({ fix: ['radius=45mm'], uncertainty: '1.5%+2uT' }).fit.fixed // { radius: 0.045 }
+ * @example readFitFlags({ fix: ['radius=45mm'], uncertainty: '1.5%+2µT' }).fit.fixed // { radius: 0.045 }
  */
 export function readFitFlags(flags: FitFlags): FitCommandOptions {
   const ids = [...new Set((flags.model ?? []).flatMap((list) => list.split(',')).map((id) => id.trim()).filter((id) => id !== ''))];

@@ -1,5 +1,6 @@
 import type { ColumnDetection, ColumnMapping, ColumnRole } from '../io';
-import { unitsOfKind } from '../core/units';
+import { displaySymbol, unitsOfKind } from '../core/units';
+import { pageText } from './page-words';
 import { h, uniqueId, type Child } from './dom';
 import type { FileOutcome } from './pipeline';
 
@@ -46,7 +47,7 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
       const fillUnits = () => {
         const chosen = role.value as ColumnRole | 'ignore';
         const options = unitsFor(chosen);
-        unit.replaceChildren(h('option', { value: '' }, options.length === 0 ? '—' : column.unit ? `as read (${column.unit})` : 'choose…'),
+        unit.replaceChildren(h('option', { value: '' }, options.length === 0 ? '—' : column.unit ? `as read (${displaySymbol(column.unit)})` : 'choose…'),
           ...options.map((u) => h('option', { value: u }, u)));
         unit.disabled = options.length === 0;
       };
@@ -56,7 +57,7 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
       return h('li', { class: 'column-card' },
         h('p', { class: 'column-head' }, h('span', { class: 'muted' }, `column ${column.index + 1}`), ' ', h('code', {}, column.header)),
         h('div', { class: 'row' }, role, unit),
-        h('p', { class: 'muted small' }, column.reason));
+        h('p', { class: 'muted small' }, pageText(column.reason)));
     });
     body.push(h('ul', { class: 'column-cards' }, rows));
     const apply = h('button', { type: 'button', class: 'primary' }, 'Use this reading and refit');
@@ -71,14 +72,14 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
     body.push(h('div', { class: 'row' }, apply, reset));
   }
   if (outcome.skipped.length > 0) {
-    body.push(h('ul', { class: 'warn-list' }, outcome.skipped.map((s) => h('li', {}, `${s.coil ?? 'no coil'} ${s.date ?? ''}: ${s.reason}`))));
+    body.push(h('ul', { class: 'warn-list' }, outcome.skipped.map((s) => h('li', {}, `${s.coil ?? 'no coil'} ${s.date ?? ''}: ${pageText(s.reason)}`))));
   }
   if (outcome.rowsNotUsedTotal > 0) {
     body.push(h('h4', {}, `Rows not used (${outcome.rowsNotUsedTotal})`));
     body.push(h('table', { class: 'grid' },
       h('thead', {}, h('tr', {}, ['line', 'column', 'cell', 'reason'].map((t) => h('th', { scope: 'col' }, t)))),
       h('tbody', {}, outcome.rowsNotUsed.map((row) => h('tr', {},
-        h('td', { class: 'num' }, String(row.line)), h('td', {}, row.column ?? '—'), h('td', {}, h('code', {}, row.value ?? '')), h('td', {}, row.reason))))));
+        h('td', { class: 'num' }, String(row.line)), h('td', {}, row.column ?? '—'), h('td', {}, h('code', {}, row.value ?? '')), h('td', {}, pageText(row.reason)))))));
     if (outcome.rowsNotUsedTotal > outcome.rowsNotUsed.length) {
       body.push(h('p', { class: 'muted' }, `The first ${outcome.rowsNotUsed.length} are listed, in line order; the JSON export also lists every row set aside inside a fitted survey.`));
     }

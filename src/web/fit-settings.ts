@@ -14,7 +14,7 @@ export interface FitSettings {
   readonly models: readonly ModelId[];
   /** Parameters held fixed: name and a quantity with unit, e.g. { name: 'radius', value: '45 mm' }. */
   readonly fixes: readonly { readonly name: string; readonly value: string }[];
-  /** Standard uncertainty of one reading, "1.5%+2uT"; empty for none. */
+  /** Standard uncertainty of one reading, "1.5%+2µT"; empty for none. */
   readonly uncertainty: string;
   /** Standard uncertainty of each distance, "0.5 mm"; empty for none. */
   readonly positionUncertainty: string;

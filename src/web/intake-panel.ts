@@ -1,4 +1,5 @@
 import { h, replaceChildren } from './dom';
+import { pageText } from './page-words';
 import type { FileOutcome } from './pipeline';
 
 /** A file the page holds: its text and the outcome of the last run, if any. */
@@ -63,7 +64,7 @@ export function intakePanel(context: IntakeContext): { element: HTMLElement; sho
       remove.addEventListener('click', () => context.removeFile(file.id));
       return h('li', { class: outcome?.error ? 'file file-error' : 'file', 'data-file': file.name },
         h('span', { class: 'file-name' }, file.name), ' ', state, ' ', remove,
-        outcome?.error ? h('p', { class: 'file-message', role: 'alert' }, h('code', {}, outcome.error.code), ' ', outcome.error.message) : null);
+        outcome?.error ? h('p', { class: 'file-message', role: 'alert', 'data-code': outcome.error.code }, pageText(outcome.error.message)) : null);
     }));
   };
   const element = h('section', { class: 'panel', 'aria-labelledby': 'intake-heading' },

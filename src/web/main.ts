@@ -9,6 +9,7 @@ import { modelLookup, parameterNames, parameterUnit } from './fit-stage';
 import { defaultSettings, parseFitSettings, type FitSettings } from './fit-settings';
 import { intakePanel, type FileEntry } from './intake-panel';
 import type { ColumnMapping } from '../io';
+import { pageReport, pageText } from './page-words';
 import { reportPanel } from './report-panel';
 import { reportStyles } from './report-view';
 import { firstSample, fleetSpec, sampleSpecs, sampleSurveys } from './sample-files';
@@ -111,11 +112,12 @@ function refit(): void {
     files = files.map((f) => ({ ...f, outcome: outcome.files.find((o) => o.id === f.id) ?? f.outcome }));
     intake.showFiles(files);
     showColumns();
-    settingsUi.showErrors(outcome.settingErrors);
-    levels.showErrors(outcome.settingErrors);
+    const settingErrors = outcome.settingErrors.map((e) => ({ ...e, message: pageText(e.message) }));
+    settingsUi.showErrors(settingErrors);
+    levels.showErrors(settingErrors);
     performance.mark('ringfall:panels');
     try {
-      report.showReport(outcome.report, elapsedMs);
+      report.showReport(pageReport(outcome.report), elapsedMs);
     } catch (error) {
       // a defect in drawing, not in the user's data: say so rather than leave the page waiting
       report.showMessage(`The report could not be drawn (${String(error)}). The JSON and CSV exports still hold the results; please report this with the file.`, 'failed');

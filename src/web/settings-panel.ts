@@ -114,7 +114,7 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
   const element = h('section', { class: 'panel', 'aria-labelledby': 'settings-heading' },
     h('h2', { id: 'settings-heading' }, 'How to fit'),
     models, fixes,
-    text('uncertainty', 'Instrument uncertainty of one reading', 'e.g. 1.5%+2uT', 'Standard uncertainty as % of reading plus a floor. Empty: estimated from the scatter.'),
+    text('uncertainty', 'Instrument uncertainty of one reading', 'e.g. 1.5%+2µT', 'Standard uncertainty as % of reading plus a floor. Empty: estimated from the scatter.'),
     text('positionUncertainty', 'Position uncertainty of each distance', 'e.g. 0.5 mm', 'Standard uncertainty of the probe position; weighs near-coil readings (effective variance).'),
     spec);
 

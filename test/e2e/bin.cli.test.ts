@@ -14,8 +14,9 @@ const root = join(import.meta.dirname, '..', '..');
 let scratch = '';
 let pkg = '';
 
+// a fixed time of the run (SOURCE_DATE_EPOCH), so two runs can be compared byte for byte
 function run(folder: string, env: Record<string, string>, ...args: string[]) {
-  const result = spawnSync(process.execPath, [join(folder, 'bin', 'ringfall.mjs'), ...args], { cwd: folder, encoding: 'utf8', timeout: 120_000, maxBuffer: 1 << 26, env: { ...process.env, ...env } });
+  const result = spawnSync(process.execPath, [join(folder, 'bin', 'ringfall.mjs'), ...args], { cwd: folder, encoding: 'utf8', timeout: 120_000, maxBuffer: 1 << 26, env: { ...process.env, SOURCE_DATE_EPOCH: '1773480600', ...env } });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 

@@ -100,7 +100,7 @@ describe('ringfall fit (CONTRACT.md)', () => {
     const run = ringfall('fit', healthy, 'sample-data/flawed/no-field-unit.csv', '--field-unit', 'furlong');
     expect(run.status).toBe(2);
     expect(run.stdout).toBe('');
-    expect(run.stderr).toBe('ringfall: --field-unit: "furlong" is not usable. Give a field unit: T, mT, uT, nT, kG, G, mG.\n');
+    expect(run.stderr).toBe('ringfall: --field-unit: "furlong" is not usable. Give a field unit: T, mT, µT, nT, kG, G, mG.\n');
   });
 
   const usage: [string, string[], string][] = [

@@ -38,7 +38,7 @@ describe('ringfall predict (CLI)', () => {
     // DOMAIN.md §9 row 23: Helmholtz centre of 100 A·turns, R = 0.15 m → 5.994508574e-4 T = 0.5995 mT
     const run = ringfall('predict', '--model', 'coil-pair', '--set', 'ampereTurns=100A', '--set', 'radius=150mm', '--set', 'separation=150mm', '--at', '0mm');
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain('599.5 uT');
+    expect(run.stdout).toContain('599.5 µT');
     expect(run.stdout).toContain('5.995 G');
     expect(run.stdout).toContain('from the midpoint between the coils');
   });

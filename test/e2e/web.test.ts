@@ -125,7 +125,10 @@ describe('web page', () => {
     const good = scratchFile('good-loop.csv', loopSurveyText('GOOD-1'));
     await upload([broken, good]);
     const brokenItem = page.locator('#file-list li', { hasText: 'no-field-unit.csv' });
-    await expect(brokenItem.locator('.file-message').innerText()).resolves.toMatch(/IMPORT_FIELD_UNIT_MISSING.*"B".*Write the unit in the header/s);
+    // the page says what to do in its own controls; the code stays in the data, not in the words
+    await expect(brokenItem.locator('.file-message').innerText()).resolves.toMatch(/"B".*Write the unit in the header.*What the files said/s);
+    await expect(brokenItem.locator('.file-message').innerText()).resolves.not.toMatch(/IMPORT_|--field-unit/);
+    await expect(brokenItem.locator('.file-message').getAttribute('data-code')).resolves.toBe('IMPORT_FIELD_UNIT_MISSING');
     expect(await page.locator('#file-list li', { hasText: 'good-loop.csv' }).locator('.file-message').count()).toBe(0);
     await expect(page.locator('.rf-survey h2').first().innerText()).resolves.toContain('GOOD-1');
   });
@@ -156,7 +159,8 @@ describe('web page', () => {
       document.dispatchEvent(drop);
     });
     const item = page.locator('#file-list li', { hasText: 'moved-away.csv' });
-    await expect(item.locator('.file-message').innerText()).resolves.toMatch(/FILE_UNREADABLE.*could not read this file.*NotReadableError.*choose it again/s);
+    await expect(item.locator('.file-message').innerText()).resolves.toMatch(/could not read this file.*NotReadableError.*choose it again/s);
+    await expect(item.locator('.file-message').getAttribute('data-code')).resolves.toBe('FILE_UNREADABLE');
     await expect(page.locator('.rf-survey h2').first().innerText()).resolves.toContain('GOOD-2');
     await removeAllFiles();
   });
@@ -204,7 +208,7 @@ describe('web page', () => {
     expect(Number(await radius.getAttribute('data-value'))).toBe(0.045);
     await expect(radius.innerText()).resolves.toContain('fixed');
     // ICNIRP 2010 general public, 25–400 Hz: 200 µT (DOMAIN.md §4.2)
-    await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 uT');
+    await expect(page.locator('.rf-thresholds').innerText()).resolves.toContain('200 µT');
     await andWaitForReport(() => page.locator('.fix-row button').last().click());
   });
 

@@ -27,11 +27,13 @@ describe('schema/*.schema.json', () => {
     expect((readSchema('spec') as { $defs: { spec: { properties: { model: { enum: string[] } } } } }).$defs.spec.properties.model.enum).toEqual([...modelIds]);
   });
 
-  it('report: accepts toJsonReport\'s output and an added top-level run object, refuses a wrong tag, a missing key or a wrong type', () => {
+  it('report: accepts toJsonReport\'s output and a run record, refuses a wrong tag, a missing key or a wrong type', () => {
     const json = report();
     expect(schemaErrors('report', json)).toEqual([]);
-    // CONTRACT.md: fields may be added; a provenance block is one
-    expect(schemaErrors('report', { ...json, run: { version: '0.1.0' } })).toEqual([]);
+    // CONTRACT.md `run`: how the report was made, with each input's SHA-256
+    const run = { tool: 'ringfall', version: '0.1.0', command: 'fit', time: '2026-03-14T09:30:00Z', inputs: [{ name: 'a.csv', sha256: 'e3b0c44298fc1c149afbf4c8996fb92427ae41e4649b934ca495991b7852b855', bytes: 0 }], settings: { seed: 1 } };
+    expect(schemaErrors('report', { ...json, run })).toEqual([]);
+    expect(schemaErrors('report', { ...json, run: { ...run, inputs: [{ name: 'a.csv', sha256: 'not a hash', bytes: 0 }] } })).not.toEqual([]);
     expect(schemaErrors('report', { ...json, run: 'yesterday' })).not.toEqual([]);
     expect(schemaErrors('report', { ...json, schema: 'ringfall-report/2' })).not.toEqual([]);
     const surveys = json['surveys'] as Record<string, unknown>[];

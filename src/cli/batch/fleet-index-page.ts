@@ -1,6 +1,7 @@
 import type { Report } from '../../core/report/report';
 import { documentHead } from '../../web/report-view/document-head';
 import { html, type SafeHtml } from '../../web/report-view/html';
+import { renderRunSection } from '../../web/report-view/run-section';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';
@@ -31,6 +32,7 @@ export function renderFleetIndexPage(report: Report, pages: readonly string[], c
 ${attention.length === 0 ? html`<p>Nothing: every survey was fitted, no spec failed and no history flag is set.</p>` : html`<ol>${attention.map((item) => html`<li><strong>${item.subject}</strong>: ${item.reasons.join('; ')}<ul>${item.evidence.map((sentence) => html`<li>${sentence}</li>`)}</ul></li>`)}</ol>`}
 </section>
 ${unreadable.length > 0 ? html`<section class="rf-fleet"><h2>Files or parts that could not be used</h2><ul>${unreadable.map((entry) => html`<li><strong>${entry.source}</strong>: ${entry.reason}</li>`)}</ul></section>` : ''}
+${report.run ? renderRunSection(report.run) : ''}
 </body>
 </html>
 `;

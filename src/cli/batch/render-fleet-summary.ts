@@ -8,6 +8,9 @@ import { coilFigures, fleetRows, type FleetRow } from './fleet-rows';
 /** Evidence sentences printed per attention item (every unreadable file is always listed). */
 const evidenceShown = 3;
 
+/** Said wherever the summary shows a threshold distance (project brief: exposure output cautions). */
+const exposureCaution = 'Threshold distances above are model estimates on the coil axis, not medical advice: local codes, the device maker\'s instructions and licensed practice come first (each coil\'s report lists the full cautions).';
+
 /** How far a batch got, for the summary's first lines. */
 export interface BatchCoverage {
   readonly filesDone: number;
@@ -39,6 +42,7 @@ export function renderFleetSummary(report: Report, coverage: BatchCoverage): str
   ].filter((text) => text !== '');
   if (extra.length > 0) lines.push(`  ${extra.join('; ')}`);
   for (const row of rows) lines.push(...(row === rows[0] ? [''] : []), ...rowLines(row));
+  if (rows.some((row) => row.latest.thresholds.length > 0)) lines.push('', ...wrap(exposureCaution, 0));
 
   const attention = attentionList(rows, unreadable);
   lines.push('', 'What needs attention first');

@@ -38,7 +38,7 @@ export function writeHtmlReports(folder: string, report: Report, coverage: Batch
     const fleet = { coils: row.history ? [row.history] : [], unreadable: [] };
     const title = row.coil === null ? `ringfall report: ${row.latest.source}` : `ringfall report: coil ${row.coil}`;
     const subtitle = `${surveys.length} survey${surveys.length === 1 ? '' : 's'}${coverage.interrupted ? ' (partial batch)' : ''}; fleet summary in index.html`;
-    write(names[i]!, renderReportDocument({ surveys, fleet }, { chartLibrary, title, subtitle }));
+    write(names[i]!, renderReportDocument({ surveys, fleet, ...(report.run ? { run: report.run } : {}) }, { chartLibrary, title, subtitle }));
   });
   return written;
 }

@@ -1,7 +1,9 @@
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
+import { renderRunText } from '../../core/report/render-text';
 import type { Report } from '../../core/report/report';
+import { fitRunSettings } from '../../core/report/run-record';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
@@ -14,6 +16,7 @@ import { surveyFilesFrom } from '../find-survey-files';
 import { exitStatus, worseStatus } from '../exit-codes';
 import { reportUnappliedSpecs } from './fit';
 import type { CommandContext } from '../main';
+import { cliRunRecord, describeFiles, describeSpecFile, runTime } from '../run-record';
 
 /** Flags of `batch` besides the fitting options it shares with `fit`. */
 interface BatchFlags extends FitFlags {
@@ -47,22 +50,27 @@ export function registerBatch(program: Command, context: CommandContext): void {
     .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
     .option('--progress-every <seconds>', 'seconds between progress lines when stderr is not a terminal (default 2)')
     .action(async (paths: string[], flags: BatchFlags) => {
+      const time = runTime();
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
       const progressInterval = readProgressEvery(flags.progressEvery);
       const files = surveyFilesFrom(paths, flags.filesFrom);
       if (flags.out !== undefined) prepareOutFolder(flags.out);
+      // the files' SHA-256 for the run record, read on this thread while the workers fit
+      const hashing = describeFiles(files);
       const result = await runBatch(files, settings, { workers, progress: process.stderr, ...(progressInterval === null ? {} : { progressInterval }) });
+      const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import });
+      const report: Report = { ...result.report, run: cliRunRecord('batch', time, await hashing, runSettings) };
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
       if (flags.json === true) {
-        const json = toJsonReport(result.report);
+        const json = toJsonReport(report);
         if (result.interrupted) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal };
         process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
       } else {
-        process.stdout.write(renderFleetSummary(result.report, coverage));
+        process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
       }
       if (flags.out !== undefined) {
-        const written = writeHtmlReports(flags.out, result.report, coverage);
+        const written = writeHtmlReports(flags.out, report, coverage);
         process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
       }
       reportUnappliedSpecs(result.report);

@@ -4,7 +4,8 @@ import { join, relative } from 'node:path';
 import type { Command } from 'commander';
 import { parseThresholdLevel } from '../../core/analysis/thresholds/threshold-level';
 import { defaultModels } from '../../core/fit/fit-survey-options';
-import { renderTextReport, wrap } from '../../core/report/render-text';
+import { renderRunText, renderTextReport, wrap } from '../../core/report/render-text';
+import { fitRunSettings } from '../../core/report/run-record';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
@@ -12,6 +13,7 @@ import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
 import type { CommandContext } from '../main';
 import { packageRoot } from '../package-files';
+import { cliRunRecord, describeFiles, describeSpecFile, runTime } from '../run-record';
 
 /** The bundled sample data (invented: sample-data/README.md), in the package root. */
 const sampleFolder = join(packageRoot, 'sample-data');
@@ -46,19 +48,23 @@ export function registerDemo(program: Command, _context: CommandContext): void {
     .addHelpText('after', `\n${wrap(demoExitRule, 0).join('\n')}`)
     .option('--json', 'print the JSON report instead of text')
     .action(async (flags: { json?: boolean }) => {
+      const time = runTime();
       // paths as seen from where the user stands, like paths they typed (never the install folder)
       const asSeen = (path: string) => relative(process.cwd(), path) || path;
       const files = readdirSync(sampleFolder).filter((name) => name.endsWith('.csv')).sort().map((name) => asSeen(join(sampleFolder, name)));
+      const specPath = asSeen(join(sampleFolder, 'specs', 'all-coils.spec.json'));
       const settings: BatchSettings = {
         fit: { models: defaultModels, instrumentUncertainty: { relative: 0.015, absolute: 2e-6 }, seed: 1 },
         import: {},
-        specs: await readSpecFile(asSeen(join(sampleFolder, 'specs', 'all-coils.spec.json'))),
+        specs: await readSpecFile(specPath),
         thresholds: [parseThresholdLevel('implant-static')],
         keepPoints: false,
       };
+      const hashing = describeFiles(files);
       const result = await runBatch(files, settings, { workers: availableParallelism(), progress: process.stderr });
+      const run = cliRunRecord('demo', time, await hashing, fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(specPath) }));
       if (flags.json === true) {
-        process.stdout.write(`${JSON.stringify(toJsonReport(result.report), null, 2)}\n`);
+        process.stdout.write(`${JSON.stringify(toJsonReport({ ...result.report, run }), null, 2)}\n`);
         return;
       }
       const shown = result.report.surveys.filter((survey) => survey.source.endsWith(featured));
@@ -66,6 +72,7 @@ export function registerDemo(program: Command, _context: CommandContext): void {
       process.stdout.write(renderTextReport({ surveys: shown }));
       process.stdout.write(`\n${'═'.repeat(78)}\n\n`);
       process.stdout.write(renderFleetSummary(result.report, { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted }));
+      process.stdout.write(`\n${renderRunText(run)}`);
       process.stdout.write(`\n${wrap(demoExitRule, 0).join('\n')}\n`);
       process.stdout.write('\nNext: npx ringfall fit FILE --html report.html, or npm start for the web page.\n');
     });

@@ -18,6 +18,8 @@ import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } fr
 import { surveyFilesFrom } from '../find-survey-files';
 import type { CommandContext } from '../main';
 import { checksStatus } from '../checks-status';
+import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
+import { fitRunSettings, type RunInput } from '../../core/report/run-record';
 
 /**
  * `ringfall fit FILE... [options]` (CONTRACT.md): import every survey in the files (folders
@@ -38,14 +40,16 @@ export function registerFit(program: Command, context: CommandContext): void {
       .option('--files-from <list>', 'also fit the paths listed in this file, one per line (- reads standard input); for runs too long for a command line'),
   ).action(async (files: string[], flags: FitFlags & { readonly filesFrom?: string }) => {
     const options = readFitFlags(flags);
+    const time = runTime();
     // a side file's folder is checked before any fitting, so a typo costs nothing
     for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
-    const { reports, problems, rejected } = fitFiles(surveyFilesFrom(files, flags.filesFrom), options, specs);
+    const { reports, problems, rejected, inputs } = fitFiles(surveyFilesFrom(files, flags.filesFrom), options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;
-    const report: Report = { surveys: reports, rejected };
+    const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import }));
+    const report: Report = { surveys: reports, rejected, run };
     writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
     reportUnappliedSpecs(report);
@@ -95,32 +99,36 @@ function writeOutput(path: string, option: string, text: string): void {
  * Import and analyse every survey of the given files: one SurveyReport per survey (surveys
  * with too few readings get a report with no fits and a warning saying why), every row
  * that belongs to no survey with its file (`rejected`, summed up one sentence per kind of
- * problem in the file's first report's warnings), and one message per file that could not
- * be read or imported.
+ * problem in the file's first report's warnings), one message per file that could not
+ * be read or imported, and every file with its SHA-256 for the run record.
  */
 export function fitFiles(
   paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[] = [],
-): { reports: SurveyReport[]; problems: string[]; rejected: SetAsideRow[] } {
+): { reports: SurveyReport[]; problems: string[]; rejected: SetAsideRow[]; inputs: RunInput[] } {
   const settings: SurveyAnalysisSettings = { fit: options.fit, specs, thresholds: options.thresholds };
   const reports: SurveyReport[] = [];
   const problems: string[] = [];
   const rejected: SetAsideRow[] = [];
+  const inputs: RunInput[] = [];
   for (const path of paths) {
     try {
-      reports.push(...fitFile(path, options, settings, rejected));
+      reports.push(...fitFile(path, options, settings, rejected, inputs));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       problems.push(error.message);
     }
   }
-  return { reports, problems, rejected };
+  return { reports, problems, rejected, inputs };
 }
 
-function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[]): SurveyReport[] {
+function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[], inputs: RunInput[]): SurveyReport[] {
   let text: string;
   try {
-    text = readFileSync(path, 'utf8');
+    const bytes = readFileSync(path);
+    inputs.push(describeBytes(path, bytes));
+    text = bytes.toString('utf8');
   } catch (cause) {
+    inputs.push(unreadableInput(path, `could not be read: ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}`));
     throw new RingfallError('INPUT_UNREADABLE', `Cannot read "${path}": ${(cause as Error).message}. Check the path and its permissions.`, { value: path, cause });
   }
   const imported = importSurveys(text, { source: path, ...options.import });

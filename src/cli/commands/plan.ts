@@ -8,6 +8,9 @@ import { parameterRole } from '../../core/analysis/parameter-roles';
 import { exampleValue, getModel, parseParameterAssignment } from '../../core/models';
 import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
 import type { CommandContext } from '../main';
+import { renderRunText } from '../../core/report/render-text';
+import type { RunRecord, RunValue } from '../../core/report/run-record';
+import { cliRunRecord, runTime } from '../run-record';
 
 interface PlanFlags {
   model: string;
@@ -28,7 +31,7 @@ const collect = (value: string, previous: string[]) => [...previous, value];
 
 /**
  * `ringfall plan --model ID --set NAME=QTY... [--fix NAME=QTY] [--points N]
- * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1uT]
+ * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1µT]
  * [--position-uncertainty 0.5mm] [--off-axis 60mm] [--interest NAME,…] [--json]`:
  * where to put the probe so that the parameters that matter are determined
  * (planMeasurements), with the expected 95 % intervals of the recommended plan, an evenly
@@ -45,15 +48,17 @@ export function registerPlan(program: Command, _context: CommandContext): void {
     .option('--reach <near..far>', 'nearest and farthest probe distance, e.g. 5mm..200mm (default 0 to 4× the coil size)')
     .option('--probe-size <qty>', 'least spacing between positions (default min(5 mm, reach/(2·points)))')
     .option('--compare <list>', 'your planned distances, e.g. 10mm,20mm,40mm')
-    .option('--uncertainty <rel+abs>', 'standard uncertainty of one reading', '2%+1uT')
+    .option('--uncertainty <rel+abs>', 'standard uncertainty of one reading', '2%+1µT')
     .option('--position-uncertainty <qty>', 'standard uncertainty of each distance', '0.5mm')
     .option('--off-axis <qty>', 'also consider off-axis positions up to this radial offset')
     .option('--interest <names>', 'parameters that matter, comma-separated (default amplitude and geometry)')
     .option('--json', 'print the plan as JSON')
     .action((flags: PlanFlags) => {
+      const time = runTime();
       const { problem, options } = readPlanFlags(flags);
       const plan = planMeasurements(problem, options);
-      process.stdout.write(flags.json ? `${JSON.stringify(planToJson(problem, plan), null, 2)}\n` : renderPlanText(problem, plan));
+      const run = planRun(problem, options, time);
+      process.stdout.write(flags.json ? `${JSON.stringify({ run, ...planToJson(problem, plan) }, null, 2)}\n` : `${renderPlanText(problem, plan)}\n${renderRunText(run)}`);
     });
 }
 
@@ -102,6 +107,24 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
       ...(compare ? { compare } : {}),
     },
   };
+}
+
+/** The run record of a plan: no input files; every setting the plan was made with, SI. */
+function planRun(problem: DesignProblem, options: Parameters<typeof planMeasurements>[1], time: string): RunRecord {
+  const m = (value: number): RunValue => ({ value, unit: 'm' });
+  return cliRunRecord('plan', time, [], {
+    model: problem.model.id,
+    parameters: Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, { value: problem.values[j]!, unit: p.unit }])),
+    fixed: problem.model.parameters.filter((_, j) => !problem.free.includes(j)).map((p) => p.name),
+    points: options.count,
+    reach: [m(options.reach[0]), m(options.reach[1])],
+    probeSize: m(options.probeSize),
+    readingUncertainty: { relative: problem.noise.relative, absolute: { value: problem.noise.absolute, unit: 'T' } },
+    positionUncertainty: m(problem.noise.position),
+    offAxis: options.maxRadial === undefined ? null : m(options.maxRadial),
+    interest: options.interest === undefined ? null : [...options.interest],
+    compare: options.compare === undefined ? null : options.compare.map((p) => m(p.distance)),
+  });
 }
 
 function readReach(text: string): readonly [number, number] {

@@ -5,6 +5,9 @@ import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { JsonPrediction } from '../../core/report/json-types';
 import type { CommandContext } from '../main';
+import { renderRunText } from '../../core/report/render-text';
+import type { RunRecord } from '../../core/report/run-record';
+import { cliRunRecord, runTime } from '../run-record';
 
 interface PredictFlags {
   model: string;
@@ -60,8 +63,10 @@ export function registerPredict(program: Command, _context: CommandContext): voi
     .option('--radial <offset>', 'radial offset from the axis, e.g. 20mm', '0mm')
     .option('--json', 'print JSON (SI units) instead of text')
     .action((flags: PredictFlags) => {
+      const time = runTime();
       const prediction = predictFromFlags(flags);
-      process.stdout.write(flags.json ? `${JSON.stringify(predictionToJson(prediction), null, 2)}\n` : renderPrediction(prediction));
+      const run = predictionRun(prediction, time);
+      process.stdout.write(flags.json ? `${JSON.stringify({ run, ...predictionToJson(prediction) }, null, 2)}\n` : `${renderPrediction(prediction)}\n${renderRunText(run)}`);
     });
 }
 
@@ -110,6 +115,16 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
 }
 
 const si = <Unit extends string>(value: number, unit: Unit) => ({ value, unit });
+
+/** The run record of a prediction: no input files; the model, its parameters and the point. */
+function predictionRun(prediction: Prediction, time: string): RunRecord {
+  return cliRunRecord('predict', time, [], {
+    model: prediction.model.id,
+    parameters: Object.fromEntries(prediction.model.parameters.map((p, j) => [p.name, si(prediction.params[j]!, p.unit)])),
+    distance: si(prediction.distance, 'm'),
+    radialOffset: si(prediction.radial, 'm'),
+  });
+}
 
 /** The JSON form of CONTRACT.md (`field`, `components.axial`, `components.radial`) plus the inputs. */
 export function predictionToJson(prediction: Prediction): JsonPrediction {

@@ -18,6 +18,6 @@ describe('describeValue()', () => {
     // our format, as the label states it (regression pin, not truth)
     expect(describeTolerance(120, 'current', { relative: 0.1, absolute: 0 })).toBe('120 A ± 10 %');
     expect(describeTolerance(0.045, 'length', { relative: 0, absolute: 0.002 })).toBe('45.0 mm ± 2.00 mm');
-    expect(describeTolerance(1.7e-3, 'field', { relative: 0.05, absolute: 2e-5 })).toBe('1.70 mT ± (5 % + 20.0 uT)');
+    expect(describeTolerance(1.7e-3, 'field', { relative: 0.05, absolute: 2e-5 })).toBe('1.70 mT ± (5 % + 20.0 µT)');
   });
 });

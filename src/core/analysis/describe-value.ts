@@ -1,6 +1,6 @@
 import { displayUnit, formatNumber, type QuantityKind } from '../units';
 
-/** Units in which an exact zero is shown ("0 mm", not "0 um"). */
+/** Units in which an exact zero is shown ("0 mm", not "0 µm"). */
 const zeroUnits: Record<QuantityKind, { symbol: string; factor: number }> = {
   length: { symbol: 'mm', factor: 1e-3 },
   field: { symbol: 'T', factor: 1 },
@@ -37,7 +37,7 @@ export function describeValue(value: number, kind: QuantityKind | null, interval
   return `${show(value)}${symbol}` + (interval ? ` (${show(interval[0])}${dash}${show(interval[1])})` : '');
 }
 
-/** "120 A ± 10 %" / "45.0 mm ± 2.00 mm" / "1.70 mT ± (5 % + 20.0 uT)". */
+/** "120 A ± 10 %" / "45.0 mm ± 2.00 mm" / "1.70 mT ± (5 % + 20.0 µT)". */
 export function describeTolerance(nominal: number, kind: QuantityKind | null, tolerance: { relative: number; absolute: number }): string {
   const parts: string[] = [];
   if (tolerance.relative > 0) parts.push(`${Number((100 * tolerance.relative).toPrecision(3))} %`);

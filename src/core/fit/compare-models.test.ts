@@ -84,7 +84,7 @@ describe('compareModels(fits)', () => {
     const result = compareModels(fitSurvey(survey, { models: ['loop', 'inverse-square'], fixed: { probeOffset: 0, background: 0 }, starts: 2 }));
     // DOMAIN.md §1.1 at z = 300 mm: 22.3 µT (3 significant digits as printed)
     const expected = loopAxis(400, 0.05, 0.3);
-    expect(result.comparison[0]).toContain(`where loop gives ${(expected * 1e6).toPrecision(3)} uT`);
+    expect(result.comparison[0]).toContain(`where loop gives ${(expected * 1e6).toPrecision(3)} µT`);
   });
 
   it('describePowerLaw() says the same with the survey\'s shared context as when it works everything out for one law', () => {

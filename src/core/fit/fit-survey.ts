@@ -41,7 +41,7 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
   if (position > 0 && uncertainty.standardUncertainty === null) {
     throw new RingfallError(
       'FIT_POSITION_WITHOUT_READING',
-      `Position uncertainty: given without an uncertainty of the readings (${survey.source}). Add the meter's accuracy too, e.g. --uncertainty 1.5%+2uT, so both can be combined.`,
+      `Position uncertainty: given without an uncertainty of the readings (${survey.source}). Add the meter's accuracy too, e.g. --uncertainty 1.5%+2µT, so both can be combined.`,
       { value: position },
     );
   }
@@ -60,7 +60,7 @@ export function fitSurveyNotes(survey: Survey, options: FitSurveyOptions = {}): 
   const uncertainty = readingUncertainty(survey, options.instrumentUncertainty);
   const notes = [...uncertainty.notes];
   if (uncertainty.standardUncertainty === null) {
-    notes.push('No uncertainty was given for the readings: every reading weighs the same and the intervals are scaled by the scatter of the residuals. Give the meter\'s accuracy (--uncertainty 1.5%+2uT) to weight readings and test the scatter against it.');
+    notes.push('No uncertainty was given for the readings: every reading weighs the same and the intervals are scaled by the scatter of the residuals. Give the meter\'s accuracy (--uncertainty 1.5%+2µT) to weight readings and test the scatter against it.');
   } else if ((options.positionUncertainty ?? 0) > 0) {
     notes.push(`Each reading's uncertainty includes the position uncertainty carried through the local slope of each model (effective variance).`);
   }

@@ -35,14 +35,14 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
       // A negative part gives σ ≤ 0 too; say so rather than blame a zero reading.
       throw new RingfallError(
         'FIT_UNCERTAINTY_ZERO',
-        `Uncertainty: ${formatPercent(instrument.relative)} + ${formatQuantity(instrument.absolute, 'field')} gives σ = ${formatQuantity(sigma[zero]!, 'field')} for the reading on line ${readings[zero]!.line} of ${survey.source}, not more than 0. Give a relative and an absolute part ≥ 0, e.g. "1.5%+2uT".`,
+        `Uncertainty: ${formatPercent(instrument.relative)} + ${formatQuantity(instrument.absolute, 'field')} gives σ = ${formatQuantity(sigma[zero]!, 'field')} for the reading on line ${readings[zero]!.line} of ${survey.source}, not more than 0. Give a relative and an absolute part ≥ 0, e.g. "1.5%+2µT".`,
         { value: instrument, where: `line ${readings[zero]!.line}` },
       );
     }
     if (zero >= 0) {
       throw new RingfallError(
         'FIT_UNCERTAINTY_ZERO',
-        `Uncertainty: ${formatPercent(instrument.relative)} of a ${formatQuantity(readings[zero]!.field, 'field')} reading is zero (line ${readings[zero]!.line} of ${survey.source}). Add an absolute part for the meter's floor, e.g. "${formatPercent(instrument.relative)}+1uT".`,
+        `Uncertainty: ${formatPercent(instrument.relative)} of a ${formatQuantity(readings[zero]!.field, 'field')} reading is zero (line ${readings[zero]!.line} of ${survey.source}). Add an absolute part for the meter's floor, e.g. "${formatPercent(instrument.relative)}+1µT".`,
         { value: instrument, where: `line ${readings[zero]!.line}` },
       );
     }
@@ -58,7 +58,7 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
   return { standardUncertainty: null, source: null, notes };
 }
 
-/** "1.5 % + 2 uT" for a relative-plus-absolute uncertainty. */
+/** "1.5 % + 2 µT" for a relative-plus-absolute uncertainty. */
 function describeInstrument(instrument: RelativePlusAbsolute): string {
   const parts: string[] = [];
   if (instrument.relative > 0) parts.push(formatPercent(instrument.relative));

@@ -25,7 +25,7 @@ describe('TSDoc examples of the survey-level fit', () => {
 
   it('readingUncertainty() refuses a pure percentage when a reading is zero (FIT_UNCERTAINTY_ZERO), names the line, and says the column was replaced', () => {
     const zero = { ...survey, readings: survey.readings.map((r, i) => (i === 1 ? { ...r, field: 0 } : r)) };
-    expect(() => readingUncertainty(zero, { relative: 0.02, absolute: 0 })).toThrow(/line 3 of simulated loop.*"2%\+1uT"/);
+    expect(() => readingUncertainty(zero, { relative: 0.02, absolute: 0 })).toThrow(/line 3 of simulated loop.*"2%\+1µT"/);
     expect(() => readingUncertainty(zero, { relative: 0.02, absolute: 0 })).toThrow(expect.objectContaining({ code: 'FIT_UNCERTAINTY_ZERO' }));
     // a negative absolute part is named as such, not as a zero reading
     expect(() => readingUncertainty(survey, { relative: 0.01, absolute: -1 })).toThrow(

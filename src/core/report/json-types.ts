@@ -1,5 +1,6 @@
 import type { ModelId, ParameterUnit } from '../models/field-model';
 import type { ReadingType } from '../survey/survey';
+import type { RunRecord } from './run-record';
 import type { FleetSummary, SpecUse, ThresholdResult, Verdict } from './report';
 
 /**
@@ -52,9 +53,26 @@ export interface JsonFit {
   readonly freeParameters: readonly string[];
   /** Correlation matrix of the free parameters, row-major, or null. */
   readonly correlation: readonly (number | null)[] | null;
+  /** Covariance of the free parameters (SI), row-major in the order of `freeParameters`, or null when singular. */
+  readonly covariance: readonly (number | null)[] | null;
+  /** The readings the fit used, as columns (one array per quantity, SI), so a saved report can be drawn again. */
+  readonly points: JsonPoints;
   /** Far-field magnetic moment of a physical model; absent for power laws. */
   readonly moment?: { readonly value: number | null; readonly unit: 'A·m²'; readonly stderr: number | null; readonly ci95: JsonInterval | null };
   readonly warnings: readonly string[];
+}
+
+/** Per-reading columns of a fit (`surveys[].fits[].points`); every array has one entry per reading used. */
+export interface JsonPoints {
+  readonly line: readonly number[];
+  readonly distance: readonly (number | null)[];
+  readonly radial: readonly (number | null)[];
+  readonly field: readonly (number | null)[];
+  readonly predicted: readonly (number | null)[];
+  readonly residual: readonly (number | null)[];
+  readonly standardUncertainty: readonly (number | null)[];
+  /** Present when a robust fit flagged readings. */
+  readonly outlier?: readonly boolean[];
 }
 
 /** A data row the import did not use (`surveys[].readings.rejected[]`). */
@@ -101,8 +119,8 @@ export interface JsonReport {
   fleet?: JsonFleet;
   /** batch only, when Ctrl-C stopped the run: the report covers the files done. */
   partial?: { readonly filesDone: number; readonly filesTotal: number };
-  /** How the report was made (version, time, inputs); an object when present. */
-  run?: object;
+  /** How the report was made (version, command, time, inputs with SHA-256, settings); first in the file when present. */
+  readonly run?: RunRecord;
 }
 
 /** A quantity: SI value and unit. */

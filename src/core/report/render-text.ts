@@ -2,7 +2,9 @@ import type { FitResult, ParameterEstimate } from '../fit/fit-result';
 import { parameterQuantityKind } from '../models/parse-parameter-assignment';
 import { printable } from '../text/printable';
 import { displayUnit, formatNumber, formatQuantity } from '../units';
+import { describeRun } from './describe-run';
 import type { Report, SpecUse, SurveyReport, ThresholdResult, Verdict } from './report';
+import type { RunRecord } from './run-record';
 
 /** How many set-aside rows the text report lists before pointing to --json. */
 const rejectedListed = 20;
@@ -13,7 +15,18 @@ const rejectedListed = 20;
  * comparison, verdict, threshold distances, warnings and cautions.
  */
 export function renderTextReport(report: Report): string {
-  return report.surveys.map(renderSurvey).join('\n' + '═'.repeat(78) + '\n\n');
+  const surveys = report.surveys.map(renderSurvey).join('\n' + '═'.repeat(78) + '\n\n');
+  return report.run === undefined ? surveys : `${surveys}\n${renderRunText(report.run)}`;
+}
+
+/**
+ * The run record as a text block (heading, then one wrapped "label: text" line per fact,
+ * ending in a newline): what every text report ends with (CONTRACT.md `run`).
+ */
+export function renderRunText(run: RunRecord): string {
+  const lines = ['Run record'];
+  for (const line of describeRun(run)) lines.push(...wrap(`${line.label}: ${line.text}`, 2, 4));
+  return `${lines.join('\n')}\n`;
 }
 
 function renderSurvey(survey: SurveyReport): string {

@@ -1,3 +1,4 @@
+import { describeRun } from './describe-run';
 import type { Report } from './report';
 
 /**
@@ -24,11 +25,14 @@ function numberCell(value: number | null | undefined): string {
 /**
  * Per-reading CSV of a report: for every survey and every fitted model, each reading's
  * position, value, the model's prediction, the residual and the uncertainty used. SI
- * units, stated in the header names.
+ * units, stated in the header names. When the report carries its run record, the file
+ * opens with it as `# label: text` lines above the header (the form ringfall's own survey
+ * files use for metadata; read with a comment character of "#").
  */
 export function reportCsv(report: Report): string {
   const header = ['source', 'coil', 'date', 'reading_type', 'model', 'best', 'line', 'distance_m', 'radial_m', 'field_T', 'predicted_T', 'residual_T', 'standard_uncertainty_T', 'outlier'];
-  const lines = [header.join(',')];
+  const lines = report.run === undefined ? [] : describeRun(report.run).map((line) => `# ${line.label}: ${line.text.replace(/[\r\n]+/g, ' ')}`);
+  lines.push(header.join(','));
   for (const survey of report.surveys) {
     for (const fit of survey.fits) {
       for (const p of fit.points) {

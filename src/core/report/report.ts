@@ -2,6 +2,7 @@ import type { FitResult } from '../fit/fit-result';
 import type { ModelId } from '../models/field-model';
 import type { ReadingType, RejectedRow } from '../survey/survey';
 import type { SetAsideRow } from './set-aside-rows';
+import type { RunRecord } from './run-record';
 
 /**
  * The Report: everything a view shows, computed once in core. Views (CLI text, JSON,
@@ -164,4 +165,6 @@ export interface Report {
    * `rejected`). Rows of a survey are in its `readings.rejected` instead.
    */
   readonly rejected?: readonly SetAsideRow[];
+  /** How the report was made (version, time, input files and their SHA-256, settings); CONTRACT.md `run`. */
+  readonly run?: RunRecord;
 }

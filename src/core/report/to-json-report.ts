@@ -1,6 +1,6 @@
 import type { FitResult } from '../fit/fit-result';
 import type { RejectedRow } from '../survey/survey';
-import type { JsonFit, JsonParameter, JsonRejectedRow, JsonReport, JsonSurvey } from './json-types';
+import type { JsonFit, JsonParameter, JsonPoints, JsonRejectedRow, JsonReport, JsonSurvey } from './json-types';
 import { reportSummaryFit } from '../analysis/summary-fit';
 import { getModel } from '../models';
 import type { Report, SurveyReport } from './report';
@@ -17,6 +17,8 @@ export const reportSchema = 'ringfall-report/1';
 export function toJsonReport(report: Report): JsonReport {
   const json: JsonReport = {
     schema: reportSchema,
+    // how the report was made comes first, so a reader of the file sees it before the numbers
+    ...(report.run !== undefined ? { run: report.run } : {}),
     surveys: report.surveys.map((survey) => surveyToJson(survey, report)),
   };
   if (report.rejected !== undefined) {
@@ -92,10 +94,31 @@ function fitToJson(fit: FitResult): JsonFit {
     uncertaintyScale: fit.uncertaintyScale,
     freeParameters: fit.freeParameters,
     correlation: fit.correlation ? fit.correlation.map(finite) : null,
+    covariance: fit.covariance ? fit.covariance.map(finite) : null,
+    points: pointsToJson(fit.points),
     ...(fit.moment
       ? { moment: { value: finite(fit.moment.value), unit: 'A·m²', stderr: finite(fit.moment.stderr), ci95: fit.moment.ci95 ? [finite(fit.moment.ci95[0]), finite(fit.moment.ci95[1])] : null } }
       : {}),
     warnings: fit.warnings,
+  };
+}
+
+/**
+ * Per-reading points as columns (one array per quantity, SI), so a saved report can be
+ * opened again and drawn with its charts (fromJsonReport). `outlier` only when a robust
+ * fit flagged readings.
+ */
+function pointsToJson(points: FitResult['points']): JsonPoints {
+  const column = (read: (p: FitResult['points'][number]) => number | null) => points.map((p) => finite(read(p)));
+  return {
+    line: points.map((p) => p.line),
+    distance: column((p) => p.distance),
+    radial: column((p) => p.radial),
+    field: column((p) => p.field),
+    predicted: column((p) => p.predicted),
+    residual: column((p) => p.residual),
+    standardUncertainty: column((p) => p.standardUncertainty),
+    ...(points.length > 0 && 'outlier' in points[0]! ? { outlier: points.map((p) => p.outlier === true) } : {}),
   };
 }
 

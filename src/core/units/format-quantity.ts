@@ -2,8 +2,8 @@ import type { QuantityKind } from './unit-table';
 
 /** Unit ladders for display, largest first; a value is shown in the first unit where |x| ≥ threshold. */
 const ladders: Record<QuantityKind, ReadonlyArray<readonly [symbol: string, factor: number]>> = {
-  field: [['T', 1], ['mT', 1e-3], ['uT', 1e-6], ['nT', 1e-9]],
-  length: [['m', 1], ['mm', 1e-3], ['um', 1e-6]],
+  field: [['T', 1], ['mT', 1e-3], ['\u00b5T', 1e-6], ['nT', 1e-9]],
+  length: [['m', 1], ['mm', 1e-3], ['\u00b5m', 1e-6]],
   current: [['kA', 1e3], ['A', 1], ['mA', 1e-3]],
   moment: [['A·m²', 1]],
 };

@@ -1,4 +1,4 @@
 export { parseQuantity, type Quantity } from './parse-quantity';
 export { parseRelativePlusAbsolute, type RelativePlusAbsolute } from './tolerance';
 export { formatQuantity, formatNumber, displayUnit } from './format-quantity';
-export { ambiguousUnit, lookupUnit, unitsOfKind, type QuantityKind, type UnitDefinition } from './unit-table';
+export { ambiguousUnit, displaySymbol, lookupUnit, unitsOfKind, type QuantityKind, type UnitDefinition } from './unit-table';

@@ -58,7 +58,7 @@ export function parseQuantity(text: string, expected?: QuantityKind, what = 'qua
     throw new RingfallError(
       'QUANTITY_UNIT',
       `${what}: unknown unit "${printable(unitText, shownLength)}" in "${shown}". Use one of: ` +
-        `${(expected ? unitsOfKind(expected) : ['T', 'mT', 'uT', 'nT', 'G', 'kG', 'mG', 'm', 'cm', 'mm', 'in', 'A']).join(', ')}.`,
+        `${(expected ? unitsOfKind(expected) : ['T', 'mT', '\u00b5T', 'nT', 'G', 'kG', 'mG', 'm', 'cm', 'mm', 'in', 'A']).join(', ')}.`,
       { value: text },
     );
   }

@@ -7,7 +7,7 @@
 export type QuantityKind = 'field' | 'length' | 'current' | 'moment';
 
 export interface UnitDefinition {
-  /** Canonical symbol as written in output (ASCII where the trade uses it: uT, not µT). */
+  /** Canonical symbol, ASCII (uT, um); human output writes micro as µ (displaySymbol). */
   readonly symbol: string;
   readonly kind: QuantityKind;
   /** Multiply a value in this unit by `factor` to get SI (T, m, A, A·m²). */
@@ -95,7 +95,17 @@ export function ambiguousUnit(spelling: string): string | null {
   return ambiguous.get(spelling.trim()) ?? null;
 }
 
-/** All canonical symbols of one kind, for messages ("use one of: T, mT, …"). */
+/** All symbols of one kind as people read them (µ for micro), for messages and menus ("use one of: T, mT, µT, …"). */
 export function unitsOfKind(kind: QuantityKind): string[] {
-  return definitions.filter((d) => d.kind === kind).map((d) => d.symbol);
+  return definitions.filter((d) => d.kind === kind).map((d) => displaySymbol(d.symbol));
+}
+
+/**
+ * A unit symbol as human output writes it: micro as µ (U+00B5 MICRO SIGN, the one
+ * spelling in every report and message), every other symbol as it is. lookupUnit reads
+ * µT, μT and uT alike, so a displayed symbol can be typed back.
+ * @example displaySymbol('uT') // 'µT'
+ */
+export function displaySymbol(symbol: string): string {
+  return symbol.replace(/^u(?=[Tm]$)/, '\u00b5');
 }

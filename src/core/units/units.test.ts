@@ -90,10 +90,10 @@ describe('parseRelativePlusAbsolute()', () => {
 });
 
 describe('formatQuantity()', () => {
-  it('formatQuantity() picks mT, uT, mm as a reader expects', () => {
+  it('formatQuantity() picks mT, µT, mm as a reader expects', () => {
     // SI prefixes (SI Brochure 9th ed. §3); 4 significant digits is our default (regression pin, not truth)
     expect(formatQuantity(0.0012346, 'field')).toBe('1.235 mT');
-    expect(formatQuantity(2.5e-5, 'field')).toBe('25.00 uT');
+    expect(formatQuantity(2.5e-5, 'field')).toBe('25.00 µT');
     expect(formatQuantity(0.045, 'length')).toBe('45.00 mm');
   });
 

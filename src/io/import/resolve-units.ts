@@ -75,7 +75,7 @@ export function resolveUnits(
       ? importError(
         'IMPORT_FIELD_UNIT_MISSING',
         `No unit for field column "${printable(column.header, 60)}": the header states none (${where}). ` +
-          `Write the unit in the header, e.g. "${printable(column.header, 60)} (mT)", or pass --field-unit mT (or G, uT); ringfall does not guess between gauss and millitesla.`,
+          `Write the unit in the header, e.g. "${printable(column.header, 60)} (mT)", or pass --field-unit mT (or G, µT); ringfall does not guess between gauss and millitesla.`,
         where, column.header)
       : importError(
         'IMPORT_DISTANCE_UNIT_MISSING',

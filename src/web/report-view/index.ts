@@ -8,6 +8,7 @@
 export { renderReportDocument, renderReportBody, surveyElementId, type ReportDocumentOptions } from './report-document';
 export { renderSurveySection } from './survey-section';
 export { renderFleetSection } from './fleet-section';
+export { renderRunSection } from './run-section';
 export { drawCharts, installTickLabels, oneTwoFiveLabels, type TickFormatters } from './figure';
 export { reportStyles } from './report-styles';
 export { escapeHtml } from './html';

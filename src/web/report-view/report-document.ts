@@ -3,6 +3,7 @@ import { drawChartsSource } from './figure';
 import { renderFleetSection } from './fleet-section';
 import { documentHead } from './document-head';
 import { html, trusted, type SafeHtml } from './html';
+import { renderRunSection } from './run-section';
 import { renderSurveySection } from './survey-section';
 import { catalogLookup, type ModelLookup } from './survey-facts';
 
@@ -21,6 +22,7 @@ export function renderReportBody(report: Report, lookup: ModelLookup = catalogLo
 ${report.surveys.length > 1 ? renderFleetSection(report, ids) : ''}
 ${report.surveys.map((survey, i) => renderSurveySection(survey, lookup, ids[i]!))}
 ${report.surveys.length === 0 ? html`<p class="rf-empty">The report holds no survey.</p>` : ''}
+${report.run ? renderRunSection(report.run) : ''}
 </div>`;
 }
 

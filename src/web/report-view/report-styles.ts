@@ -57,6 +57,7 @@ export const reportStyles = `
 .rf-import-notes { color: var(--rf-muted); font-size: .9rem; }
 .rf-other-fits summary { cursor: pointer; color: var(--rf-accent); }
 .rf-doc-head { margin-bottom: 1rem; }
+.rf-run-text { overflow-wrap: anywhere; font-size: .85rem; }
 .rf-doc-head p { color: var(--rf-muted); }
 @media (max-width: 640px) {
   .rf-survey, .rf-fleet { padding: .6rem; }

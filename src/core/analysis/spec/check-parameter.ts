@@ -60,7 +60,7 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   if (!estimate.determined || ci95 === null) {
     return inconclusive(
       `these readings do not determine ${words} (fit ${describeValue(value, kind)}); the label says ${labelText}.`,
-      'Add readings where the curve changes shape — closer than about the coil\'s size; far-field readings fix only the moment N·I·area — or fix the parameters the label states (--fix NAME=…) so that the rest are determined (DOMAIN.md §7.6).',
+      'Add readings where the curve changes shape — closer than about the coil\'s size; far-field readings fix only the moment N·I·area — or fix the parameters the label states (--fix NAME=…) so that the rest are determined.',
       'undetermined',
     );
   }
@@ -80,6 +80,6 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   const toDecide = decision.shrinkFactor === 0
     ? `The estimate sits on the tolerance limit; no amount of readings can move it off.`
     : decidingMeasurement(fitted, { gradient, neededHalfWidth: currentHalf * decision.shrinkFactor!, words: `the ${words} interval`, kind }) +
-      (role === 'geometry' ? ' Geometry is best pinned by readings near z ≈ R, where the curve bends (DOMAIN.md §1.1).' : '');
+      (role === 'geometry' ? ' Geometry is best pinned by readings near z ≈ R, where the curve bends.' : '');
   return { check: { ...check, toDecide }, role, side, blocked: null };
 }

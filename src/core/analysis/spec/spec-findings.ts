@@ -60,7 +60,7 @@ export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
   if (claims.some((o) => o.check.status === 'fail')) findings.push('claim-not-met');
   for (const claim of claims.filter((o) => o.matchesNaive && o.check.status !== 'pass')) {
     if (!findings.includes('power-law-extrapolation')) findings.push('power-law-extrapolation');
-    explanations.push(`The claimed ${describeValue(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${describeValue(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law (DOMAIN.md §1.9).`);
+    explanations.push(`The claimed ${describeValue(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${describeValue(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law.`);
   }
   if (outcomes.some((o) => o.blocked === 'reading-type')) findings.push('reading-type-mismatch');
   for (const outcome of outcomes) {

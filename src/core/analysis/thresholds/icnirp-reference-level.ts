@@ -11,7 +11,7 @@ export interface ReferenceLevel {
   readonly group: ExposureGroup;
   /** The frequency band of the table row, for people: "25 Hz – 300 Hz". */
   readonly band: string;
-  /** Source and how far it was checked (DOMAIN.md §0 flags). */
+  /** For people: the published source and how far the value was verified against it. */
   readonly flag: string;
   /** Things to say with this value (rounding, other limits that also apply). */
   readonly notes: readonly string[];
@@ -43,8 +43,10 @@ const generalPublic: readonly Band[] = [
   { from: 3e3, to: 1e7, level: () => 2.7e-5, text: '3 kHz – 10 MHz: 27 µT' },
 ];
 
+// Shown to people: the published document, and plainly that the values come from a
+// textbook's reproduction of its table (DOMAIN.md §4.2), not from the guideline itself.
 const tableFlag =
-  '[V] ICNIRP 2010 (Health Physics 99:818–836) reference levels as reproduced in a bioelectromagnetism textbook (DOMAIN.md §4.2); the guideline\'s own table numbers are from memory';
+  'ICNIRP 2010, Health Physics 99(6):818–836, reference levels for magnetic flux density (rms, unperturbed field), as reproduced in a bioelectromagnetism textbook; not verified against the guideline\'s own tables';
 
 /**
  * ICNIRP 2010 magnetic flux density reference level (rms, unperturbed field) for one

@@ -44,7 +44,9 @@ describe('icnirp2010ReferenceLevel()', () => {
 
   it('icnirp2010ReferenceLevel() carries its source flag and says that levels are rms', () => {
     const level = icnirp2010ReferenceLevel(50, 'public');
-    expect(level.flag).toContain('[V]');
+    // the source line names the published document (ICNIRP 2010, Health Physics 99(6):818–836) and says it was not verified against it
+    expect(level.flag).toContain('ICNIRP 2010, Health Physics 99(6):818–836');
+    expect(level.flag).toContain('not verified');
     expect(level.notes.join(' ')).toContain('rms');
     expect(icnirp2010ReferenceLevel(3000, 'public').notes.join(' ')).toContain('26.7 µT');
   });
@@ -113,13 +115,15 @@ describe('parseThresholdLevel()', () => {
     expect(parseThresholdLevel('pacemaker-ac').readingType).toBe('rms');
   });
 
-  it('thresholdCautions lists the seven cautions of DOMAIN.md §4.5', () => {
-    // DOMAIN.md §4.5 items 1–7
-    expect(thresholdCautions).toHaveLength(7);
+  it('thresholdCautions opens with "not medical advice", then lists the seven cautions of DOMAIN.md §4.5', () => {
+    // project brief: exposure output says "not medical advice"; DOMAIN.md §4.5 items 1–7 follow
+    expect(thresholdCautions).toHaveLength(8);
+    expect(thresholdCautions[0]).toMatch(/^Not medical advice/);
+    expect(thresholdCautions.join(' ')).toContain('IEEE C95.1-2019');
     expect(thresholdCautions.join(' ')).toMatch(/maker's guidance/);
     expect(thresholdCautions.join(' ')).toMatch(/not a calibrated compliance instrument/);
     // implant and patient cautions defer to the maker, licensed practice and local codes (DOMAIN.md §4.5 items 1 and 3)
-    expect(thresholdCautions[0]).toMatch(/licensed clinical practice and the device maker's instructions/);
-    expect(thresholdCautions[2]).toMatch(/clinician's advice and local codes/);
+    expect(thresholdCautions[1]).toMatch(/licensed clinical practice and the device maker's instructions/);
+    expect(thresholdCautions[3]).toMatch(/clinician's advice and local codes/);
   });
 });

@@ -12,7 +12,7 @@ export interface ThresholdLevel {
   readonly label: string | null;
   /** Detector type the level is defined for: 'dc' static limits, 'rms' ICNIRP 2010; null when not stated. */
   readonly readingType: ReadingType | null;
-  /** Source flag (DOMAIN.md §0) for a preset; null for a plain quantity. */
+  /** For people: the published source of a preset and how far its value was verified against it; null for a plain quantity. */
   readonly flag: string | null;
   readonly notes: readonly string[];
 }
@@ -26,42 +26,42 @@ export const thresholdPresets: Readonly<Record<string, ThresholdLevel>> = Object
     value: 5e-4,
     label: 'implant line, static (ICNIRP 2009)',
     readingType: 'dc',
-    flag: '[V] ICNIRP 2009, Health Physics 96:504–514: implant wearers generally unaffected below 0.5 mT (DOMAIN.md §4.1, §4.3)',
+    flag: 'ICNIRP 2009 static fields, Health Physics 96(4):504–514: people with implanted electronic devices are in general not adversely affected below 0.5 mT (verified against a published source)',
     notes: ['IEC 60601-2-33 ed. 4 uses 0.9 mT (preset "mr-implant") for inadvertent magnet-mode activation near MR equipment.'],
   },
   'mr-implant': {
     value: 9e-4,
     label: 'MR implant line (IEC 60601-2-33)',
     readingType: 'dc',
-    flag: '[V] IEC 60601-2-33 ed. 4.0 raised the MR magnet-mode line to 0.9 mT (DOMAIN.md §4.3)',
+    flag: 'IEC 60601-2-33 ed. 4.0 (safety of MR equipment): 0.9 mT for inadvertent magnet-mode activation of active implants (as published summaries of the standard state it; not verified against the standard itself)',
     notes: ['The general screening line for implant wearers is 0.5 mT (preset "implant-static").'],
   },
   'pacemaker-ac': {
     value: 1e-4,
     label: 'pacemaker, 60 Hz (ORNL)',
     readingType: 'rms',
-    flag: '[V] ORNL guidance quoted in DOMAIN.md §4.3: 0.1 mT at 60 Hz',
+    flag: 'Oak Ridge National Laboratory guidance for pacemaker wearers: 0.1 mT at 60 Hz (as published sources quote it; not verified against the original report)',
     notes: ['Measured in-vivo interference thresholds at 50 Hz span a wide range; follow the device maker\'s guidance.'],
   },
   'static-public': {
     value: 0.4,
     label: 'ICNIRP 2009 static, public',
     readingType: 'dc',
-    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    flag: 'ICNIRP 2009 static fields, Health Physics 96(4):504–514, limits of exposure: general public 400 mT, workers 2 T (head and trunk), limbs 8 T (verified against a published source)',
     notes: [],
   },
   'static-occupational': {
     value: 2,
     label: 'ICNIRP 2009 static, workers',
     readingType: 'dc',
-    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    flag: 'ICNIRP 2009 static fields, Health Physics 96(4):504–514, limits of exposure: general public 400 mT, workers 2 T (head and trunk), limbs 8 T (verified against a published source)',
     notes: [],
   },
   'static-limbs': {
     value: 8,
     label: 'ICNIRP 2009 static, limbs',
     readingType: 'dc',
-    flag: '[V] ICNIRP 2009 (DOMAIN.md §4.1, §9 row 57)',
+    flag: 'ICNIRP 2009 static fields, Health Physics 96(4):504–514, limits of exposure: general public 400 mT, workers 2 T (head and trunk), limbs 8 T (verified against a published source)',
     notes: [],
   },
 }));
