@@ -1,19 +1,31 @@
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, extname } from 'node:path';
 import { RingfallError } from '../core/errors';
+import { isSkipped, readSkipList, type SkipList, type SkippedFiles } from './skip-list';
 
 /** File endings taken as survey logs when a folder is given. */
 const surveyEndings = new Set(['.csv', '.tsv', '.txt']);
 
+/** Options of findSurveyFiles and surveyFilesFrom. */
+export interface SurveySearchOptions {
+  /** Honour `.ringfall-skip` lists in the folders searched (default true; `--no-skip` turns it off). */
+  readonly skipLists?: boolean;
+  /** Filled with what each skip list left out, one entry per list that left out anything. */
+  readonly skipped?: SkippedFiles[];
+}
+
 /**
  * Expand the command line's DIR|FILE arguments into survey files: a file is taken as
  * given (whatever its ending); a folder is searched recursively for .csv, .tsv and .txt
- * files. The result is sorted so that runs are deterministic.
+ * files, leaving out what a `.ringfall-skip` list in a searched folder names (skip-list.ts;
+ * what was left out goes to `options.skipped`, nothing silently). Files named directly are
+ * never left out. The result is sorted so that runs are deterministic.
  * @throws RingfallError `INPUT_NOT_FOUND` when an argument does not exist,
  *   `INPUT_EMPTY_FOLDER` when no survey file is found at all.
  */
-export function findSurveyFiles(paths: readonly string[]): string[] {
+export function findSurveyFiles(paths: readonly string[], options: SurveySearchOptions = {}): string[] {
   const found = new Set<string>();
+  const skipped = new Map<string, { list: SkipList; files: string[] }>();
   for (const path of paths) {
     let stats;
     try {
@@ -25,26 +37,56 @@ export function findSurveyFiles(paths: readonly string[]): string[] {
         { value: path, cause },
       );
     }
-    if (stats.isDirectory()) walk(path, found);
+    if (stats.isDirectory()) walk(path, found, options.skipLists === false ? null : [], skipped);
     else found.add(path);
   }
+  const leftOut = [...skipped.values()].map(({ list, files }) => ({ list: list.path, patterns: list.patterns, files: files.filter((file) => !found.has(file)).sort() }))
+    .filter((entry) => entry.files.length > 0);
+  options.skipped?.push(...leftOut);
   if (found.size === 0) {
+    const because = leftOut.length > 0 ? ` (${leftOut.map((entry) => `${entry.files.length} left out by ${entry.list}`).join(', ')}; --no-skip fits them)` : '';
     throw new RingfallError(
       'INPUT_EMPTY_FOLDER',
-      `No survey files found: ${paths.join(', ')} holds no .csv, .tsv or .txt file. Name the files directly or point to the folder that holds them.`,
+      `No survey files found: ${paths.join(', ')} holds no .csv, .tsv or .txt file${because}. Name the files directly or point to the folder that holds them.`,
       { value: paths },
     );
   }
   return [...found].sort();
 }
 
-function walk(folder: string, found: Set<string>): void {
+/** One line per skip list that left files out, for stderr and the text summary. */
+export function skippedLines(skipped: readonly SkippedFiles[]): string[] {
+  return skipped.map((entry) => `left out ${entry.files.length} file${entry.files.length === 1 ? '' : 's'} that ${entry.list} lists as not surveys (${entry.patterns.join(', ')}); --no-skip fits them too`);
+}
+
+/**
+ * Search `folder`; `lists` are the skip lists in force (the folders above, within this
+ * search), or null when skip lists are off.
+ */
+function walk(folder: string, found: Set<string>, lists: readonly SkipList[] | null, skipped: Map<string, { list: SkipList; files: string[] }>): void {
+  const own = lists === null ? null : readSkipList(folder);
+  const active = lists === null ? null : own === null ? lists : [...lists, own];
   const entries = readdirSync(folder, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
   for (const entry of entries) {
     if (entry.name.startsWith('.') || entry.name === 'node_modules') continue;
     const path = join(folder, entry.name);
-    if (entry.isDirectory()) walk(path, found);
-    else if (entry.isFile() && surveyEndings.has(extname(entry.name).toLowerCase())) found.add(path);
+    const isFolder = entry.isDirectory();
+    if (!isFolder && !(entry.isFile() && surveyEndings.has(extname(entry.name).toLowerCase()))) continue;
+    const by = active?.find((list) => isSkipped(list, path, isFolder));
+    if (by !== undefined) {
+      const record = skipped.get(by.path) ?? { list: by, files: [] };
+      skipped.set(by.path, record);
+      if (isFolder) {
+        const inside = new Set<string>();
+        walk(path, inside, null, skipped);
+        record.files.push(...inside);
+      } else {
+        record.files.push(path);
+      }
+      continue;
+    }
+    if (isFolder) walk(path, found, active, skipped);
+    else found.add(path);
   }
 }
 
@@ -61,12 +103,12 @@ const missingShown = 5;
  *   the list cannot be read, `INPUT_LIST_EMPTY` when it names nothing, `INPUT_NOT_FOUND`
  *   naming the lines whose paths do not exist, and findSurveyFiles's errors.
  */
-export function surveyFilesFrom(paths: readonly string[], filesFrom: string | undefined): string[] {
+export function surveyFilesFrom(paths: readonly string[], filesFrom: string | undefined, options: SurveySearchOptions = {}): string[] {
   if (filesFrom === undefined) {
     if (paths.length === 0) {
       throw new RingfallError('USAGE_NO_INPUT', 'No survey files given. Name the files or the folders that hold them, or give a list with --files-from FILE (one path per line).');
     }
-    return findSurveyFiles(paths);
+    return findSurveyFiles(paths, options);
   }
   const listName = filesFrom === '-' ? 'standard input' : `"${filesFrom}"`;
   let text: string;
@@ -89,5 +131,5 @@ export function surveyFilesFrom(paths: readonly string[], filesFrom: string | un
       { value: missing.map((entry) => entry.path), where: '--files-from' },
     );
   }
-  return findSurveyFiles([...paths, ...listed.map((entry) => entry.path)]);
+  return findSurveyFiles([...paths, ...listed.map((entry) => entry.path)], options);
 }
