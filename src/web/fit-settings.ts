@@ -20,6 +20,8 @@ export interface FitSettings {
   readonly positionUncertainty: string;
   /** Spec JSON text (CONTRACT.md "Spec file"); empty for none. */
   readonly spec: string;
+  /** Where the spec text came from, for the run record: a file's or sample's name, else typed in the page. */
+  readonly specName?: string;
   /** Threshold levels: a field ("0.5 mT"), a preset id or "icnirp-public@50Hz". */
   readonly thresholds: readonly string[];
 }

@@ -16,6 +16,8 @@ export interface IntakeContext {
   readonly openSampleFleet: (() => void) | null;
   readonly removeFile: (id: string) => void;
   readonly clearFiles: () => void;
+  /** Bring back the samples put aside when the user's first file came in. */
+  readonly keepSetAside: () => void;
 }
 
 /**
@@ -23,14 +25,14 @@ export interface IntakeContext {
  * sample fleet, and the list of files with each one's state — the importer's message
  * appears next to the name of a file that could not be read.
  */
-export function intakePanel(context: IntakeContext): { element: HTMLElement; showFiles: (files: readonly FileEntry[]) => void } {
-  const input = h('input', { type: 'file', id: 'survey-files', multiple: true, accept: '.csv,.tsv,.txt,text/csv,text/plain', class: 'visually-hidden' });
+export function intakePanel(context: IntakeContext): { element: HTMLElement; showFiles: (files: readonly FileEntry[]) => void; offerSetAside: (names: readonly string[] | null) => void } {
+  const input = h('input', { type: 'file', id: 'survey-files', multiple: true, accept: '.csv,.tsv,.txt,.json,text/csv,text/plain,application/json', class: 'visually-hidden' });
   input.addEventListener('change', () => {
     if (input.files && input.files.length > 0) context.addFiles([...input.files]);
     input.value = '';
   });
   const zone = h('div', { class: 'drop-zone', id: 'drop-zone' },
-    h('p', {}, 'Drop gaussmeter survey CSV files here'),
+    h('p', {}, 'Drop gaussmeter survey CSV files here, or a report saved as JSON'),
     input, h('label', { for: 'survey-files', class: 'button primary' }, 'Choose survey files…'),
     context.openSampleFleet ? (() => {
       const sample = h('button', { type: 'button', id: 'open-sample-fleet' }, 'Open the sample fleet');
@@ -67,8 +69,17 @@ export function intakePanel(context: IntakeContext): { element: HTMLElement; sho
         outcome?.error ? h('p', { class: 'file-message', role: 'alert', 'data-code': outcome.error.code }, pageText(outcome.error.message)) : null);
     }));
   };
+  // the bundled sample steps aside for the user's own files; one button brings it back
+  const setAsideNote = h('p', { class: 'set-aside muted small', id: 'set-aside', hidden: true });
+  const offerSetAside = (names: readonly string[] | null) => {
+    setAsideNote.hidden = names === null;
+    if (names === null) { replaceChildren(setAsideNote, []); return; }
+    const keep = h('button', { type: 'button', class: 'link', id: 'keep-sample' }, 'Keep the sample too');
+    keep.addEventListener('click', context.keepSetAside);
+    replaceChildren(setAsideNote, [`Your files replaced the bundled sample (${names.join(', ')}). `, keep]);
+  };
   const element = h('section', { class: 'panel', 'aria-labelledby': 'intake-heading' },
-    h('h2', { id: 'intake-heading' }, 'Surveys'), zone, list, clear);
+    h('h2', { id: 'intake-heading' }, 'Surveys'), zone, setAsideNote, list, clear);
   showFiles([]);
-  return { element, showFiles };
+  return { element, showFiles, offerSetAside };
 }

@@ -5,6 +5,7 @@ import { downloadHtmlReport, downloadText } from './downloads';
 import type { PipelineProgress } from './pipeline';
 import { drawCharts, type TickFormatters, renderFleetSection, renderSurveySection, surveyElementId, type ModelLookup } from './report-view';
 import { reportCsv } from '../core/report/report-csv';
+import { renderRunSection } from './report-view/run-section';
 import { toJsonReport } from '../core/report/to-json-report';
 
 Chart.register(...registerables);
@@ -17,7 +18,8 @@ Chart.register(...registerables);
 export function reportPanel(lookup: ModelLookup): {
   element: HTMLElement;
   showProgress: (progress: PipelineProgress) => void;
-  showReport: (report: Report, elapsedMs: number) => void;
+  /** Show a report; `statusLine` replaces the usual "N surveys fitted" (a saved report says what it is). */
+  showReport: (report: Report, elapsedMs: number, statusLine?: string) => void;
   showMessage: (message: string, state: 'idle' | 'failed') => void;
 } {
   let report: Report = { surveys: [] };
@@ -61,6 +63,8 @@ export function reportPanel(lookup: ModelLookup): {
     const parts: string[] = [];
     if (report.surveys.length > 1) parts.push(renderFleetSection(report, report.surveys.map((_, i) => surveyElementId(i))).value);
     if (survey) parts.push(renderSurveySection(survey, lookup, surveyElementId(shown)).value);
+    // how the report was made, as every saved report says it
+    if (report.run) parts.push(renderRunSection(report.run).value);
     // every piece of file text in these strings was escaped by the report view's html template
     body.innerHTML = `<div class="rf-report">${parts.join('')}</div>`;
     const drawing = performance.now();
@@ -89,13 +93,13 @@ export function reportPanel(lookup: ModelLookup): {
         ? `Reading ${p.label.replace(/^reading /, '')} (file ${p.done + 1} of ${p.total})`
         : `${p.label.replace(/^fitting/, 'Fitting')} (survey ${Math.min(p.done + 1, p.total)} of ${p.total})`;
     },
-    showReport: (next, elapsedMs) => {
+    showReport: (next, elapsedMs, statusLine) => {
       report = next;
       shown = Math.min(shown, Math.max(0, next.surveys.length - 1));
       progress.hidden = true;
-      status.textContent = next.surveys.length === 0
+      status.textContent = statusLine ?? (next.surveys.length === 0
         ? 'No survey could be fitted; see the files on the left.'
-        : `${next.surveys.length} survey(s) fitted in ${(elapsedMs / 1000).toFixed(2)} s.`;
+        : `${next.surveys.length} survey(s) fitted in ${(elapsedMs / 1000).toFixed(2)} s.`);
       replaceChildren(chooser, next.surveys.map((s, i) => h('option', { value: String(i), selected: i === shown }, `${s.coil ?? '(no id)'} ${s.date ?? ''} — ${s.source}`)));
       chooserRow.hidden = next.surveys.length < 2;
       for (const b of exports) b.disabled = next.surveys.length === 0;

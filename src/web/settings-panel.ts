@@ -19,7 +19,7 @@ export interface SettingsPanelContext {
  * instrument and position uncertainties, and a spec typed or loaded from a file.
  * Mistakes appear under their input (`showErrors`).
  */
-export function settingsPanel(context: SettingsPanelContext): { element: HTMLElement; showErrors: (errors: readonly SettingError[]) => void; setSpec: (text: string) => void } {
+export function settingsPanel(context: SettingsPanelContext): { element: HTMLElement; showErrors: (errors: readonly SettingError[]) => void; setSpec: (text: string, name: string) => void } {
   const errorSlots = new Map<string, HTMLElement>();
   const slot = (field: string) => {
     const element = h('p', { class: 'field-error', id: uniqueId('err'), role: 'alert' });
@@ -88,14 +88,14 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
   const specId = uniqueId('spec');
   const specError = slot('spec');
   const specText = h('textarea', { id: specId, rows: 5, spellcheck: 'false', placeholder: '{ "model": "loop", "params": { "ampereTurns": "120 A", "radius": "45 mm" }, "tolerance": "10%" }', 'aria-describedby': specError.id }, settings.spec);
-  specText.addEventListener('change', () => context.update({ spec: specText.value }));
+  specText.addEventListener('change', () => context.update({ spec: specText.value, specName: 'typed in the page' }));
   const specFileId = uniqueId('spec-file');
   const specFile = h('input', { id: specFileId, type: 'file', accept: '.json,application/json', class: 'visually-hidden' });
   specFile.addEventListener('change', async () => {
     const file = specFile.files?.[0];
     if (!file) return;
     specText.value = await file.text();
-    context.update({ spec: specText.value });
+    context.update({ spec: specText.value, specName: file.name });
     specFile.value = '';
   });
   const sampleSpec = context.sampleSpecs.length === 0 ? null : (() => {
@@ -103,7 +103,7 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
     const select = h('select', { id }, h('option', { value: '' }, 'a bundled sample spec…'), context.sampleSpecs.map((s, i) => h('option', { value: String(i) }, s.name)));
     select.addEventListener('change', () => {
       const chosen = context.sampleSpecs[Number(select.value)];
-      if (chosen) { specText.value = chosen.text; context.update({ spec: chosen.text }); }
+      if (chosen) { specText.value = chosen.text; context.update({ spec: chosen.text, specName: `sample-data/${chosen.name}` }); }
     });
     return h('span', {}, h('label', { for: id, class: 'visually-hidden' }, 'Load a bundled sample spec'), select);
   })();
@@ -126,6 +126,6 @@ export function settingsPanel(context: SettingsPanelContext): { element: HTMLEle
     }
   };
   showErrors([]);
-  const setSpec = (text: string) => { specText.value = text; context.update({ spec: text }); };
+  const setSpec = (text: string, name: string) => { specText.value = text; context.update({ spec: text, specName: name }); };
   return { element, showErrors, setSpec };
 }

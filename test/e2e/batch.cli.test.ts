@@ -34,12 +34,13 @@ interface FleetCoilJson {
   surveys: number;
   latest: string | null;
   flags: string[];
-  trend: { ampereTurnsPerYear: { value: number; unit: string; ci95: [number, number] } | null };
+  trend: { ampereTurnsPerYear: { value: number; unit: string; ci95: [number, number] } | null; status: string; moreSurveys: number | null };
 }
 interface ReportJson {
   schema: string;
   surveys: { source: string; coil: string | null; date: string | null; verdict: { status: string; findings: string[] } | null }[];
   fleet: { coils: FleetCoilJson[]; unreadable: { source: string; reason: string; code: string }[] };
+  skipped?: { list: string; patterns: string[]; files: string[] }[];
 }
 
 const temporary: string[] = [];
@@ -65,8 +66,11 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
   it('batch --json prints the CONTRACT report: every readable survey of TRUTH.json plus a fleet section with coils[] and unreadable[]', () => {
     const report = JSON.parse(json.stdout) as ReportJson;
     expect(report.schema).toBe('ringfall-report/1');
-    // TRUTH.json: one survey per file, the fleet log's own list of surveys, minus files whose import must fail
-    const readable = truth.filter((entry) => entry.expected?.errorCode === undefined);
+    // TRUTH.json: one survey per file, the fleet log's own list of surveys, minus the flawed/
+    // files that sample-data/.ringfall-skip marks as not surveys (listed in `skipped` instead)
+    const readable = truth.filter((entry) => !entry.file.startsWith('flawed/'));
+    expect(report.skipped).toEqual([{ list: 'sample-data/.ringfall-skip', patterns: ['flawed/'], files: truth.filter((entry) => entry.file.startsWith('flawed/')).map((entry) => `sample-data/${entry.file}`).sort() }]);
+    expect(report.fleet.unreadable).toEqual([]);
     const surveysPerCoil = new Map<string, number>();
     for (const entry of readable) for (const s of entry.surveys ?? [entry]) surveysPerCoil.set(s.coil, (surveysPerCoil.get(s.coil) ?? 0) + 1);
     expect(report.surveys).toHaveLength([...surveysPerCoil.values()].reduce((a, b) => a + b, 0));
@@ -79,12 +83,14 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(sources).toEqual([...sources].sort());
   });
 
-  it('batch lists the file TRUTH.json says cannot be imported in fleet.unreadable with its error code and what to do, and exits 2 (an input error)', () => {
-    const report = JSON.parse(json.stdout) as ReportJson;
+  it('with --no-skip, batch lists the file TRUTH.json says cannot be imported in fleet.unreadable with its error code and what to do, and exits 2 (an input error)', () => {
+    const all = ringfall('batch', 'sample-data', '--spec', spec, '--json', '--workers', '2', '--no-skip');
+    const report = JSON.parse(all.stdout) as ReportJson;
+    expect(report.skipped).toBeUndefined();
     const refused = truth.filter((entry) => entry.expected?.errorCode !== undefined);
     expect(report.fleet.unreadable.map((u) => [u.source, u.code])).toEqual(refused.map((entry) => [`sample-data/${entry.file}`, entry.expected!.errorCode]));
     expect(report.fleet.unreadable[0]!.reason).toContain('--field-unit');
-    expect(json.status).toBe(2);
+    expect(all.status).toBe(2);
   });
 
   it('batch flags the degraded coil QA-107 (TRUTH.json: 360 A → 306 A, radius unchanged) as degrading with a negative trend, and the steady QA-330 not', () => {
@@ -96,6 +102,10 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(qa107.latest).toBe('2026-03-10');
     // TRUTH.json: QA-330 steady (400 ± 1 A over the year)
     expect(report.fleet.coils.find((c) => c.coil === 'QA-330')!.flags).not.toContain('degrading');
+    // sample-data/README.md "What ringfall makes of them": the trend words of the three logged coils
+    const status = (coil: string) => report.fleet.coils.find((c) => c.coil === coil)!.trend.status;
+    expect([status('QA-107'), status('QA-330'), status('QA-412')]).toEqual(['declining', 'steady', 'undetermined']);
+    expect(report.fleet.coils.find((c) => c.coil === 'QA-412')!.trend.moreSurveys).toBeGreaterThan(0);
     // the spec check of the latest QA-107 survey finds the amplitude loss (DOMAIN.md §5)
     const latest = report.surveys.find((s) => s.coil === 'QA-107' && s.date === '2026-03-10' && s.source.endsWith('degraded.csv'))!;
     expect(latest.verdict).toMatchObject({ status: 'fail' });
@@ -103,7 +113,11 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
   });
 
   it('batch prints the fleet summary on stdout (one entry per coil, then what needs attention first, the failed and degrading coil first) and progress only on stderr', () => {
-    expect(text.status).toBe(2);
+    // a spec failed and QA-107 is degrading: exit 1 (CONTRACT.md exit status)
+    expect(text.status).toBe(1);
+    // the skip list's one line, on stderr and in the summary
+    expect(text.stderr).toContain('ringfall batch: left out 3 files that sample-data/.ringfall-skip lists as not surveys (flawed/); --no-skip fits them too\n');
+    expect(text.stdout).toMatch(/^ {2}3 files left out: sample-data\/\.ringfall-skip lists flawed\/ as not surveys/m);
     // the coils of TRUTH.json (QA-412 only in the fleet log)
     const coils = ['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9'];
     for (const coil of coils) expect(text.stdout).toMatch(new RegExp(`^${coil}: \\d+ surveys?, latest `, 'm'));
@@ -112,11 +126,11 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(text.stdout).toMatch(/^ {4}model loop \(spec's model\): ampere-turns 306 A \(\d+–\d+\) ·\s+radius 45\.\d mm/m);
     const attention = text.stdout.slice(text.stdout.indexOf('What needs attention first'));
     expect(attention).toMatch(/^ {2}1\. QA-107: failed its spec \(degraded[^)]*\); degrading -\d+ A\/yr/m);
-    expect(attention.indexOf('QA-214')).toBeLessThan(attention.indexOf('no-field-unit.csv'));
+    expect(attention.indexOf('QA-214')).toBeGreaterThan(0);
     expect(text.stdout).not.toContain('ringfall batch:');
-    // TRUTH.json lists the 10 survey files of sample-data/ (flawed/ included); --workers 2
-    expect(text.stderr).toMatch(/^ringfall batch: 10 survey files on 2 workers$/m);
-    expect(text.stderr).toMatch(/^ringfall batch: 10 files in [\d.]+ s/m);
+    // TRUTH.json lists the 10 survey files of sample-data/, 3 of them in flawed/; --workers 2
+    expect(text.stderr).toMatch(/^ringfall batch: 7 survey files on 2 workers$/m);
+    expect(text.stderr).toMatch(/^ringfall batch: 7 files in [\d.]+ s/m);
   });
 
   it('batch --out DIR writes index.html and one self-contained report per coil, linked from the index', () => {
@@ -127,7 +141,8 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
       expect(html).toContain("default-src 'none'");
       expect(html).not.toMatch(/<script[^>]+src=|<link[^>]+href="http/);
     }
-    expect(index).toContain('no-field-unit.csv');
+    // the skip list's line is on the index too, so the page says what was left out
+    expect(index).toContain('3 files left out: sample-data/.ringfall-skip lists flawed/ as not surveys');
   });
 
   it('batch --out pages open offline in Chromium: the index links to a coil page that draws its charts, with no console error and no outside request', async () => {

@@ -10,8 +10,9 @@ const root = join(import.meta.dirname, '..', '..');
 const scratch = mkdtempSync(join(tmpdir(), 'ringfall-files-from-'));
 const files = ['sample-data/qa-107-2025-03-11-healthy.csv', 'sample-data/qm-03-2026-01-20-mat.csv', 'sample-data/qt-9-2026-02-03-thick.csv'];
 
+// a fixed time of the run (SOURCE_DATE_EPOCH), so two runs' reports can be compared byte for byte
 function ringfall(args: string[], input?: string) {
-  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, ...(input === undefined ? {} : { input }) });
+  const result = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env: { ...process.env, SOURCE_DATE_EPOCH: '1773480600' }, ...(input === undefined ? {} : { input }) });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 

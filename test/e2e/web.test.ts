@@ -153,7 +153,7 @@ describe('web page', () => {
     // a dropped file whose read fails, as when it was moved or deleted after being chosen
     await page.evaluate(() => {
       const gone = new File(['x'], 'moved-away.csv');
-      Object.defineProperty(gone, 'text', { value: () => Promise.reject(new DOMException('the file changed on disk', 'NotReadableError')) });
+      for (const read of ['text', 'arrayBuffer']) Object.defineProperty(gone, read, { value: () => Promise.reject(new DOMException('the file changed on disk', 'NotReadableError')) });
       const drop = new Event('drop', { cancelable: true });
       Object.defineProperty(drop, 'dataTransfer', { value: { files: [gone] } });
       document.dispatchEvent(drop);
@@ -259,7 +259,7 @@ describe('web page', () => {
     // sample-data/README.md: the fleet log holds QA-107, QA-330 and QA-412
     await expect(page.locator('.rf-coils-table').innerText()).resolves.toMatch(/QA-107[\s\S]*QA-330[\s\S]*QA-412/);
     expect(await page.locator('#rf-fleet-history').count()).toBe(1);
-    await page.locator('.rf-fleet').screenshot({ path: join(artifactsDir, 'web-fleet.png') });
+    await page.locator('.rf-fleet').first().screenshot({ path: join(artifactsDir, 'web-fleet.png') });
   });
 
   it('reads well on a narrow screen', async () => {

@@ -14,7 +14,12 @@ function survey(coil: string | null, verdict: Verdict | null = null, best: 'loop
 function history(coil: string, flags: string[], slope: number | null = null, reference = 400): FleetCoil {
   return {
     coil, surveys: 3, latest: '2026-01-01', flags,
-    trend: { ampereTurnsPerYear: slope === null ? null : { value: slope, unit: 'A/yr', ci95: [slope - 5, slope + 5] } },
+    trend: {
+      ampereTurnsPerYear: slope === null ? null : { value: slope, unit: 'A/yr', ci95: [slope - 5, slope + 5] },
+      status: slope === null ? 'undetermined' : slope + 5 < 0 ? 'declining' : 'undetermined',
+      steadyBand: { value: 0.05 * reference, unit: 'A/yr' },
+      moreSurveys: null,
+    },
     model: 'loop', reference: { kind: 'first-survey', ampereTurns: reference, unit: 'A' }, history: [],
     explanations: flags.map((flag) => `${flag}: evidence for ${coil}.`),
   };

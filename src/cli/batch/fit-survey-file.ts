@@ -1,4 +1,4 @@
-import { readFileSync } from 'node:fs';
+import { readSurveyBytes } from '../read-survey-bytes';
 import { isRingfallError } from '../../core/errors';
 import { analyseSurvey } from '../../core/report/analyse-survey';
 import type { SurveyReport } from '../../core/report/report';
@@ -21,7 +21,7 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   const unreadable: UnreadableEntry[] = [];
   let imported;
   try {
-    imported = importSurveys(readFileSync(source, 'utf8'), { source, ...settings.import });
+    imported = importSurveys(readSurveyBytes(source).toString('utf8'), { source, ...settings.import });
   } catch (error) {
     const entry = isRingfallError(error) ? { source, reason: error.message, code: error.code } : readFailure(source, error);
     if (entry === null) throw error;

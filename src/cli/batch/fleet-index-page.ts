@@ -1,3 +1,5 @@
+import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
+import { describeValue } from '../../core/analysis/describe-value';
 import type { Report } from '../../core/report/report';
 import { documentHead } from '../../web/report-view/document-head';
 import { html, type SafeHtml } from '../../web/report-view/html';
@@ -20,13 +22,14 @@ export function renderFleetIndexPage(report: Report, pages: readonly string[], c
   const attention = attentionList(rows, unreadable);
   const page: SafeHtml = html`${documentHead("default-src 'none'; style-src 'unsafe-inline'", 'ringfall fleet summary', 1000)}<body class="rf-report">
 <header><h1>Fleet summary</h1>
-<p>${rows.filter((row) => row.coil !== null).length} coils, ${report.surveys.length} surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p></header>
+<p>${rows.filter((row) => row.coil !== null).length} coils, ${report.surveys.length} surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p>
+${(report.skipped ?? []).map((entry) => html`<p class="rf-note">${entry.files.length} files left out: ${entry.list} lists ${entry.patterns.join(', ')} as not surveys (${entry.files.join(', ')}).</p>`)}</header>
 <section class="rf-fleet"><h2>Coils</h2>
 <table class="rf-table"><thead><tr><th scope="col">coil</th><th scope="col">surveys</th><th scope="col">latest</th><th scope="col">model</th><th scope="col">coil as measured (95% interval)</th><th scope="col">spec</th><th scope="col">history</th></tr></thead>
 <tbody>${rows.map((row, i) => {
     const figures = coilFigures(row);
     const verdict = row.latest.verdict;
-    return html`<tr><th scope="row" class="rf-nowrap"><a href="${pages[i] ?? ''}">${row.coil ?? `(no coil id) ${row.latest.source}`}</a></th><td class="rf-num">${row.surveys}</td><td class="rf-nowrap">${row.latest.date ?? '—'}</td><td>${figures ? figures.model : 'no physical model converged'}</td><td>${figures ? figures.figures.join('; ') : '—'}</td><td>${verdict ? html`<span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span>${verdict.findings.length ? ` (${verdict.findings.join(', ')})` : ''}` : 'no spec'}</td><td>${row.history ? row.history.flags.join(', ') || 'no flag' : 'no coil id'}</td></tr>`;
+    return html`<tr><th scope="row" class="rf-nowrap"><a href="${pages[i] ?? ''}">${row.coil ?? `(no coil id) ${row.latest.source}`}</a></th><td class="rf-num">${row.surveys}</td><td class="rf-nowrap">${row.latest.date ?? '—'}</td><td>${figures ? figures.model : 'no physical model converged'}</td><td>${figures ? figures.figures.join('; ') : '—'}</td><td>${verdict ? html`<span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span>${verdict.findings.length ? ` (${verdict.findings.join(', ')})` : ''}` : 'no spec'}</td><td>${row.history ? historyHeadline(row.history, (rate) => `${describeValue(rate, 'current')}/yr`) : 'no coil id'}</td></tr>`;
   })}</tbody></table></section>
 <section class="rf-fleet"><h2>What needs attention first</h2>
 ${attention.length === 0 ? html`<p>Nothing: every survey was fitted, no spec failed and no history flag is set.</p>` : html`<ol>${attention.map((item) => html`<li><strong>${item.subject}</strong>: ${item.reasons.join('; ')}<ul>${item.evidence.map((sentence) => html`<li>${sentence}</li>`)}</ul></li>`)}</ol>`}

@@ -1,3 +1,4 @@
+import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
 import { wrap } from '../../core/report/render-text';
 import { describeValue } from '../../core/analysis/describe-value';
 import type { Report, ThresholdResult } from '../../core/report/report';
@@ -41,6 +42,10 @@ export function renderFleetSummary(report: Report, coverage: BatchCoverage): str
     unreadable.length > 0 ? `${plural(unreadable.length, 'file or part', 'files or parts')} could not be used` : '',
   ].filter((text) => text !== '');
   if (extra.length > 0) lines.push(`  ${extra.join('; ')}`);
+  // what a folder's skip list kept out of the fleet, one line per list
+  for (const entry of report.skipped ?? []) {
+    lines.push(...wrap(`${plural(entry.files.length, 'file')} left out: ${entry.list} lists ${entry.patterns.join(', ')} as not surveys (--no-skip fits them)`, 2, 4));
+  }
   for (const row of rows) lines.push(...(row === rows[0] ? [''] : []), ...rowLines(row));
   if (rows.some((row) => row.latest.thresholds.length > 0)) lines.push('', ...wrap(exposureCaution, 0));
 
@@ -85,11 +90,10 @@ function thresholdText(threshold: ThresholdResult): string {
 
 function historyText(row: FleetRow): string {
   if (row.history === null) return 'none (no coil id)';
-  const flags = row.history.flags.length > 0 ? row.history.flags.join(', ') : 'no flag';
-  const trend = row.history.trend.ampereTurnsPerYear;
-  if (trend === null) return row.surveys === 1 ? `${flags}; one survey, no trend` : `${flags}; no trend`;
   const show = (x: number) => formatNumber(x, 3);
-  return `${flags}; ampere-turns ${show(trend.value)} A/yr (95 % ${show(trend.ci95[0])} to ${show(trend.ci95[1])})`;
+  const headline = historyHeadline(row.history, (rate) => `${show(rate)} A/yr`);
+  const trend = row.history.trend.ampereTurnsPerYear;
+  return trend === null ? headline : `${headline}; ampere-turns ${show(trend.value)} A/yr (95 % ${show(trend.ci95[0])} to ${show(trend.ci95[1])})`;
 }
 
 function plural(n: number, one: string, many = `${one}s`): string {

@@ -12,7 +12,9 @@ import { runBatch } from '../batch/run-batch';
 import { prepareOutFolder, writeHtmlReports } from '../batch/write-html-reports';
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
 import { checksStatus } from '../checks-status';
-import { surveyFilesFrom } from '../find-survey-files';
+import { printable } from '../../core/text/printable';
+import { skippedLines, surveyFilesFrom, type UnusablePath } from '../find-survey-files';
+import { skipListName, type SkippedFiles } from '../skip-list';
 import { exitStatus, worseStatus } from '../exit-codes';
 import { reportUnappliedSpecs } from './fit';
 import type { CommandContext } from '../main';
@@ -24,6 +26,7 @@ interface BatchFlags extends FitFlags {
   readonly workers?: string;
   readonly filesFrom?: string;
   readonly progressEvery?: string;
+  readonly skip?: boolean;
 }
 
 /**
@@ -49,18 +52,25 @@ export function registerBatch(program: Command, context: CommandContext): void {
     .option('--out <dir>', 'also write one HTML report per coil and an index.html into this folder')
     .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
     .option('--progress-every <seconds>', 'seconds between progress lines when stderr is not a terminal (default 2)')
+    .option('--no-skip', `also fit what a folder's ${skipListName} list names as not surveys`)
     .action(async (paths: string[], flags: BatchFlags) => {
       const time = runTime();
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
       const progressInterval = readProgressEvery(flags.progressEvery);
-      const files = surveyFilesFrom(paths, flags.filesFrom);
+      const skipped: SkippedFiles[] = [];
+      const unusable: UnusablePath[] = [];
+      const files = surveyFilesFrom(paths, flags.filesFrom, { skipLists: flags.skip !== false, skipped, unusable });
       if (flags.out !== undefined) prepareOutFolder(flags.out);
+      for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
       // the files' SHA-256 for the run record, read on this thread while the workers fit
       const hashing = describeFiles(files);
       const result = await runBatch(files, settings, { workers, progress: process.stderr, ...(progressInterval === null ? {} : { progressInterval }) });
-      const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import });
-      const report: Report = { ...result.report, run: cliRunRecord('batch', time, await hashing, runSettings) };
+      const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
+      // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
+      const fleet = result.report.fleet === undefined || unusable.length === 0 ? result.report.fleet
+        : { ...result.report.fleet, unreadable: [...unusable, ...result.report.fleet.unreadable] };
+      const report: Report = { ...result.report, ...(fleet ? { fleet } : {}), run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
       const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
       if (flags.json === true) {
         const json = toJsonReport(report);
@@ -74,7 +84,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
         process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
       }
       reportUnappliedSpecs(result.report);
-      context.setExitCode(result.interrupted ? exitStatus.interrupted : batchStatus(result.report));
+      context.setExitCode(result.interrupted ? exitStatus.interrupted : batchStatus(report));
     });
 }
 

@@ -15,7 +15,9 @@ import { readSpecFile } from '../../io/spec';
 import { renderReportDocument } from '../../web/report-view';
 import { chartLibrarySource } from '../../web/report-view/chart-library-node';
 import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } from '../fit-options';
-import { surveyFilesFrom } from '../find-survey-files';
+import { skippedLines, surveyFilesFrom, type UnusablePath } from '../find-survey-files';
+import { skipListName, type SkippedFiles } from '../skip-list';
+import { readSurveyBytes } from '../read-survey-bytes';
 import type { CommandContext } from '../main';
 import { checksStatus } from '../checks-status';
 import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
@@ -37,19 +39,27 @@ export function registerFit(program: Command, context: CommandContext): void {
       .command('fit')
       .description('fit coil models to survey files and print the report')
       .argument('[files...]', 'survey CSV files, or folders to search for them')
-      .option('--files-from <list>', 'also fit the paths listed in this file, one per line (- reads standard input); for runs too long for a command line'),
-  ).action(async (files: string[], flags: FitFlags & { readonly filesFrom?: string }) => {
+      .option('--files-from <list>', 'also fit the paths listed in this file, one per line (- reads standard input); for runs too long for a command line')
+      .option('--no-skip', `also fit what a folder's ${skipListName} list names as not surveys`),
+  ).action(async (files: string[], flags: FitFlags & { readonly filesFrom?: string; readonly skip?: boolean }) => {
     const options = readFitFlags(flags);
     const time = runTime();
     // a side file's folder is checked before any fitting, so a typo costs nothing
     for (const [path, option] of [[options.html, '--html'], [options.csv, '--csv']] as const) if (path !== null) checkOutputFolder(path, option);
     const specs = options.spec === null ? [] : await readSpecFile(options.spec);
-    const { reports, problems, rejected, inputs } = fitFiles(surveyFilesFrom(files, flags.filesFrom), options, specs);
+    const skipped: SkippedFiles[] = [];
+    const unusable: UnusablePath[] = [];
+    const paths = surveyFilesFrom(files, flags.filesFrom, { skipLists: flags.skip !== false, skipped, unusable });
+    for (const line of skippedLines(skipped)) process.stderr.write(`ringfall: ${printable(line)}\n`);
+    // a folder that cannot be listed, a pipe, a broken link: named with the reason, exit 2
+    for (const path of unusable) process.stderr.write(`ringfall: "${printable(path.source)}": ${printable(path.reason)}\n`);
+    if (unusable.length > 0) context.setExitCode(2);
+    const { reports, problems, rejected, inputs } = fitFiles(paths, options, specs);
     for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
     if (problems.length > 0) context.setExitCode(2);
     if (reports.length === 0) return;
-    const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import }));
-    const report: Report = { surveys: reports, rejected, run };
+    const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } }));
+    const report: Report = { surveys: reports, rejected, run, ...(skipped.length > 0 ? { skipped } : {}) };
     writeSideFiles(report, options);
     process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
     reportUnappliedSpecs(report);
@@ -124,12 +134,12 @@ export function fitFiles(
 function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[], inputs: RunInput[]): SurveyReport[] {
   let text: string;
   try {
-    const bytes = readFileSync(path);
+    const bytes = readSurveyBytes(path);
     inputs.push(describeBytes(path, bytes));
     text = bytes.toString('utf8');
-  } catch (cause) {
-    inputs.push(unreadableInput(path, `could not be read: ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}`));
-    throw new RingfallError('INPUT_UNREADABLE', `Cannot read "${path}": ${(cause as Error).message}. Check the path and its permissions.`, { value: path, cause });
+  } catch (error) {
+    inputs.push(unreadableInput(path, `could not be read: ${isRingfallError(error) ? error.code : (error as Error).message}`));
+    throw error;
   }
   const imported = importSurveys(text, { source: path, ...options.import });
   // each survey's notes already hold the file's (units read, columns ignored, …)

@@ -53,6 +53,10 @@ describe('ringfall plan', () => {
     expect(missing.stderr).toBe('ringfall: --set: loop needs rough values for radius. Give them like --set radius=50mm.\n');
     expect((await run('--model', 'helix', '--set', 'radius=4mm')).stderr).toContain('Use one of: loop');
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--points', '3')).code).toBe(2);
+    // a billion positions would exhaust memory (it did: V8 out of memory, exit 134); refused up front
+    const huge = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--points', '1e9');
+    expect(huge.code).toBe(2);
+    expect(huge.stderr).toBe('ringfall: --points: "1e9" is not a whole number from 2 to 1000. Give the number of probe positions, e.g. --points 12.\n');
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mT')).stderr).toContain('length');
     expect((await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--reach', '5mm-200mm')).stderr).toContain('5mm..200mm');
   });

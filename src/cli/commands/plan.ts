@@ -29,6 +29,9 @@ interface PlanFlags {
 
 const collect = (value: string, previous: string[]) => [...previous, value];
 
+/** Most probe positions a plan takes: more than a survey by hand can use, and the design stays fast and small. */
+const mostPoints = 1000;
+
 /**
  * `ringfall plan --model ID --set NAME=QTY... [--fix NAME=QTY] [--points N]
  * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1µT]
@@ -85,7 +88,9 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
   }
   const size = Math.max(0, ...model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? values[j]! : 0)));
   const count = Number(flags.points);
-  if (!Number.isInteger(count) || count < 2) throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number ≥ 2. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
+  if (!Number.isInteger(count) || count < 2 || count > mostPoints) {
+    throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number from 2 to ${mostPoints}. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
+  }
   const reach = flags.reach ? readReach(flags.reach) : ([0, size > 0 ? 4 * size : 0.2] as const);
   const probeSize = flags.probeSize ? length(flags.probeSize, '--probe-size') : Math.min(0.005, (reach[1] - reach[0]) / (2 * count));
   const uncertainty = parseRelativePlusAbsolute(flags.uncertainty, 'field', '--uncertainty');

@@ -15,6 +15,7 @@ const labels: Readonly<Record<string, string>> = {
   fieldUnit: 'field unit of headers without one',
   distanceUnit: 'distance unit of headers without one',
   columnsSetByHand: 'columns set by hand',
+  skipLists: 'folders\' .ringfall-skip lists honoured',
   model: 'model',
   parameters: 'parameter values',
   distance: 'distance along the axis',

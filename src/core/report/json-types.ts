@@ -1,7 +1,7 @@
 import type { ModelId, ParameterUnit } from '../models/field-model';
 import type { ReadingType } from '../survey/survey';
 import type { RunRecord } from './run-record';
-import type { FleetSummary, SpecUse, ThresholdResult, Verdict } from './report';
+import type { FleetSummary, SkippedFiles, SpecUse, ThresholdResult, Verdict } from './report';
 
 /**
  * The JSON the CLI prints and the library's `toJsonReport` returns (docs/CONTRACT.md), as
@@ -119,6 +119,8 @@ export interface JsonReport {
   fleet?: JsonFleet;
   /** batch only, when Ctrl-C stopped the run: the report covers the files done. */
   partial?: { readonly filesDone: number; readonly filesTotal: number };
+  /** Files a folder's skip list left out of the search (present when any was). */
+  skipped?: readonly SkippedFiles[];
   /** How the report was made (version, command, time, inputs with SHA-256, settings); first in the file when present. */
   readonly run?: RunRecord;
 }

@@ -137,6 +137,12 @@ export interface FleetCoil {
   readonly flags: readonly string[];
   readonly trend: {
     readonly ampereTurnsPerYear: { readonly value: number; readonly unit: 'A/yr'; readonly ci95: readonly [number, number] } | null;
+    /** What the trend says (trend-reading.ts): declining, rising, steady (inside ±steadyBand), or undetermined. */
+    readonly status: 'declining' | 'rising' | 'steady' | 'undetermined';
+    /** The reference's tolerance per year: a trend inside ±this is steady; null without a trend. */
+    readonly steadyBand: { readonly value: number; readonly unit: 'A/yr' } | null;
+    /** For an undetermined trend, how many more surveys at the same interval and precision would decide; else null. */
+    readonly moreSurveys: number | null;
   };
   /** The model whose parameters are trended. */
   readonly model: ModelId | null;
@@ -167,4 +173,15 @@ export interface Report {
   readonly rejected?: readonly SetAsideRow[];
   /** How the report was made (version, time, input files and their SHA-256, settings); CONTRACT.md `run`. */
   readonly run?: RunRecord;
+  /** Files a folder's skip list left out of the search, one entry per list (CONTRACT.md `skipped`). */
+  readonly skipped?: readonly SkippedFiles[];
+}
+
+/** What one folder's skip list (`.ringfall-skip`) left out of a search. */
+export interface SkippedFiles {
+  /** The list file, as the search reached it. */
+  readonly list: string;
+  readonly patterns: readonly string[];
+  /** The survey files left out. */
+  readonly files: readonly string[];
 }

@@ -24,6 +24,7 @@ export function toJsonReport(report: Report): JsonReport {
   if (report.rejected !== undefined) {
     json['rejected'] = report.rejected.map((row) => ({ source: row.source, ...rowToJson(row) }));
   }
+  if (report.skipped !== undefined && report.skipped.length > 0) json['skipped'] = report.skipped;
   if (report.fleet !== undefined) json['fleet'] = report.fleet;
   return json;
 }

@@ -11,6 +11,7 @@ import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
 import { reportSummaryFit, summaryBasisWords } from '../../core/analysis/summary-fit';
 import { getModel } from '../../core/models';
+import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
 
 /** Colours for coils in the history chart, cycled; our own. */
 const seriesColours = ['#b23a48', '#2e6f95', '#3b8a5a', '#8c6d1f', '#7b4f9e', '#1f8a8a', '#a05a8c', '#707c3a'];
@@ -66,7 +67,9 @@ ${history ? chartFigure('rf-fleet-history', 'History: ampere-turns of each coil 
 function coilsBlock(fleet: FleetSummary): SafeHtml {
   const trend = (coil: FleetCoil) => {
     const perYear = coil.trend.ampereTurnsPerYear;
-    return perYear ? `${formatNumber(perYear.value, 3)} A/yr (${formatNumber(perYear.ci95[0], 3)} to ${formatNumber(perYear.ci95[1], 3)})` : '—';
+    // the word first (steady, declining, undetermined — and what would decide), then the numbers
+    const words = historyHeadline({ ...coil, flags: [] }, (rate) => `${formatNumber(rate, 3)} A/yr`);
+    return perYear ? `${words}: ${formatNumber(perYear.value, 3)} A/yr (${formatNumber(perYear.ci95[0], 3)} to ${formatNumber(perYear.ci95[1], 3)})` : words;
   };
   const reference = (coil: FleetCoil) => (coil.reference ? `${amperes(coil.reference.ampereTurns)} (${coil.reference.kind === 'spec' ? 'label' : 'first survey'})` : '—');
   return html`<table class="rf-table rf-coils-table"><thead><tr><th scope="col">coil</th><th scope="col">surveys</th><th scope="col">latest</th><th scope="col">model</th><th scope="col">compared with</th><th scope="col">ampere-turn trend</th><th scope="col">flags</th></tr></thead>

@@ -8,7 +8,7 @@ import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
 import { residualsChart } from './residuals-chart';
 import { bestFit, rankedFits, type ModelLookup } from './survey-facts';
-import { thresholdSection, verdictSection } from './verdict-section';
+import { specNotMadeSection, thresholdSection, verdictSection } from './verdict-section';
 
 /** How many set-aside rows are listed in the page; the JSON export has every one. */
 const rejectedListed = 200;
@@ -36,7 +36,8 @@ export function renderSurveySection(survey: SurveyReport, lookup: ModelLookup, i
 </dl>
 </header>
 ${survey.notes.length > 0 ? html`<ul class="rf-import-notes">${survey.notes.map((n) => html`<li>${n}</li>`)}</ul>` : ''}
-${survey.verdict ? verdictSection(survey.verdict) : ''}
+${survey.spec?.applied === false ? specNotMadeSection(survey.spec) : ''}
+${survey.verdict ? verdictSection(survey.verdict, survey.spec ?? null) : ''}
 ${best ? parameterBlock(best, lookup, 'The coil as fitted') : html`<p class="rf-empty">${survey.fits.some((fit) => fit.converged) ? 'No model can be ranked (too few readings); the warnings below say why.' : 'No model converged; the warnings below say why.'}</p>`}
 ${falloff ? chartFigure(`${id}-falloff`, 'Falloff: field against distance', falloff) : html`<p class="rf-empty">No falloff chart: no reading at a positive distance with a positive field.</p>`}
 ${residuals ? chartFigure(`${id}-residuals`, 'Residuals: what each model leaves over', residuals) : ''}

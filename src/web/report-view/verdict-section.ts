@@ -1,4 +1,4 @@
-import type { SpecCheck, ThresholdResult, Verdict } from '../../core/report/report';
+import type { SpecCheck, SpecUse, ThresholdResult, Verdict } from '../../core/report/report';
 import { formatNumber, formatQuantity } from '../../core/units';
 import { html, type SafeHtml } from './html';
 
@@ -8,9 +8,23 @@ const statusWords: Readonly<Record<SpecCheck['status'], string>> = {
   inconclusive: 'cannot be decided from these readings',
 };
 
-/** The spec verdict: status in words, findings, each check with its evidence sentence. */
-export function verdictSection(verdict: Verdict): SafeHtml {
+/** A spec was given but none applies to this survey's coil: said plainly, never left out. */
+export function specNotMadeSection(spec: SpecUse): SafeHtml {
+  return html`<section class="rf-block rf-verdict rf-spec-not-made"><h3>Spec check not made</h3><p>${spec.reason ?? `No spec in ${spec.source} applies to this coil.`}</p></section>`;
+}
+
+/**
+ * The spec verdict: status in words, which spec and model it used and the decision rule,
+ * findings, each check with its evidence sentence.
+ */
+export function verdictSection(verdict: Verdict, spec: SpecUse | null = null): SafeHtml {
+  const basis = [
+    spec?.applied === true ? `Checked against ${spec.source}` : null,
+    verdict.model ? `with the ${verdict.model} model` : null,
+  ].filter((part) => part !== null).join(' ');
   return html`<section class="${`rf-block rf-verdict rf-status-${verdict.status}`}"><h3>Verdict: <span class="${`rf-status rf-status-${verdict.status}`}">${verdict.status}</span> — the coil ${statusWords[verdict.status]}</h3>
+${basis !== '' ? html`<p class="rf-sub rf-verdict-basis">${basis}.</p>` : ''}
+${verdict.rule ? html`<p class="rf-sub rf-verdict-rule">Rule: ${verdict.rule}</p>` : ''}
 ${verdict.findings.length > 0 ? html`<p class="rf-findings">Findings: ${verdict.findings.map((f, i) => html`${i > 0 ? ', ' : ''}<strong>${f}</strong>`)}</p>` : ''}
 ${verdict.explanations.map((sentence) => html`<p>${sentence}</p>`)}
 ${verdict.checks.length > 0 ? html`<table class="rf-table rf-checks"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th></tr></thead>

@@ -11,6 +11,7 @@ import { selectSpec } from '../spec/select-spec';
 import type { Spec } from '../spec/spec';
 import type { FleetSurvey } from './fleet-history';
 import { geometryChanges } from './geometry-changes';
+import { readTrend, trendWords } from './trend-reading';
 import { weightedLine } from './weighted-line';
 
 const normal975 = 1.959963984540054;
@@ -30,16 +31,24 @@ const msPerYear = 365.25 * 86_400_000;
  * its spec.
  */
 export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs: readonly Spec[], defaultTolerance: RelativePlusAbsolute): FleetCoil {
-  const ordered = [...surveys].sort((a, b) => (a.date === null ? 1 : 0) - (b.date === null ? 1 : 0) || (a.date ?? '').localeCompare(b.date ?? ''));
+  // date order, undated last; on one date, by file name then order in the file (a stated
+  // rule, so the order never depends on which worker finished first)
+  const ordered = surveys
+    .map((survey, index) => ({ survey, index }))
+    .sort((a, b) => (a.survey.date === null ? 1 : 0) - (b.survey.date === null ? 1 : 0)
+      || (a.survey.date ?? '').localeCompare(b.survey.date ?? '')
+      || (a.survey.source < b.survey.source ? -1 : a.survey.source > b.survey.source ? 1 : 0)
+      || a.index - b.index)
+    .map(({ survey }) => survey);
   const spec = selectSpec(specs, coil);
   const model = spec?.model ?? commonModel(ordered);
   const fits = ordered.map((s) => (model === null ? null : convergedFit(s.fits, model)));
   const explanations: string[] = [];
   const labelTurns = spec?.params.find((p) => p.name === 'ampereTurns');
-  const firstTurns = fits.map((f) => usable(f?.params['ampereTurns'])).find((e) => e !== null) ?? null;
+  const baseline = baselineOf(ordered, fits);
   const reference = labelTurns
     ? { kind: 'spec' as const, ampereTurns: labelTurns.value, unit: 'A' as const }
-    : firstTurns ? { kind: 'first-survey' as const, ampereTurns: firstTurns.value, unit: 'A' as const } : null;
+    : baseline ? { kind: 'first-survey' as const, ampereTurns: baseline.value, unit: 'A' as const } : null;
   const tolerance = labelTurns?.tolerance ?? defaultTolerance;
   const history: FleetEntry[] = ordered.map((survey, i) => entryOf(survey, fits[i] ?? null, reference?.ampereTurns ?? null));
 
@@ -48,9 +57,12 @@ export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs
     return survey.date !== null && estimate !== null && !Number.isNaN(Date.parse(survey.date)) ? [{ survey, estimate, fit: fits[i]! }] : [];
   });
   const undated = ordered.filter((s) => s.date === null).length;
+  if (reference?.kind === 'first-survey' && baseline !== null && baseline.surveys > 1) {
+    explanations.push(`baseline: the ${baseline.surveys} surveys of ${baseline.date}, the earliest date, combined by inverse-variance weight (${describeValue(baseline.value, 'current', [baseline.value - normal975 * baseline.stderr, baseline.value + normal975 * baseline.stderr])}).`);
+  }
   if (undated > 0) explanations.push(`${undated} survey(s) without a date are listed last and left out of the trend.`);
   if (model === null) explanations.push('No physical model converged on any survey, so there is nothing to trend.');
-  let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null };
+  let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null, status: 'undetermined', steadyBand: null, moreSurveys: null };
   const flags: string[] = [];
   const times = dated.map((d) => (Date.parse(d.survey.date!) - Date.parse(dated[0]!.survey.date!)) / msPerYear);
   let trendSentence: string | null = null;
@@ -58,18 +70,19 @@ export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs
     const line = weightedLine(times, dated.map((d) => d.estimate.value), dated.map((d) => d.estimate.stderr));
     const q = line.degreesOfFreedom > 0 ? studentTQuantile(0.975, line.degreesOfFreedom) : normal975;
     const ci95: [number, number] = [line.slope - q * line.slopeStandardError, line.slope + q * line.slopeStandardError];
-    trend = { ampereTurnsPerYear: { value: line.slope, unit: 'A/yr', ci95 } };
-    const verdict = ci95[1] < 0 ? 'a significant decline' : ci95[0] > 0 ? 'a significant rise' : 'no significant trend';
-    trendSentence = `ampere-turns change ${describeValue(line.slope, 'current', ci95)} per year over ${dated.length} dated surveys: ${verdict}`;
+    const referenceTurns = reference?.ampereTurns ?? dated[0]!.estimate.value;
+    const band = tolerance.relative * Math.abs(referenceTurns) + tolerance.absolute;
+    const reading = readTrend(line.slope, ci95, band, dated.length);
+    trend = { ampereTurnsPerYear: { value: line.slope, unit: 'A/yr', ci95 }, status: reading.status, steadyBand: { value: band, unit: 'A/yr' }, moreSurveys: reading.moreSurveys };
+    trendSentence = `ampere-turns change ${describeValue(line.slope, 'current', ci95)} per year over ${dated.length} dated surveys: ${trendWords(reading, (rate) => describeValue(rate, 'current'))}`;
   } else if (model !== null) {
-    explanations.push('Fewer than two dated surveys with determined ampere-turns: no trend.');
+    explanations.push(`trend undetermined: ${dated.length === 0 ? 'no dated survey has' : 'only one dated survey has'} determined ampere-turns; a trend needs surveys on at least two dates.`);
   }
   // The decline that matters: the latest survey against the reference, significant and beyond tolerance.
   const latest = [...dated].reverse()[0] ?? null;
-  const first = dated[0] ?? null;
-  if (reference && latest && (reference.kind === 'spec' || (first && first !== latest))) {
+  if (reference && latest && (reference.kind === 'spec' || (baseline !== null && latest.survey.date !== baseline.date))) {
     const limit = reference.ampereTurns - (tolerance.relative * Math.abs(reference.ampereTurns) + tolerance.absolute);
-    const latestHigh = reference.kind === 'first-survey' ? upperOfDifference(latest, first!) + reference.ampereTurns : latest.estimate.ci95[1];
+    const latestHigh = reference.kind === 'first-survey' ? upperOfDifference(latest, baseline!) + reference.ampereTurns : latest.estimate.ci95[1];
     const against = `${reference.kind === 'spec' ? 'the label\'s' : 'the first survey\'s'} ${describeValue(reference.ampereTurns, 'current')}`;
     const latestText = `the latest (${latest.survey.date}) ${describeValue(latest.estimate.value, 'current', latest.estimate.ci95)}`;
     if (latestHigh < limit) {
@@ -101,10 +114,50 @@ function usable(estimate: ParameterEstimate | undefined): { value: number; stder
   return { value: estimate.value, stderr: estimate.stderr!, ci95: estimate.ci95, name: estimate.name };
 }
 
-/** Upper 95 % bound of (latest − first), t with the smaller of the two fits' degrees of freedom (conservative). */
-function upperOfDifference(latest: { estimate: { value: number; stderr: number }; fit: FitResult }, first: { estimate: { value: number; stderr: number }; fit: FitResult }): number {
-  const nu = Math.max(1, Math.min(latest.fit.stats.n - latest.fit.stats.k, first.fit.stats.n - first.fit.stats.k));
-  return latest.estimate.value - first.estimate.value + studentTQuantile(0.975, nu) * Math.hypot(latest.estimate.stderr, first.estimate.stderr);
+/** Upper 95 % bound of (latest − baseline), t with the smallest degrees of freedom of the fits involved (conservative). */
+function upperOfDifference(latest: { estimate: { value: number; stderr: number }; fit: FitResult }, baseline: Baseline): number {
+  const nu = Math.max(1, Math.min(latest.fit.stats.n - latest.fit.stats.k, baseline.degreesOfFreedom));
+  return latest.estimate.value - baseline.value + studentTQuantile(0.975, nu) * Math.hypot(latest.estimate.stderr, baseline.stderr);
+}
+
+/** The history's baseline: the surveys of the earliest date with determined ampere-turns, combined. */
+interface Baseline {
+  readonly date: string;
+  readonly value: number;
+  readonly stderr: number;
+  readonly surveys: number;
+  /** The smallest n − k among the baseline's fits. */
+  readonly degreesOfFreedom: number;
+}
+
+/**
+ * The baseline a coil without a label is compared with: every survey of the earliest date
+ * that has determined ampere-turns, combined by inverse-variance weight (value Σwᵢxᵢ/Σwᵢ,
+ * standard error 1/√Σwᵢ, wᵢ = 1/σᵢ²), so two surveys on one day count alike whatever
+ * their file names. Null when no dated survey has determined ampere-turns.
+ */
+function baselineOf(ordered: readonly FleetSurvey[], fits: readonly (FitResult | null)[]): Baseline | null {
+  const candidates = ordered.flatMap((survey, i) => {
+    const estimate = usable(fits[i]?.params['ampereTurns']);
+    return survey.date !== null && !Number.isNaN(Date.parse(survey.date)) && estimate !== null ? [{ date: survey.date, estimate, fit: fits[i]! }] : [];
+  });
+  const first = candidates[0];
+  if (first === undefined) return null;
+  const sameDay = candidates.filter((c) => c.date === first.date);
+  let sumW = 0;
+  let sumWx = 0;
+  for (const c of sameDay) {
+    const w = 1 / c.estimate.stderr ** 2;
+    sumW += w;
+    sumWx += w * c.estimate.value;
+  }
+  return {
+    date: first.date,
+    value: sumWx / sumW,
+    stderr: 1 / Math.sqrt(sumW),
+    surveys: sameDay.length,
+    degreesOfFreedom: Math.min(...sameDay.map((c) => c.fit.stats.n - c.fit.stats.k)),
+  };
 }
 
 function entryOf(survey: FleetSurvey, fit: FitResult | null, reference: number | null): FleetEntry {

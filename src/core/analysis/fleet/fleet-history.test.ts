@@ -64,7 +64,8 @@ describe('fleetHistory()', () => {
     expect(coil.flags).toContain('degrading');
     expect(coil.reference).toEqual({ kind: 'spec', ampereTurns: 120, unit: 'A' });
     expectClose(coil.history[3]!.ratioToReference!.value, 108 / 120, { rel: 1e-12 });
-    expect(coil.explanations.join(' ')).toMatch(/^degrading: the latest \(2025-03-01\) 108 A \(106–110\) lies, with its whole interval, below the label's 120 A less the tolerance \(114 A\); ampere-turns change -4\.\d+ A .* a significant decline\.$/);
+    expect(coil.explanations.join(' ')).toMatch(/^degrading: the latest \(2025-03-01\) 108 A \(106–110\) lies, with its whole interval, below the label's 120 A less the tolerance \(114 A\); ampere-turns change -4\.\d+ A .* declining \(the whole 95 % interval is below zero\)\.$/);
+    expect(coil.trend.status).toBe('declining');
   });
 
   it('fleetHistory() does not flag a significant decline that is still within tolerance', () => {
@@ -74,7 +75,7 @@ describe('fleetHistory()', () => {
     const coil = fleetHistory(gentle, { specs: [{ ...labelFL3, coils: ['FL-4'], params: [{ ...labelFL3.params[0]!, tolerance: { relative: 0.1, absolute: 0 } }] }] }).coils[0]!;
     expect(coil.trend.ampereTurnsPerYear!.ci95[1]).toBeLessThan(0);
     expect(coil.flags).not.toContain('degrading');
-    expect(coil.explanations.join(' ')).toContain('a significant decline; the latest (2025-01-01) 113 A (111–114) is not below');
+    expect(coil.explanations.join(' ')).toContain('declining (the whole 95 % interval is below zero); the latest (2025-01-01) 113 A (111–114) is not below');
   });
 
   it('fleetHistory() flags "geometry-changed" when the fitted radius jumps between surveys (swapped unit)', () => {
@@ -116,6 +117,24 @@ describe('fleetHistory()', () => {
   it('fleetHistory() gives no trend for a single dated survey and says why', () => {
     const coil = fleetHistory([loopSurvey('FL-1', '2025-01-01', 100, 0.045)]).coils[0]!;
     expect(coil.trend.ampereTurnsPerYear).toBeNull();
-    expect(coil.explanations.join(' ')).toContain('Fewer than two dated surveys');
+    expect(coil.explanations.join(' ')).toContain('trend undetermined: only one dated survey has determined ampere-turns');
+    expect(coil.trend.status).toBe('undetermined');
+  });
+
+  it('fleetHistory() makes the first date\'s surveys one baseline, whatever their file names, and orders same-date surveys by file name', () => {
+    // two surveys on the first day, 100 A (σ 1 A) and 104 A (σ 2 A): inverse-variance mean 100.8 A,
+    // σ = 1/√(1 + 1/4) (Bevington & Robinson §4.1, weighted mean, from memory)
+    const precise = { ...loopSurvey('FL-6', '2025-01-01', 100, 0.045), source: 'z-precise.csv' };
+    const rough = loopSurvey('FL-6', '2025-01-01', 104, 0.045);
+    const roughFit = rough.fits[0]!;
+    const widened = { ...rough, source: 'a-rough.csv', fits: [{ ...roughFit, params: { ...roughFit.params, ampereTurns: { ...roughFit.params['ampereTurns']!, stderr: 2, ci95: [100, 108] as const } } }] };
+    const later = loopSurvey('FL-6', '2025-07-01', 101, 0.045);
+    const one = fleetHistory([precise, widened, later]).coils[0]!;
+    const other = fleetHistory([later, widened, precise]).coils[0]!;
+    expectClose(one.reference!.ampereTurns, (100 * 1 + 104 / 4) / (1 + 1 / 4), { rel: 1e-12 });
+    expect(other.reference).toEqual(one.reference);
+    expect(one.history.map((h) => h.source)).toEqual(['a-rough.csv', 'z-precise.csv', later.source]);
+    expect(other.history.map((h) => h.source)).toEqual(one.history.map((h) => h.source));
+    expect(one.explanations.join(' ')).toContain('baseline: the 2 surveys of 2025-01-01, the earliest date, combined by inverse-variance weight');
   });
 });
