@@ -1,5 +1,5 @@
 /**
- * `npm run build`, after `vite build`: writes dist/ringfall.html, the web page as one
+ * `npm run build`, after `vite build`: writes site/ringfall.html, the web page as one
  * self-contained file that opens from disk (file://) with no server. Chromium refuses
  * module scripts, module workers and fetch() on file:// URLs, so here:
  * - the page (src/web/main.ts) is bundled by esbuild as one classic IIFE script, Chart.js,
@@ -11,7 +11,7 @@
  * The Vite-only imports the page uses are resolved here the way Vite does: `?raw` imports
  * as the file's text, and `import.meta.glob` of `?raw` files (eager, default import) as an
  * object of path → text. Any other form, or any esbuild warning, fails the build.
- * The multi-file build in dist/ (index.html, assets/) is Vite's and is left as it is.
+ * The multi-file build in site/ (index.html, assets/) is Vite's and is left as it is.
  *
  * `npx tsx scripts/build-single-file.ts [OUTDIR]` writes OUTDIR/ringfall.html (tests).
  */
@@ -22,7 +22,7 @@ import { fileURLToPath } from 'node:url';
 import { build, type Plugin } from 'esbuild';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const outDir = resolve(process.argv[2] ?? join(root, 'dist'));
+const outDir = resolve(process.argv[2] ?? join(root, 'site'));
 const fileName = 'ringfall.html';
 
 /** `import x from './file?raw'`: the file's text, as Vite gives it. */
