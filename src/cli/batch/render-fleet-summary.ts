@@ -18,6 +18,8 @@ export interface BatchCoverage {
   readonly filesTotal: number;
   /** True when the run was stopped (Ctrl-C) before every file was done. */
   readonly interrupted: boolean;
+  /** Surveys fitted in all, when the report holds only each coil's latest (batch's summary report); else the report's count. */
+  readonly surveys?: number;
 }
 
 /**
@@ -36,7 +38,7 @@ export function renderFleetSummary(report: Report, coverage: BatchCoverage): str
     lines.push(`PARTIAL SUMMARY: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files; it covers those files only.`, '');
   }
   const coils = rows.filter((row) => row.coil !== null).length;
-  lines.push(`Fleet summary: ${plural(coils, 'coil')}, ${plural(report.surveys.length, 'survey')} from ${plural(coverage.filesDone, 'file')}`);
+  lines.push(`Fleet summary: ${plural(coils, 'coil')}, ${plural(coverage.surveys ?? report.surveys.length, 'survey')} from ${plural(coverage.filesDone, 'file')}`);
   const extra = [
     rows.length > coils ? `${plural(rows.length - coils, 'survey')} without a coil id` : '',
     unreadable.length > 0 ? `${plural(unreadable.length, 'file or part', 'files or parts')} could not be used` : '',
