@@ -49,6 +49,7 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
     coil: survey.coil,
     date: survey.date,
     readingType: survey.readingType,
+    ...(survey.units ? { units: survey.units } : {}),
     readings: { total: survey.totalRows, used: survey.readings.length, rejected: survey.rejected },
     fits: compared.fits,
     best: compared.best,

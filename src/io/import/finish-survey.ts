@@ -1,4 +1,4 @@
-import type { FieldKind, ReadingType, Reading, Survey } from '../../core/survey/survey';
+import type { FieldKind, ReadingType, Reading, Survey, SurveyUnits } from '../../core/survey/survey';
 import { formatQuantity } from '../../core/units';
 import type { SurveyGroup } from './survey-collector';
 
@@ -15,7 +15,7 @@ import type { SurveyGroup } from './survey-collector';
 export function finishSurvey(
   group: SurveyGroup,
   otherReadingTypes: readonly (ReadingType | null)[],
-  context: { readonly source: string; readonly fieldKind: FieldKind; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[] },
+  context: { readonly source: string; readonly fieldKind: FieldKind; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
 ): Survey {
   const notes: string[] = [];
   let readings: Reading[] = group.readings;
@@ -57,5 +57,6 @@ export function finishSurvey(
     totalRows: readings.length + group.rejected.length,
     meta: context.meta,
     notes,
+    ...(context.units ? { units: context.units } : {}),
   };
 }
