@@ -1,5 +1,5 @@
 import type { FieldKind, ReadingType, Reading, Survey, SurveyUnits } from '../../core/survey/survey';
-import { formatQuantity } from '../../core/units';
+import { surveyUnits } from '../../core/units';
 import type { SurveyGroup } from './survey-collector';
 
 /**
@@ -31,7 +31,7 @@ export function finishSurvey(
     if (largest.field < 0 && sum < 0) {
       readings = readings.map((reading) => ({ ...reading, field: -reading.field }));
       notes.push(
-        `probe read reversed: the largest reading (${formatQuantity(largest.field, 'field')}, line ${largest.line}) and the sum of the readings are negative, ` +
+        `probe read reversed: the largest reading (${surveyUnits(context).format(largest.field, 'field')}, line ${largest.line}) and the sum of the readings are negative, ` +
           `so every sign was flipped (${negatives} of ${readings.length} readings were negative)`,
       );
     } else if (negatives > 0) {
