@@ -49,7 +49,7 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings):
       throw error;
     }
   };
-  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
+  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType, ...(survey.units ? { units: survey.units } : {}) }) : [];
   return buildSurveyReport(survey, fits, {
     verdict: spec ? verifySpec(spec, fits, survey.readingType, refit, valueWords(surveyUnits(survey))) : null,
     spec: specUse(settings.specs, spec, survey.coil),
