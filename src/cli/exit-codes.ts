@@ -18,10 +18,12 @@ export const exitStatus = {
   internal: 70,
   /** Stopped by Ctrl-C (128 + SIGINT). */
   interrupted: 130,
+  /** Stopped by SIGTERM (128 + 15), as a service manager or `kill` stops a run. */
+  terminated: 143,
 } as const;
 
-/** Which status wins when several apply: internal > interrupted > input > failed > inconclusive > passed. */
-const precedence: readonly number[] = [exitStatus.passed, exitStatus.inconclusive, exitStatus.failed, exitStatus.input, exitStatus.interrupted, exitStatus.internal];
+/** Which status wins when several apply: internal > terminated > interrupted > input > failed > inconclusive > passed. */
+const precedence: readonly number[] = [exitStatus.passed, exitStatus.inconclusive, exitStatus.failed, exitStatus.input, exitStatus.interrupted, exitStatus.terminated, exitStatus.internal];
 
 /**
  * The status to report when two apply: the one that says more is wrong (a failed check

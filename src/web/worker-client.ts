@@ -3,6 +3,25 @@ import type { PipelineFile, PipelineOutcome, PipelineProgress } from './pipeline
 import { unpackReport } from './packed-report';
 import type { RunRequest, WorkerMessage } from './worker-protocol';
 
+declare global {
+  /**
+   * The fitting worker as one classic script, set only in the single-file page
+   * (scripts/build-single-file.ts): opened from file://, Chromium refuses module workers
+   * and worker files, so that page starts the worker from a blob: URL of this text.
+   */
+  var ringfallFitWorkerSource: string | undefined;
+}
+
+let inlinedWorkerUrl: string | null = null;
+
+/** A new fitting worker: the module worker Vite bundles, or the inlined one in the single-file page. */
+function startFitWorker(): Worker {
+  const source = globalThis.ringfallFitWorkerSource;
+  if (source === undefined) return new Worker(new URL('./worker.ts', import.meta.url), { type: 'module', name: 'ringfall-fit' });
+  inlinedWorkerUrl ??= URL.createObjectURL(new Blob([source], { type: 'text/javascript' }));
+  return new Worker(inlinedWorkerUrl, { name: 'ringfall-fit' });
+}
+
 /**
  * Runs the pipeline in a Web Worker. A new run supersedes the one in flight: the busy
  * worker is terminated (the only way to stop a synchronous fit) and a fresh one started,
@@ -21,7 +40,7 @@ export class PipelineWorker {
       this.worker = null;
       this.pending?.reject(new Error('superseded'));
     }
-    const worker = this.worker ?? new Worker(new URL('./worker.ts', import.meta.url), { type: 'module', name: 'ringfall-fit' });
+    const worker = this.worker ?? startFitWorker();
     this.worker = worker;
     const job = ++this.job;
     this.busy = true;

@@ -1,3 +1,4 @@
+import type { StopSignals } from '../stop-signals';
 import { fleetHistory } from '../../core/analysis/fleet/fleet-history';
 import type { Report } from '../../core/report/report';
 import { createBatchProgress, type ProgressStream } from './batch-progress';
@@ -13,6 +14,8 @@ export interface BatchRunOptions {
   readonly progress: ProgressStream;
   /** Seconds between plain progress lines when `progress` is not a terminal. */
   readonly progressInterval?: number;
+  /** Stop requests (SIGINT, SIGTERM; stop-signals.ts): the first terminates the workers and the result covers the files done. */
+  readonly stop?: Pick<StopSignals, 'onStop'>;
 }
 
 /** A finished (or stopped) batch: the Report with its fleet section, and how far it got. */
@@ -35,8 +38,8 @@ const largestChunk = 32;
  * in the file — never by which worker finished first — and the fleet section
  * (fleetHistory: coils by first appearance in that order, trends and flags, unreadable
  * files). So the report is the same byte for byte whatever the number of workers. Ctrl-C
- * (SIGINT) terminates the workers and returns what was finished, marked interrupted; a
- * second Ctrl-C ends the process at once.
+ * or SIGTERM (options.stop) terminates the workers and returns what was finished, marked
+ * interrupted; a second signal ends the process at once.
  */
 export async function runBatch(files: readonly string[], settings: BatchSettings, options: BatchRunOptions): Promise<BatchResult> {
   const outcomes: (FileOutcome | undefined)[] = new Array(files.length);
@@ -56,16 +59,11 @@ export async function runBatch(files: readonly string[], settings: BatchSettings
     },
   });
   let interrupted = false;
-  const onInterrupt = () => {
+  options.stop?.onStop(() => {
     interrupted = true;
     void run.stop();
-  };
-  process.once('SIGINT', onInterrupt);
-  try {
-    await run.done;
-  } finally {
-    process.off('SIGINT', onInterrupt);
-  }
+  });
+  await run.done;
   progress.finish(done, interrupted);
   return { report: assembleReport(outcomes, settings), filesDone: done, filesTotal: files.length, interrupted };
 }

@@ -1,23 +1,29 @@
-import { accessSync, constants, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { RingfallError } from '../../core/errors';
 import type { Report } from '../../core/report/report';
 import { chartLibrarySource } from '../../web/report-view/chart-library-node';
 import { renderReportDocument } from '../../web/report-view/index';
 import { renderFleetIndexPage } from './fleet-index-page';
 import { fleetRows } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';
+import { unwritable } from './out-folder-lock';
+import { yieldToEvents, type StopSignals } from '../stop-signals';
+import { writeFileAtomic } from '../write-file-atomic';
 
 /**
  * `batch --out DIR`: one self-contained HTML report per coil (its surveys, its history in
  * the fleet section; the web page's report view, renderReportDocument), one per survey
- * without a coil id, and index.html linking them. File names come from coil ids made
- * safe (pageNames); the text inside is escaped by the report view.
+ * without a coil id, and index.html linking them — the pages first, the index last, each
+ * file under a temporary name renamed into place when whole (writeFileAtomic): a run that
+ * fails part-way (a full disk) leaves no truncated file and no link to a page that is not
+ * there. A stop request (SIGINT, SIGTERM) between pages ends the pages early; the index
+ * then lists every coil, links the pages written and says it is partial. File names come
+ * from coil ids made safe (pageNames); the text inside is escaped by the report view.
  *
  * @returns the paths written, index.html first
- * @throws RingfallError `OUTPUT_UNWRITABLE` when the folder or a file cannot be written
+ * @throws RingfallError `OUTPUT_UNWRITABLE` when a file cannot be written (the pages
+ *   already in place stay; the index is not written)
  */
-export function writeHtmlReports(folder: string, report: Report, coverage: BatchCoverage): string[] {
+export async function writeHtmlReports(folder: string, report: Report, coverage: BatchCoverage, stop: Pick<StopSignals, 'signal'> | null = null): Promise<string[]> {
   const rows = fleetRows(report);
   const names = pageNames(rows.map((row) => row.coil ?? row.latest.source.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '')));
   const chartLibrary = chartLibrarySource();
@@ -25,36 +31,26 @@ export function writeHtmlReports(folder: string, report: Report, coverage: Batch
   const write = (name: string, text: string) => {
     const path = join(folder, name);
     try {
-      writeFileSync(path, text);
+      writeFileAtomic(path, text);
     } catch (cause) {
       throw unwritable(path, cause);
     }
     written.push(path);
   };
-  prepareOutFolder(folder);
-  write('index.html', renderFleetIndexPage(report, names, coverage));
-  rows.forEach((row, i) => {
+  const pages: (string | null)[] = rows.map(() => null);
+  for (const [i, row] of rows.entries()) {
+    await yieldToEvents();
+    if (stop?.signal) break;
     const surveys = row.coil === null ? [row.latest] : report.surveys.filter((survey) => survey.coil === row.coil);
     const fleet = { coils: row.history ? [row.history] : [], unreadable: [] };
     const title = row.coil === null ? `ringfall report: ${row.latest.source}` : `ringfall report: coil ${row.coil}`;
     const subtitle = `${surveys.length} survey${surveys.length === 1 ? '' : 's'}${coverage.interrupted ? ' (partial batch)' : ''}; fleet summary in index.html`;
     write(names[i]!, renderReportDocument({ surveys, fleet, ...(report.run ? { run: report.run } : {}) }, { chartLibrary, title, subtitle }));
-  });
-  return written;
-}
-
-/**
- * Make the `--out` folder (and its parents) and check it can be written: `batch` calls
- * this before fitting, so a bad folder is refused at once rather than after the whole run.
- * @throws RingfallError `OUTPUT_UNWRITABLE`
- */
-export function prepareOutFolder(folder: string): void {
-  try {
-    mkdirSync(folder, { recursive: true });
-    accessSync(folder, constants.W_OK);
-  } catch (cause) {
-    throw unwritable(folder, cause);
+    pages[i] = names[i]!;
   }
+  const pagesStopped = pages.some((page) => page === null);
+  write('index.html', renderFleetIndexPage(report, pages, { ...coverage, pagesStopped }));
+  return [written.pop()!, ...written];
 }
 
 /**
@@ -72,9 +68,4 @@ export function pageNames(ids: readonly string[]): string[] {
     taken.add(name);
     return `${name}.html`;
   });
-}
-
-function unwritable(path: string, cause: unknown): RingfallError {
-  const code = (cause as NodeJS.ErrnoException | null)?.code ?? (cause as Error).message;
-  return new RingfallError('OUTPUT_UNWRITABLE', `--out: cannot write "${path}" (${code}). Choose a folder you can write to.`, { value: path, where: '--out', cause });
 }

@@ -9,7 +9,9 @@ import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
-import { prepareOutFolder, writeHtmlReports } from '../batch/write-html-reports';
+import { writeHtmlReports } from '../batch/write-html-reports';
+import { claimOutFolder } from '../batch/out-folder-lock';
+import { stoppedStatus, watchStopSignals } from '../stop-signals';
 import { addFitOptions, readFitFlags, type FitFlags } from '../fit-options';
 import { checksStatus } from '../checks-status';
 import { printable } from '../../core/text/printable';
@@ -61,30 +63,40 @@ export function registerBatch(program: Command, context: CommandContext): void {
       const skipped: SkippedFiles[] = [];
       const unusable: UnusablePath[] = [];
       const files = surveyFilesFrom(paths, flags.filesFrom, { skipLists: flags.skip !== false, skipped, unusable });
-      if (flags.out !== undefined) prepareOutFolder(flags.out);
-      for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
-      // the files' SHA-256 for the run record, read on this thread while the workers fit
-      const hashing = describeFiles(files);
-      const result = await runBatch(files, settings, { workers, progress: process.stderr, ...(progressInterval === null ? {} : { progressInterval }) });
-      const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
-      // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
-      const fleet = result.report.fleet === undefined || unusable.length === 0 ? result.report.fleet
-        : { ...result.report.fleet, unreadable: [...unusable, ...result.report.fleet.unreadable] };
-      const report: Report = { ...result.report, ...(fleet ? { fleet } : {}), run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
-      const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
-      if (flags.json === true) {
-        const json = toJsonReport(report);
-        if (result.interrupted) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal };
-        process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
-      } else {
-        process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
+      // the --out folder is claimed before any fitting: a bad folder or a second run into it is refused at once
+      const claim = flags.out === undefined ? null : claimOutFolder(flags.out);
+      const stop = watchStopSignals();
+      try {
+        for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
+        // the files' SHA-256 for the run record, read on this thread while the workers fit
+        const hashing = describeFiles(files);
+        const result = await runBatch(files, settings, { workers, progress: process.stderr, stop, ...(progressInterval === null ? {} : { progressInterval }) });
+        const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
+        // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
+        const fleet = result.report.fleet === undefined || unusable.length === 0 ? result.report.fleet
+          : { ...result.report.fleet, unreadable: [...unusable, ...result.report.fleet.unreadable] };
+        const report: Report = { ...result.report, ...(fleet ? { fleet } : {}), run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
+        const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
+        const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
+        if (flags.json === true) {
+          const json = toJsonReport(report);
+          if (signal !== null) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal, signal };
+          process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+        } else {
+          process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
+        }
+        if (flags.out !== undefined) {
+          const written = await writeHtmlReports(flags.out, report, coverage, stop);
+          process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
+        }
+        const stoppedBy = signal ?? stop.signal;
+        if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
+        reportUnappliedSpecs(result.report);
+        context.setExitCode(batchStatus(report));
+      } finally {
+        stop.dispose();
+        claim?.release();
       }
-      if (flags.out !== undefined) {
-        const written = writeHtmlReports(flags.out, report, coverage);
-        process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
-      }
-      reportUnappliedSpecs(result.report);
-      context.setExitCode(result.interrupted ? exitStatus.interrupted : batchStatus(report));
     });
 }
 

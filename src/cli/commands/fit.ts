@@ -1,4 +1,4 @@
-import { readFileSync, statSync, writeFileSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { Spec } from '../../core/analysis/spec/spec';
@@ -18,6 +18,8 @@ import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } fr
 import { skippedLines, surveyFilesFrom, type UnusablePath } from '../find-survey-files';
 import { skipListName, type SkippedFiles } from '../skip-list';
 import { readSurveyBytes } from '../read-survey-bytes';
+import { stoppedStatus, watchStopSignals, yieldToEvents, type StopSignals } from '../stop-signals';
+import { writeFileAtomic } from '../write-file-atomic';
 import type { CommandContext } from '../main';
 import { checksStatus } from '../checks-status';
 import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
@@ -54,16 +56,33 @@ export function registerFit(program: Command, context: CommandContext): void {
     // a folder that cannot be listed, a pipe, a broken link: named with the reason, exit 2
     for (const path of unusable) process.stderr.write(`ringfall: "${printable(path.source)}": ${printable(path.reason)}\n`);
     if (unusable.length > 0) context.setExitCode(2);
-    const { reports, problems, rejected, inputs } = fitFiles(paths, options, specs);
-    for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
-    if (problems.length > 0) context.setExitCode(2);
-    if (reports.length === 0) return;
-    const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } }));
-    const report: Report = { surveys: reports, rejected, run, ...(skipped.length > 0 ? { skipped } : {}) };
-    writeSideFiles(report, options);
-    process.stdout.write(options.json ? `${JSON.stringify(toJsonReport(report), null, 2)}\n` : renderTextReport(report));
-    reportUnappliedSpecs(report);
-    context.setExitCode(checksStatus(report));
+    // Ctrl-C or SIGTERM between files: the files done are reported, marked partial
+    const stop = watchStopSignals();
+    try {
+      const { reports, problems, rejected, inputs, filesDone } = await fitFilesUntilStopped(paths, options, specs, stop);
+      for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
+      if (problems.length > 0) context.setExitCode(2);
+      const signal = stop.signal;
+      if (signal !== null) {
+        process.stderr.write(`ringfall: ${signal}: stopped after ${filesDone} of ${paths.length} files; the report covers those only.\n`);
+        context.setExitCode(stoppedStatus(signal));
+      }
+      if (reports.length === 0) return;
+      const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } }));
+      const report: Report = { surveys: reports, rejected, run, ...(skipped.length > 0 ? { skipped } : {}) };
+      writeSideFiles(report, options);
+      if (options.json) {
+        const json = toJsonReport(report);
+        if (signal !== null) json['partial'] = { filesDone, filesTotal: paths.length, signal };
+        process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+      } else {
+        process.stdout.write(`${signal !== null ? `PARTIAL REPORT: stopped by ${signal} after ${filesDone} of ${paths.length} files; it covers those files only.\n\n` : ''}${renderTextReport(report)}`);
+      }
+      reportUnappliedSpecs(report);
+      context.setExitCode(checksStatus(report));
+    } finally {
+      stop.dispose();
+    }
   });
 }
 
@@ -97,9 +116,10 @@ function checkOutputFolder(path: string, option: string): void {
   }
 }
 
+/** Write a side file whole or not at all (writeFileAtomic: a temporary name renamed into place). */
 function writeOutput(path: string, option: string, text: string): void {
   try {
-    writeFileSync(path, text, 'utf8');
+    writeFileAtomic(path, text);
   } catch (cause) {
     throw new RingfallError('OUTPUT_UNWRITABLE', `${option}: cannot write "${path}": ${(cause as NodeJS.ErrnoException).code ?? (cause as Error).message}. Choose a folder that exists and can be written.`, { value: path, cause });
   }
@@ -129,6 +149,28 @@ export function fitFiles(
     }
   }
   return { reports, problems, rejected, inputs };
+}
+
+/**
+ * fitFiles, one file at a time with a pause for events between files, so a stop signal
+ * (SIGINT, SIGTERM) ends the run after the file in hand; `filesDone` says how far it came.
+ */
+export async function fitFilesUntilStopped(
+  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'signal'>,
+): Promise<ReturnType<typeof fitFiles> & { filesDone: number }> {
+  const all: ReturnType<typeof fitFiles> = { reports: [], problems: [], rejected: [], inputs: [] };
+  let filesDone = 0;
+  for (const path of paths) {
+    await yieldToEvents();
+    if (stop.signal !== null) break;
+    const one = fitFiles([path], options, specs);
+    all.reports.push(...one.reports);
+    all.problems.push(...one.problems);
+    all.rejected.push(...one.rejected);
+    all.inputs.push(...one.inputs);
+    filesDone += 1;
+  }
+  return { ...all, filesDone };
 }
 
 function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[], inputs: RunInput[]): SurveyReport[] {

@@ -123,8 +123,8 @@ export interface JsonReport {
   rejected?: readonly (JsonRejectedRow & { readonly source: string })[];
   /** batch and demo only. */
   fleet?: JsonFleet;
-  /** batch only, when Ctrl-C stopped the run: the report covers the files done. */
-  partial?: { readonly filesDone: number; readonly filesTotal: number };
+  /** When a signal (Ctrl-C: SIGINT; SIGTERM) stopped the run: the report covers the files done. */
+  partial?: { readonly filesDone: number; readonly filesTotal: number; readonly signal?: 'SIGINT' | 'SIGTERM' };
   /** Files a folder's skip list left out of the search (present when any was). */
   skipped?: readonly SkippedFiles[];
   /** How the report was made (version, command, time, inputs with SHA-256, settings); first in the file when present. */
