@@ -4,7 +4,7 @@
  * there, and a stopped run still prints a valid report marked partial.
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -104,5 +104,25 @@ describe('two runs into one --out folder', () => {
     expect(second.stderr).toMatch(new RegExp(`^ringfall: --out: another ringfall batch \\(process ${first.pid}\\) is writing into ".*shared-out"\\. Wait for it to finish, or choose another folder\\.`));
     // the first run, stopped, released the folder: a new run may write there
     expect(ringfall({}, 'batch', 'sample-data', '--out', out).status).not.toBe(2);
+  });
+});
+
+describe('a file that would stall a batch worker', () => {
+  it('is stopped at --file-time-limit and listed with BATCH_FILE_TIMEOUT; the other files are fitted', () => {
+    const folder = join(scratch, 'slow');
+    mkdirSync(folder);
+    copyFileSync(join(root, 'sample-data', 'qa-107-2025-03-11-healthy.csv'), join(folder, 'a-healthy.csv'));
+    // 200,000 readings fitted with all nine models take seconds; the healthy sample a few hundredths of one
+    const mu0 = 1.25663706212e-6;
+    const rows = Array.from({ length: 200_000 }, (_, i) => {
+      const z = (0.001 * i + 3) / 1000;
+      return `${(0.001 * i).toFixed(3)},${((mu0 * 120 * 0.045 ** 2) / (2 * (0.045 ** 2 + z * z) ** 1.5) * 1e3).toFixed(6)}`;
+    });
+    writeFileSync(join(folder, 'b-huge.csv'), ['# coil: HUGE-1', '# date: 2026-03-14', 'distance (mm),B (mT)', ...rows].join('\n') + '\n');
+    const run = ringfall({}, 'batch', folder, '--json', '--workers', '1', '--file-time-limit', '0.5', '--model', 'loop,thick-coil,solenoid,coil-pair,rectangle,dipole,power-law,inverse-square,inverse-cube');
+    expect(run.status).toBe(2);
+    const report = JSON.parse(run.stdout) as { surveys: { coil: string }[]; fleet: { unreadable: { source: string; code: string; reason: string }[] } };
+    expect(report.surveys.map((survey) => survey.coil)).toEqual(['QA-107']);
+    expect(report.fleet.unreadable).toEqual([{ source: join(folder, 'b-huge.csv'), code: 'BATCH_FILE_TIMEOUT', reason: expect.stringContaining('took longer than 0.5 s') }]);
   });
 });

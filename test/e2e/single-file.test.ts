@@ -57,11 +57,20 @@ describe('single-file page from file://', () => {
   });
 
   it('fits a survey the user adds in a worker started afresh from the inlined code', async () => {
-    // the sample fleet keeps the worker busy; a file added meanwhile supersedes that run,
-    // which terminates the worker and starts a new one (worker-client.ts)
-    await page.getByRole('button', { name: 'Open the sample fleet' }).click();
-    await page.waitForSelector('#report-body[data-state=running]', { state: 'attached' });
-    await page.setInputFiles('#survey-files', [join(repoRoot, 'sample-data', 'qa-214-2026-02-17-mislabeled.csv')]);
+    // two files dropped one right after the other: the second run supersedes the first while
+    // the worker is still fitting it, which terminates that worker and starts a new one
+    // (worker-client.ts); the sample fleet's file is the first, so the worker is surely busy
+    const fleetText = readFileSync(join(repoRoot, 'sample-data', 'fleet-log-2025-2026.csv'), 'utf8');
+    const userText = readFileSync(join(repoRoot, 'sample-data', 'qa-214-2026-02-17-mislabeled.csv'), 'utf8');
+    await page.evaluate(([first, second]) => {
+      const drop = (file: File) => {
+        const event = new Event('drop', { cancelable: true });
+        Object.defineProperty(event, 'dataTransfer', { value: { files: [file] } });
+        document.dispatchEvent(event);
+      };
+      drop(new File([first!], 'fleet-log-2025-2026.csv'));
+      setTimeout(() => drop(new File([second!], 'qa-214-2026-02-17-mislabeled.csv')), 20);
+    }, [fleetText, userText]);
     // QA-214: the coil id in that file's `# coil:` line
     await page.waitForFunction(() => {
       const body = document.querySelector<HTMLElement>('#report-body');

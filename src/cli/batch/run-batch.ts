@@ -16,6 +16,8 @@ export interface BatchRunOptions {
   readonly progressInterval?: number;
   /** Stop requests (SIGINT, SIGTERM; stop-signals.ts): the first terminates the workers and the result covers the files done. */
   readonly stop?: Pick<StopSignals, 'onStop'>;
+  /** Seconds one file may take before it is left out with BATCH_FILE_TIMEOUT (worker-pool.ts). */
+  readonly fileTimeLimit?: number;
 }
 
 /** A finished (or stopped) batch: the Report with its fleet section, and how far it got. */
@@ -50,6 +52,7 @@ export async function runBatch(files: readonly string[], settings: BatchSettings
   const run = runWorkerPool(files.map((path, index) => ({ index, path })), {
     workers,
     chunkSize,
+    ...(options.fileTimeLimit === undefined ? {} : { fileTimeLimit: options.fileTimeLimit }),
     entry: batchWorkerEntry(),
     workerData: settings,
     onOutcomes: (finished) => {

@@ -17,6 +17,12 @@ export interface WorkerPoolOptions {
   readonly workerData: unknown;
   /** Called with each finished chunk's outcomes, in the order chunks finish. */
   readonly onOutcomes: (outcomes: readonly FileOutcome[]) => void;
+  /**
+   * Seconds one file may take (a chunk gets this times its files); past it the worker is
+   * ended, the chunk's files retried one by one, and a file that runs past it alone gets
+   * the outcome BATCH_FILE_TIMEOUT. Default: no limit.
+   */
+  readonly fileTimeLimit?: number;
 }
 
 /** A running pool: `done` settles when every file has an outcome or the pool was stopped. */
@@ -34,7 +40,8 @@ const inFlightPerWorker = 2;
  * per chunk, the worker reads each file itself), each worker keeps two chunks in flight.
  * When a worker dies (a crash, not a RingfallError, which the worker reports as an
  * outcome), its unfinished chunks are retried one file per chunk on a fresh worker; a
- * file that kills a worker on its own gets an outcome saying so. The order outcomes
+ * file that kills a worker on its own gets an outcome saying so, as does one that runs past
+ * `fileTimeLimit` on its own (the worker is ended and replaced). The order outcomes
  * arrive in depends on timing; callers order them by `index`.
  *
  * @throws (through `done`) when a worker dies before it has loaded: nothing could run.
@@ -59,26 +66,42 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
     void Promise.all([...workers].map((w) => w.terminate())).then(() => (error ? reject(error) : resolve()));
   };
 
+  const limitMs = options.fileTimeLimit === undefined ? null : options.fileTimeLimit * 1000;
   const start = () => {
     const worker = new Worker(options.entry, { workerData: options.workerData });
     const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
     let ready = false;
+    // the chunk the worker is on (the oldest in flight) and since when, once the worker has loaded
+    let since = performance.now();
+    let timedOut = false;
     workers.add(worker);
     const feed = () => {
       while (!stopped && inFlight.size < inFlightPerWorker && queue.length > 0) {
         const chunk = queue.shift()!;
         const id = nextChunk++;
+        if (inFlight.size === 0) since = performance.now();
         inFlight.set(id, chunk);
         const request: ChunkRequest = { kind: 'chunk', chunk: id, files: chunk.files };
         worker.postMessage(request);
       }
     };
+    const watch = limitMs === null ? null : setInterval(() => {
+      const current = inFlight.values().next().value;
+      if (!ready || current === undefined || timedOut) return;
+      if (performance.now() - since > limitMs * current.files.length) {
+        timedOut = true;
+        void worker.terminate();
+      }
+    }, Math.max(20, Math.min(1000, limitMs / 4)));
+    watch?.unref();
     worker.on('message', (message: WorkerMessage) => {
       if (message.kind === 'ready') {
         ready = true;
+        since = performance.now();
         return;
       }
       inFlight.delete(message.chunk);
+      since = performance.now();
       pending -= message.outcomes.length;
       options.onOutcomes(message.outcomes);
       if (pending === 0) finish();
@@ -89,6 +112,7 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
       failure = error;
     });
     worker.on('exit', (code) => {
+      if (watch !== null) clearInterval(watch);
       workers.delete(worker);
       if (stopped || settle === null) return;
       const reason = failure?.message ?? `it exited with status ${code}`;
@@ -97,12 +121,19 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
         return;
       }
       const lost: FileOutcome[] = [];
+      // the chunk the worker was on is the one that stopped it; the others never started
+      let first = true;
       for (const chunk of inFlight.values()) {
-        if (chunk.retry) {
-          lost.push(...chunk.files.map((file) => failedOutcome(file, 'BATCH_WORKER_STOPPED', `the worker fitting this file stopped (${reason})`)));
+        if (!first) {
+          queue.unshift(chunk);
+        } else if (chunk.retry) {
+          lost.push(...chunk.files.map((file) => (timedOut
+            ? failedOutcome(file, 'BATCH_FILE_TIMEOUT', `fitting this file took longer than ${options.fileTimeLimit} s, so it was stopped and the batch went on. Fit it alone with a longer limit (--file-time-limit) or fewer models to see why`)
+            : failedOutcome(file, 'BATCH_WORKER_STOPPED', `the worker fitting this file stopped (${reason})`))));
         } else {
           queue.unshift(...chunk.files.map((file) => ({ files: [file], retry: true })));
         }
+        first = false;
       }
       if (lost.length > 0) {
         pending -= lost.length;

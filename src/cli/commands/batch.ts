@@ -29,7 +29,11 @@ interface BatchFlags extends FitFlags {
   readonly filesFrom?: string;
   readonly progressEvery?: string;
   readonly skip?: boolean;
+  readonly fileTimeLimit?: string;
 }
+
+/** Seconds one file may fit before batch leaves it out (BATCH_FILE_TIMEOUT): far past any real survey, short of a stalled worker. */
+const defaultFileTimeLimit = 300;
 
 /**
  * `ringfall batch DIR|FILE... [options]` (CONTRACT.md): fit every survey of every file in
@@ -55,11 +59,13 @@ export function registerBatch(program: Command, context: CommandContext): void {
     .option('--workers <n>', `worker threads (default: all cores, ${availableParallelism()} here)`)
     .option('--progress-every <seconds>', 'seconds between progress lines when stderr is not a terminal (default 2)')
     .option('--no-skip', `also fit what a folder's ${skipListName} list names as not surveys`)
+    .option('--file-time-limit <seconds>', `seconds one file may take before it is left out and listed, so no file stalls the run (default ${defaultFileTimeLimit})`)
     .action(async (paths: string[], flags: BatchFlags) => {
       const time = runTime();
       const settings = await readBatchSettings(flags);
       const workers = readWorkers(flags.workers);
       const progressInterval = readProgressEvery(flags.progressEvery);
+      const fileTimeLimit = readSeconds(flags.fileTimeLimit, '--file-time-limit', 0.01, 86_400, 600) ?? defaultFileTimeLimit;
       const skipped: SkippedFiles[] = [];
       const unusable: UnusablePath[] = [];
       const files = surveyFilesFrom(paths, flags.filesFrom, { skipLists: flags.skip !== false, skipped, unusable });
@@ -70,7 +76,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
         // the files' SHA-256 for the run record, read on this thread while the workers fit
         const hashing = describeFiles(files);
-        const result = await runBatch(files, settings, { workers, progress: process.stderr, stop, ...(progressInterval === null ? {} : { progressInterval }) });
+        const result = await runBatch(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) });
         const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
         // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
         const fleet = result.report.fleet === undefined || unusable.length === 0 ? result.report.fleet
@@ -126,10 +132,15 @@ function readWorkers(text: string | undefined): number {
 }
 
 function readProgressEvery(text: string | undefined): number | null {
+  return readSeconds(text, '--progress-every', 0.1, 3600, 10);
+}
+
+/** A number of seconds from an option, within [least, most], or null when not given. */
+function readSeconds(text: string | undefined, option: string, least: number, most: number, example: number): number | null {
   if (text === undefined) return null;
   const seconds = Number(text);
-  if (text.trim() === '' || !Number.isFinite(seconds) || seconds < 0.1 || seconds > 3600) {
-    throw new RingfallError('OPTION_VALUE', `--progress-every: "${text}" is not usable. Give seconds from 0.1 to 3600, e.g. 10.`, { value: text, where: '--progress-every' });
+  if (text.trim() === '' || !Number.isFinite(seconds) || seconds < least || seconds > most) {
+    throw new RingfallError('OPTION_VALUE', `${option}: "${text}" is not usable. Give seconds from ${least} to ${most}, e.g. ${example}.`, { value: text, where: option });
   }
   return seconds;
 }
