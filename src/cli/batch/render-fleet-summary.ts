@@ -1,8 +1,8 @@
 import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
 import { wrap } from '../../core/report/render-text';
-import { describeValue } from '../../core/analysis/describe-value';
+import { valueWords, type ValueWords } from '../../core/analysis/describe-value';
 import type { Report, ThresholdResult } from '../../core/report/report';
-import { formatNumber } from '../../core/units';
+import { formatNumber, surveyUnits } from '../../core/units';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows, type FleetRow } from './fleet-rows';
 
@@ -78,16 +78,17 @@ function rowLines(row: FleetRow): string[] {
   } else {
     lines.push('    no physical model converged on this survey');
   }
-  for (const threshold of survey.thresholds) lines.push(...wrap(thresholdText(threshold), 4, 6));
+  const shown = valueWords(surveyUnits(survey));
+  for (const threshold of survey.thresholds) lines.push(...wrap(thresholdText(threshold, shown), 4, 6));
   lines.push(...wrap(`history: ${historyText(row)}`, 4, 6));
   return lines;
 }
 
-/** "below 0.5 mT beyond 80.2 mm (76.8–83.7) on axis (loop)", marked when extrapolated. */
-function thresholdText(threshold: ThresholdResult): string {
-  const level = describeValue(threshold.level.value, 'field') + (threshold.level.label ? ` (${threshold.level.label})` : '');
+/** "below 0.5 mT beyond 80.2 mm (76.8–83.7) on axis (loop)" in the survey's units, marked when extrapolated. */
+function thresholdText(threshold: ThresholdResult, shown: ValueWords): string {
+  const level = shown.value(threshold.level.value, 'field') + (threshold.level.label ? ` (${threshold.level.label})` : '');
   if (threshold.distance === null) return `below ${level}: not found on the fitted ${threshold.model} curve`;
-  return `below ${level} beyond ${describeValue(threshold.distance.value, 'length', threshold.distance.ci95)} on axis (${threshold.model}${threshold.extrapolated ? ', extrapolated beyond the survey' : ''})`;
+  return `below ${level} beyond ${shown.value(threshold.distance.value, 'length', threshold.distance.ci95)} on axis (${threshold.model}${threshold.extrapolated ? ', extrapolated beyond the survey' : ''})`;
 }
 
 function historyText(row: FleetRow): string {

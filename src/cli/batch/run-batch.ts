@@ -102,7 +102,7 @@ export function assembleReport(outcomes: readonly (FileOutcome | undefined)[], s
   const surveys = finished.flatMap((outcome) => outcome.reports);
   const unreadable = finished.flatMap((outcome) => outcome.unreadable);
   const fleet = fleetHistory(
-    surveys.map((s) => ({ source: s.source, coil: s.coil, date: s.date, fits: s.fits, verdict: s.verdict })),
+    surveys.map((s) => ({ source: s.source, coil: s.coil, date: s.date, fits: s.fits, verdict: s.verdict, ...(s.units ? { units: s.units } : {}) })),
     { specs: settings.specs, unreadable },
   );
   return { surveys, fleet };

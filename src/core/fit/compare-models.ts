@@ -3,6 +3,7 @@ import type { FieldModel, ModelId } from '../models/field-model';
 import { akaikeWeights } from '../stats/akaike-weights';
 import { describePowerLaw, powerLawContext } from './describe-power-law';
 import type { FitResult } from './fit-result';
+import { surveyUnits, type SurveyUnitChoice } from '../units/survey-units';
 
 /** The fits with their Akaike weights, the best model and the power-law sentences. */
 export interface ModelComparison {
@@ -23,17 +24,18 @@ export interface ModelComparison {
  * against the best physical model (DOMAIN.md §1.9).
  *
  * @param modelOf catalog lookup (default getModel), to tell physical models from power laws.
+ * @param units the survey's units (surveyUnits): the sentences write distances and fields in them.
  * @throws RangeError when the fits do not share n and the uncertainty scale (different data
  *   or weights cannot be compared).
  */
-export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel): ModelComparison {
+export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel, units: SurveyUnitChoice = surveyUnits(null)): ModelComparison {
   const weighted = withAkaikeWeights(fits);
   const lowest = (candidates: readonly FitResult[]) =>
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
   const best = lowest(weighted);
   const physical = lowest(weighted.filter((fit) => modelOf(fit.model).physical));
   const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical);
-  const shared = laws.length > 0 ? powerLawContext(laws[0]!, physical, modelOf) : null;
+  const shared = laws.length > 0 ? powerLawContext(laws[0]!, physical, modelOf, units) : null;
   const comparison = laws.map((fit) => describePowerLaw(fit, physical, modelOf, shared!));
   return { fits: weighted, best: best?.model ?? null, comparison };
 }
