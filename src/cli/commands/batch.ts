@@ -114,7 +114,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
           if (flags.out !== undefined) {
             let pageUncoiled = 0;
             const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool!.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
-            process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
+            process.stderr.write(`ringfall batch: wrote ${written.filter((path) => path.endsWith('.html')).length} HTML pages and one copy of Chart.js to ${flags.out} (open ${written[0]})\n`);
           }
           const stoppedBy = signal ?? stop.signal;
           if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
