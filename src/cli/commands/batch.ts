@@ -1,3 +1,4 @@
+import { once } from 'node:events';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -106,7 +107,11 @@ export function registerBatch(program: Command, context: CommandContext): void {
           if (flags.json === true) {
             // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }));
-            for (const survey of spool!.all()) stream.survey(survey);
+            for (const survey of spool!.all()) {
+              stream.survey(survey);
+              // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
+              if (process.stdout.writableNeedDrain) await once(process.stdout, 'drain');
+            }
             stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
