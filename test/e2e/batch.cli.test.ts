@@ -143,6 +143,10 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
       expect([...html.matchAll(/<script[^>]+src="([^"]*)"/g)].map((m) => m[1])).toEqual(['ringfall-charts.js']);
       expect(html).not.toMatch(/<link[^>]+href="http/);
     }
+    // a coil page's run record names its own files only (a fleet's pages would otherwise each list every file)
+    const qa214 = readFileSync(join(out, 'qa-214.html'), 'utf8');
+    expect(qa214.match(/<th scope="row" class="rf-nowrap">input file<\/th>/g)).toHaveLength(1);
+    expect(qa214).toContain('sample-data/qa-214-2026-02-17-mislabeled.csv, ');
     // Chart.js once for the folder, not once per page (the banner of node_modules/chart.js/dist/chart.umd.js)
     expect(readFileSync(join(out, 'ringfall-charts.js'), 'utf8')).toContain('Chart.js v4.6.1');
     // the skip list's line is on the index too, so the page says what was left out

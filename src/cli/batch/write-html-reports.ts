@@ -56,7 +56,10 @@ export async function writeHtmlReports(
     const fleet = { coils: row.history ? [row.history] : [], unreadable: [] };
     const title = row.coil === null ? `ringfall report: ${row.latest.source}` : `ringfall report: coil ${row.coil}`;
     const subtitle = `${surveys.length} survey${surveys.length === 1 ? '' : 's'}${coverage.interrupted ? ' (partial batch)' : ''}; fleet summary in index.html`;
-    write(names[i]!, renderReportDocument({ surveys, fleet, ...(report.run ? { run: report.run } : {}) }, { chartLibrary, title, subtitle }));
+    // a page's run record names the files its surveys came from (the index names them all)
+    const sources = new Set(surveys.map((survey) => survey.source.replace(/ \(.*\)$/, '')));
+    const run = report.run === undefined ? undefined : { ...report.run, inputs: report.run.inputs.filter((input) => sources.has(input.name)) };
+    write(names[i]!, renderReportDocument({ surveys, fleet, ...(run ? { run } : {}) }, { chartLibrary, title, subtitle }));
     pages[i] = names[i]!;
   }
   const pagesStopped = pages.some((page) => page === null);
