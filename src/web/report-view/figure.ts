@@ -10,7 +10,7 @@ export function chartFigure(id: string, title: string, spec: ChartSpec, extra: S
   return html`<figure class="rf-figure" aria-labelledby="${id}-title">
 <figcaption id="${id}-title" class="rf-figure-title">${title}</figcaption>
 <div class="rf-canvas-box"><canvas id="${id}" data-rf-chart="${id}-config" width="${spec.width}" height="${spec.height}" role="img" aria-label="${spec.description}">${spec.description}</canvas></div>
-<script type="application/json" id="${id}-config">${inlineJson(spec.config)}</script>
+<script type="application/json" id="${id}-config">${inlineJson(spec.config, { significant: 6 })}</script>
 ${legendList(spec.legend)}
 ${spec.notes.map((note) => html`<p class="rf-note">${note}</p>`)}
 ${extra}
