@@ -46,8 +46,10 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     }));
   }
   const fitted = fittedModel(chosen, getModel(chosen.model));
-  const offset = probeOffsetOf(fitted);
-  const range = surveyedFieldRange(fitted, offset);
+  // A scan's naive curves are centred on the coil (|position − centre|): from a near face they are half a length nearer.
+  const scan = chosen.params['centre'] !== undefined;
+  const offset = scan ? -0.5 * (nearFace.has(chosen.model) ? chosen.params['length']?.value ?? 0 : 0) : probeOffsetOf(fitted);
+  const range = surveyedFieldRange(fitted, probeOffsetOf(fitted));
   const scale = lengthScale(fitted, range);
   const beyond = (z: number | null) => beyondSurvey(z, range);
   return levels.map((level) => {
@@ -56,7 +58,7 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     const power = convergedFit(fits, 'power-law');
     const powerDistance = naiveDistance(power, level.value, offset, scale);
     const ratio = (z: number | null) => (z !== null && estimate.distance ? z / estimate.distance : null);
-    const notes = [...commonNotes(fitted, physical !== null), ...estimate.notes, ...readingTypeNotes(level, context.readingType), ...level.notes];
+    const notes = [...commonNotes(fitted, physical !== null), ...(scan ? [scanNote] : []), ...estimate.notes, ...readingTypeNotes(level, context.readingType), ...level.notes];
     if (estimate.distance === null) notes.unshift(`The fitted ${chosen.model} field stays below ${formatQuantity(level.value, 'field')} everywhere on the axis beyond the datum.`);
     if (beyond(estimate.distance) && range) notes.push(`Extrapolated: the survey reaches ${formatQuantity(range[1], 'length')} from the datum; this distance rests on the model, not on readings.`);
     if (level.flag) notes.push(`Level source: ${level.flag}.`);
@@ -80,6 +82,11 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     } satisfies ThresholdResult;
   });
 }
+
+/** Models whose distance datum is the near face (DESIGN.md "Distance datum"). */
+const nearFace: ReadonlySet<string> = new Set(['solenoid', 'thick-coil']);
+
+const scanNote = 'The survey is a scan along the axis: the distance is measured from the fitted coil (its winding plane, the midpoint of a pair, or the near face of a long coil), not from the ruler\'s zero; the field is the same on both sides of the coil.';
 
 function levelOf(level: ThresholdLevel): ThresholdResult['level'] {
   return { value: level.value, unit: 'T', ...(level.label ? { label: level.label } : {}), ...(level.flag ? { flag: level.flag } : {}) };
