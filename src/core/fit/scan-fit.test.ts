@@ -3,7 +3,9 @@ import { integrate, loopByBiotSavart } from '../../../test/support/biot-savart';
 import { mulberry32 } from '../random/mulberry32';
 import { normalRandom } from '../random/normal-random';
 import type { Reading, Survey } from '../survey/survey';
-import type { ModelId } from '../models/field-model';
+import { centralDifference } from '../../../test/support/central-difference';
+import { coilPairModel, getModel, scanModel, solenoidModel } from '../models';
+import type { FieldModel, ModelId, SurveyPoints } from '../models/field-model';
 import { fitSurvey } from './fit-survey';
 import { evenlySpaced } from './testing/simulated-survey';
 
@@ -71,6 +73,74 @@ describe('fitting a two-sided scan (signed positions, centre fitted)', () => {
         // truth from the generator; a 95 % interval (one seed, regression pin of the seed)
         expect(estimate.ci95![0]).toBeLessThanOrEqual(value);
         expect(estimate.ci95![1]).toBeGreaterThanOrEqual(value);
+      }
+    });
+  }
+});
+
+describe('scan form of the models against published values, read at ruler positions', () => {
+  const mu0 = 1.25663706212e-6;
+  const at = (model: FieldModel, params: number[], positions: number[]) => {
+    const points: SurveyPoints = { n: positions.length, distance: Float64Array.from(positions), radial: new Float64Array(positions.length), field: new Float64Array(positions.length), kind: 'axial' };
+    const out = new Float64Array(positions.length);
+    scanModel(model).evaluate(Float64Array.from(params), points, out);
+    return Array.from(out);
+  };
+
+  it('a Helmholtz pair: centre field (4/5)^{3/2} μ0NI/R, flat to fourth order about its midpoint on the ruler', () => {
+    const [R, NI, centre] = [0.05, 120, -0.0372];
+    const [middle, near] = at(coilPairModel, [NI, R, R, centre, 0], [centre, centre + 0.01 * R]);
+    // Jackson, Classical Electrodynamics 3rd ed., Problem 5.5 (from memory): B = (4/5)^{3/2} μ0 N I / R at the midpoint
+    expect(middle! / ((4 / 5) ** 1.5 * mu0 * NI / R) - 1).toBeCloseTo(0, 12);
+    // B(z) ≈ B(0)(1 − (144/125)(z/R)⁴ + O((z/R)⁶)) on the axis of a Helmholtz pair (from memory, the standard
+    // expansion): at z = R/100 the sixth-order term is ~1e-4 of the fourth-order one
+    expect((1 - near! / middle!) / 0.01 ** 4).toBeCloseTo(144 / 125, 3);
+  });
+
+  it('a long solenoid: the field at either end is half the field at its middle', () => {
+    const [R, L, NI, centre] = [0.002, 2, 1000, 0.4];
+    const [middle, left, right] = at(solenoidModel, [NI, R, L, centre, 0], [centre, centre - L / 2, centre + L / 2]);
+    // Griffiths, Introduction to Electrodynamics 4th ed., eq. 5.57 and Problem 5.11: B = μ0 n I inside, half of it at an end (long-solenoid limit)
+    expect(middle! / (mu0 * NI / L) - 1).toBeCloseTo(0, 5);
+    expect(left! / middle!).toBeCloseTo(0.5, 5);
+    expect(right! / middle!).toBeCloseTo(0.5, 5);
+  });
+});
+
+describe('scan form Jacobian', () => {
+  const starts: Readonly<Record<string, number[]>> = {
+    'loop': [150, 0.03, 0.011, 1e-6],
+    'coil-pair': [100, 0.035, 0.03, -0.02, 0],
+    'solenoid': [400, 0.02, 0.08, 0.013, 2e-6],
+    'thick-coil': [900, 0.015, 0.03, 0.04, -0.007, 0],
+    'rectangle': [60, 0.04, 0.025, 0.004, 0],
+    'dipole': [0.5, 0.021, 0],
+    'power-law': [1e-7, 2.6, -0.013, 0],
+  };
+  const positions = [-0.21, -0.08, -0.031, -0.004, 0.017, 0.026, 0.052, 0.13];
+  for (const [id, values] of Object.entries(starts)) {
+    it(`${id}: the analytic Jacobian matches central differences of the scan-form prediction`, () => {
+      const model = scanModel(getModel(id));
+      const n = positions.length;
+      const k = values.length;
+      for (const kind of ['magnitude', 'axial'] as const) {
+        const points: SurveyPoints = { n, distance: Float64Array.from(positions), radial: new Float64Array(n).fill(0.004), field: new Float64Array(n), kind };
+        const analytic = new Float64Array(n * k);
+        model.jacobian!(Float64Array.from(values), points, analytic);
+        for (let j = 0; j < k; j++) {
+          const column = centralDifference((x) => {
+            const trial = Float64Array.from(values);
+            trial[j] = x;
+            const out = new Float64Array(n);
+            model.evaluate(trial, points, out);
+            return Array.from(out);
+          }, values[j]!, 1e-3);
+          column.forEach((value, i) => {
+            // common practice: central differences agree to ~1e-6 of the column's size
+            const size = Math.max(...column.map(Math.abs), 1e-30);
+            expect(Math.abs(analytic[i * k + j]! - value) / size).toBeLessThan(2e-5);
+          });
+        }
       }
     });
   }
