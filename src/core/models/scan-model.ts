@@ -11,7 +11,7 @@ export const centreParameter: ParameterSpec = {
 };
 
 /** Models whose distance datum is the near face, half a length from the centre (DESIGN.md "Distance datum"). */
-const nearFace: ReadonlySet<ModelId> = new Set(['solenoid', 'thick-coil']);
+export const nearFaceModels: ReadonlySet<string> = new Set<ModelId>(['solenoid', 'thick-coil']);
 
 const cache = new WeakMap<FieldModel, FieldModel>();
 
@@ -41,7 +41,7 @@ export function scanModel(base: FieldModel): FieldModel {
   if (cached !== undefined) return cached;
   const offsetIndex = base.parameters.findIndex((p) => p.name === 'probeOffset');
   if (offsetIndex < 0) return base;
-  const lengthIndex = nearFace.has(base.id) ? base.parameters.findIndex((p) => p.name === 'length') : -1;
+  const lengthIndex = nearFaceModels.has(base.id) ? base.parameters.findIndex((p) => p.name === 'length') : -1;
   const k = base.parameters.length;
   const inner = new Float64Array(k);
   let folded = new Float64Array(0);

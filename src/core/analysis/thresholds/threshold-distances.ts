@@ -1,5 +1,5 @@
 import type { FitResult } from '../../fit/fit-result';
-import { getModel } from '../../models';
+import { getModel, nearFaceModels } from '../../models';
 import type { ThresholdResult } from '../../report/report';
 import type { ReadingType } from '../../survey/survey';
 import { formatQuantity } from '../../units';
@@ -48,7 +48,7 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
   const fitted = fittedModel(chosen, getModel(chosen.model));
   // A scan's naive curves are centred on the coil (|position − centre|): from a near face they are half a length nearer.
   const scan = chosen.params['centre'] !== undefined;
-  const offset = scan ? -0.5 * (nearFace.has(chosen.model) ? chosen.params['length']?.value ?? 0 : 0) : probeOffsetOf(fitted);
+  const offset = scan ? -0.5 * (nearFaceModels.has(chosen.model) ? chosen.params['length']?.value ?? 0 : 0) : probeOffsetOf(fitted);
   const range = surveyedFieldRange(fitted, probeOffsetOf(fitted));
   const scale = lengthScale(fitted, range);
   const beyond = (z: number | null) => beyondSurvey(z, range);
@@ -82,9 +82,6 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     } satisfies ThresholdResult;
   });
 }
-
-/** Models whose distance datum is the near face (DESIGN.md "Distance datum"). */
-const nearFace: ReadonlySet<string> = new Set(['solenoid', 'thick-coil']);
 
 const scanNote = 'The survey is a scan along the axis: the distance is measured from the fitted coil (its winding plane, the midpoint of a pair, or the near face of a long coil), not from the ruler\'s zero; the field is the same on both sides of the coil.';
 
