@@ -22,7 +22,7 @@ export { renderTextReport } from './core/report/render-text';
 export { toJsonReport } from './core/report/to-json-report';
 export { parseQuantity, formatQuantity } from './core/units';
 export { RingfallError, isRingfallError } from './core/errors';
-export type { Survey, Reading, RejectedRow } from './core/survey/survey';
+export type { Survey, SurveyUnits, Reading, RejectedRow } from './core/survey/survey';
 export type { FitResult, ParameterEstimate } from './core/fit/fit-result';
 export type { Report, SurveyReport, Verdict, ThresholdResult, FleetSummary } from './core/report/report';
 export type {

@@ -43,7 +43,7 @@ export function unfittedReport(survey: Survey, reason: string): SurveyReport {
 
 /** The fleet section for several surveys (coil histories, trends, flags). */
 export function fleetStage(reports: readonly SurveyReport[], parsed: ParsedSettings, unreadable: readonly { source: string; reason: string }[]): FleetSummary {
-  return fleetHistory(reports.map((r) => ({ source: r.source, coil: r.coil, date: r.date, fits: r.fits, verdict: r.verdict })), { specs: parsed.specs, unreadable });
+  return fleetHistory(reports.map((r) => ({ source: r.source, coil: r.coil, date: r.date, fits: r.fits, verdict: r.verdict, ...(r.units ? { units: r.units } : {}) })), { specs: parsed.specs, unreadable });
 }
 
 /** The catalog's FieldModel for an id. */

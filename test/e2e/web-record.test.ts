@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser, outsideRequests, repoRoot, startWebServer, type BrowserSession, type WebServer } from './support/browser';
+import { expectClose } from '../support/expect-close';
 
 let server: WebServer;
 let browser: BrowserSession;
@@ -125,6 +126,27 @@ describe('the page follows the user and keeps a record', () => {
     expect(note).toContain('Spec check not made');
     expect(note).toContain('QM-03, not QA-107');
     expect(note).not.toMatch(/--spec|SPEC_/);
+  });
+
+  it('shows a survey logged in gauss and inches in G and in, its values SI underneath', async () => {
+    await page.getByRole('button', { name: 'Remove all files' }).click();
+    // the same loop in a gaussmeter's units: 1 mT = 10 G (1 G = 1e-4 T exactly, SI Brochure 9th ed., Table 8), 1 in = 25.4 mm exactly (1959 agreement)
+    const lines = loopSurveyText('USER-G', '2026-03-04').trimEnd().split('\n');
+    const converted = lines.map((line) => {
+      if (line.startsWith('#')) return line;
+      if (line.startsWith('distance')) return 'distance (in),B (G)';
+      const [mm, mT] = line.split(',').map(Number);
+      return `${(mm! / 25.4).toPrecision(10)},${(mT! * 10).toPrecision(10)}`;
+    });
+    await andWaitForReport(() => page.setInputFiles('#survey-files', scratchFile('gauss-inch.csv', converted.join('\n') + '\n')));
+    const survey = page.locator('.rf-survey').first();
+    await expect(survey.locator('.rf-facts').innerText()).resolves.toMatch(/units\s+G, in \(as in the file\)/);
+    const radius = survey.locator('.rf-params').first().locator('tr[data-param=radius]');
+    // the readings were made from a 45 mm loop: about 1.77 in on screen, 0.045 m underneath
+    expectClose(Number(await radius.getAttribute('data-value')), 0.045, { rel: 0.02 });
+    const shown = /([0-9.]+) in/.exec(await radius.locator('td').first().innerText());
+    expectClose(Number(shown![1]), Number(await radius.getAttribute('data-value')) / 0.0254, { rel: 1e-3 });
+    await expect(survey.locator('.rf-comparison tbody tr').first().innerText()).resolves.toMatch(/[0-9] G\b/);
   });
 
   it('made no request outside the machine and logged no error', () => {

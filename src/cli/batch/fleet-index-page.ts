@@ -23,7 +23,7 @@ export function renderFleetIndexPage(report: Report, pages: readonly (string | n
   const attention = attentionList(rows, unreadable);
   const page: SafeHtml = html`${documentHead("default-src 'none'; style-src 'unsafe-inline'", 'ringfall fleet summary', 1000)}<body class="rf-report">
 <header><h1>Fleet summary</h1>
-<p>${rows.filter((row) => row.coil !== null).length} coils, ${report.surveys.length} surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p>
+<p>${rows.filter((row) => row.coil !== null).length} coils, ${coverage.surveys ?? report.surveys.length} surveys from ${coverage.filesDone} files${coverage.interrupted ? html` — <strong>partial: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files</strong>` : ''}.</p>
 ${coverage.pagesStopped === true ? html`<p><strong>Partial: the run was stopped while writing the coil pages; coils without a link have no page.</strong></p>` : ''}
 ${(report.skipped ?? []).map((entry) => html`<p class="rf-note">${entry.files.length} files left out: ${entry.list} lists ${entry.patterns.join(', ')} as not surveys (${entry.files.join(', ')}).</p>`)}</header>
 <section class="rf-fleet"><h2>Coils</h2>

@@ -1,5 +1,6 @@
 import { summaryBasisWords, summaryFit } from '../../core/analysis/summary-fit';
-import { describeValue, parameterWords } from '../../core/analysis/describe-value';
+import { parameterWords, valueWords, type ValueWords } from '../../core/analysis/describe-value';
+import { surveyUnits } from '../../core/units';
 import { parameterRole } from '../../core/analysis/parameter-roles';
 import type { FitResult, ParameterEstimate } from '../../core/fit/fit-result';
 import { getModel, parameterQuantityKind } from '../../core/models';
@@ -40,7 +41,7 @@ export function fleetRows(report: Report): FleetRow[] {
 }
 
 /** True when `a` comes after `b` in history order: a dated survey after an undated one, a later date, or the same date later in the file list. */
-function later(a: SurveyReport, b: SurveyReport): boolean {
+export function later(a: SurveyReport, b: SurveyReport): boolean {
   if (a.date === null) return b.date === null;
   if (b.date === null) return true;
   return a.date >= b.date;
@@ -51,23 +52,25 @@ function later(a: SurveyReport, b: SurveyReport): boolean {
  * (summaryFit: the spec's model, else the coil history's, else the best physical model
  * by AICc; never a power law), and its amplitude and geometry parameters, each as
  * "ampere-turns 306 A (301–311)" (95 % interval; "fixed" or "not determined" instead when
- * so). `model` names the model and why it was chosen. Null when no physical model converged.
+ * so), lengths in the units the survey's file was written in (surveyUnits). `model` names
+ * the model and why it was chosen. Null when no physical model converged.
  */
 export function coilFigures(row: FleetRow): { fit: FitResult; model: string; figures: string[] } | null {
   const summary = summaryFit(row.latest, getModel, row.history?.model ?? null);
   if (summary === null) return null;
   const fit = summary.fit;
   const survey = row.latest;
+  const shown = valueWords(surveyUnits(survey));
   const figures = Object.values(fit.params)
     .filter((estimate) => ['amplitude', 'geometry'].includes(parameterRole(estimate.name)))
-    .map((estimate) => `${parameterWords(estimate.name)} ${describeEstimate(estimate)}`);
+    .map((estimate) => `${parameterWords(estimate.name)} ${describeEstimate(estimate, shown)}`);
   const ranked = survey.best !== null && survey.best !== fit.model ? `; lowest AICc: ${survey.best}` : '';
   return { fit, model: `${fit.model} (${summaryBasisWords[summary.basis]}${ranked})`, figures };
 }
 
-function describeEstimate(estimate: ParameterEstimate): string {
+function describeEstimate(estimate: ParameterEstimate, shown: ValueWords): string {
   const kind = parameterQuantityKind(estimate.unit);
-  if (estimate.fixed) return `${describeValue(estimate.value, kind)} fixed`;
-  if (!estimate.determined) return `${describeValue(estimate.value, kind)} not determined`;
-  return describeValue(estimate.value, kind, estimate.ci95);
+  if (estimate.fixed) return `${shown.value(estimate.value, kind)} fixed`;
+  if (!estimate.determined) return `${shown.value(estimate.value, kind)} not determined`;
+  return shown.value(estimate.value, kind, estimate.ci95);
 }

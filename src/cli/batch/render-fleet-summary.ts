@@ -1,8 +1,8 @@
 import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
 import { wrap } from '../../core/report/render-text';
-import { describeValue } from '../../core/analysis/describe-value';
+import { valueWords, type ValueWords } from '../../core/analysis/describe-value';
 import type { Report, ThresholdResult } from '../../core/report/report';
-import { formatNumber } from '../../core/units';
+import { formatNumber, surveyUnits } from '../../core/units';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows, type FleetRow } from './fleet-rows';
 
@@ -18,6 +18,8 @@ export interface BatchCoverage {
   readonly filesTotal: number;
   /** True when the run was stopped (Ctrl-C) before every file was done. */
   readonly interrupted: boolean;
+  /** Surveys fitted in all, when the report holds only each coil's latest (batch's summary report); else the report's count. */
+  readonly surveys?: number;
 }
 
 /**
@@ -36,7 +38,7 @@ export function renderFleetSummary(report: Report, coverage: BatchCoverage): str
     lines.push(`PARTIAL SUMMARY: stopped after ${coverage.filesDone} of ${coverage.filesTotal} files; it covers those files only.`, '');
   }
   const coils = rows.filter((row) => row.coil !== null).length;
-  lines.push(`Fleet summary: ${plural(coils, 'coil')}, ${plural(report.surveys.length, 'survey')} from ${plural(coverage.filesDone, 'file')}`);
+  lines.push(`Fleet summary: ${plural(coils, 'coil')}, ${plural(coverage.surveys ?? report.surveys.length, 'survey')} from ${plural(coverage.filesDone, 'file')}`);
   const extra = [
     rows.length > coils ? `${plural(rows.length - coils, 'survey')} without a coil id` : '',
     unreadable.length > 0 ? `${plural(unreadable.length, 'file or part', 'files or parts')} could not be used` : '',
@@ -76,16 +78,17 @@ function rowLines(row: FleetRow): string[] {
   } else {
     lines.push('    no physical model converged on this survey');
   }
-  for (const threshold of survey.thresholds) lines.push(...wrap(thresholdText(threshold), 4, 6));
+  const shown = valueWords(surveyUnits(survey));
+  for (const threshold of survey.thresholds) lines.push(...wrap(thresholdText(threshold, shown), 4, 6));
   lines.push(...wrap(`history: ${historyText(row)}`, 4, 6));
   return lines;
 }
 
-/** "below 0.5 mT beyond 80.2 mm (76.8–83.7) on axis (loop)", marked when extrapolated. */
-function thresholdText(threshold: ThresholdResult): string {
-  const level = describeValue(threshold.level.value, 'field') + (threshold.level.label ? ` (${threshold.level.label})` : '');
+/** "below 0.5 mT beyond 80.2 mm (76.8–83.7) on axis (loop)" in the survey's units, marked when extrapolated. */
+function thresholdText(threshold: ThresholdResult, shown: ValueWords): string {
+  const level = shown.value(threshold.level.value, 'field') + (threshold.level.label ? ` (${threshold.level.label})` : '');
   if (threshold.distance === null) return `below ${level}: not found on the fitted ${threshold.model} curve`;
-  return `below ${level} beyond ${describeValue(threshold.distance.value, 'length', threshold.distance.ci95)} on axis (${threshold.model}${threshold.extrapolated ? ', extrapolated beyond the survey' : ''})`;
+  return `below ${level} beyond ${shown.value(threshold.distance.value, 'length', threshold.distance.ci95)} on axis (${threshold.model}${threshold.extrapolated ? ', extrapolated beyond the survey' : ''})`;
 }
 
 function historyText(row: FleetRow): string {

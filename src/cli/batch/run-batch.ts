@@ -45,6 +45,29 @@ const largestChunk = 32;
  */
 export async function runBatch(files: readonly string[], settings: BatchSettings, options: BatchRunOptions): Promise<BatchResult> {
   const outcomes: (FileOutcome | undefined)[] = new Array(files.length);
+  const result = await runBatchInOrder(files, settings, options, (outcome) => { outcomes[outcome.index] = outcome; });
+  return { ...result, report: assembleReport(outcomes, settings) };
+}
+
+/**
+ * runBatch without keeping the outcomes: each file's outcome is handed to `onOutcome` in
+ * file order (the sorted list) as soon as every file before it is done, whatever worker
+ * finished first, so what a consumer writes is the same byte for byte with any number of
+ * workers. A stopped run hands over the files it finished, still in file order.
+ */
+export async function runBatchInOrder(
+  files: readonly string[], settings: BatchSettings, options: BatchRunOptions, onOutcome: (outcome: FileOutcome) => void,
+): Promise<Omit<BatchResult, 'report'>> {
+  const waiting = new Map<number, FileOutcome>();
+  let next = 0;
+  const deliver = (outcome: FileOutcome) => {
+    waiting.set(outcome.index, outcome);
+    for (let ready = waiting.get(next); ready !== undefined; ready = waiting.get(next)) {
+      waiting.delete(next);
+      next += 1;
+      onOutcome(ready);
+    }
+  };
   const workers = Math.max(1, Math.min(options.workers, files.length));
   const chunkSize = Math.max(1, Math.min(largestChunk, Math.ceil(files.length / (workers * chunksPerWorker))));
   const progress = createBatchProgress(options.progress, files.length, workers, options.progressInterval === undefined ? {} : { intervalSeconds: options.progressInterval });
@@ -56,7 +79,7 @@ export async function runBatch(files: readonly string[], settings: BatchSettings
     entry: batchWorkerEntry(),
     workerData: settings,
     onOutcomes: (finished) => {
-      for (const outcome of finished) outcomes[outcome.index] = outcome;
+      for (const outcome of finished) deliver(outcome);
       done += finished.length;
       progress.update(done);
     },
@@ -67,8 +90,10 @@ export async function runBatch(files: readonly string[], settings: BatchSettings
     void run.stop();
   });
   await run.done;
+  // a stopped run leaves gaps: what was finished after a gap follows, still in file order
+  for (const index of [...waiting.keys()].sort((a, b) => a - b)) onOutcome(waiting.get(index)!);
   progress.finish(done, interrupted);
-  return { report: assembleReport(outcomes, settings), filesDone: done, filesTotal: files.length, interrupted };
+  return { filesDone: done, filesTotal: files.length, interrupted };
 }
 
 /** The Report from outcomes indexed by file: surveys in file order, then the fleet section. */
@@ -77,7 +102,7 @@ export function assembleReport(outcomes: readonly (FileOutcome | undefined)[], s
   const surveys = finished.flatMap((outcome) => outcome.reports);
   const unreadable = finished.flatMap((outcome) => outcome.unreadable);
   const fleet = fleetHistory(
-    surveys.map((s) => ({ source: s.source, coil: s.coil, date: s.date, fits: s.fits, verdict: s.verdict })),
+    surveys.map((s) => ({ source: s.source, coil: s.coil, date: s.date, fits: s.fits, verdict: s.verdict, ...(s.units ? { units: s.units } : {}) })),
     { specs: settings.specs, unreadable },
   );
   return { surveys, fleet };

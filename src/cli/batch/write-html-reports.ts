@@ -1,9 +1,9 @@
 import { join } from 'node:path';
-import type { Report } from '../../core/report/report';
+import type { Report, SurveyReport } from '../../core/report/report';
 import { chartLibrarySource } from '../../web/report-view/chart-library-node';
 import { renderReportDocument } from '../../web/report-view/index';
 import { renderFleetIndexPage } from './fleet-index-page';
-import { fleetRows } from './fleet-rows';
+import { fleetRows, type FleetRow } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';
 import { unwritable } from './out-folder-lock';
 import { yieldToEvents, type StopSignals } from '../stop-signals';
@@ -18,12 +18,17 @@ import { writeFileAtomic } from '../write-file-atomic';
  * there. A stop request (SIGINT, SIGTERM) between pages ends the pages early; the index
  * then lists every coil, links the pages written and says it is partial. File names come
  * from coil ids made safe (pageNames); the text inside is escaped by the report view.
+ * `surveysOf` gives a row's surveys (batch reads them back from its spool; by default
+ * they are taken from `report`).
  *
  * @returns the paths written, index.html first
  * @throws RingfallError `OUTPUT_UNWRITABLE` when a file cannot be written (the pages
  *   already in place stay; the index is not written)
  */
-export async function writeHtmlReports(folder: string, report: Report, coverage: BatchCoverage, stop: Pick<StopSignals, 'signal'> | null = null): Promise<string[]> {
+export async function writeHtmlReports(
+  folder: string, report: Report, coverage: BatchCoverage, stop: Pick<StopSignals, 'signal'> | null = null,
+  surveysOf: (row: FleetRow) => readonly SurveyReport[] = (row) => (row.coil === null ? [row.latest] : report.surveys.filter((survey) => survey.coil === row.coil)),
+): Promise<string[]> {
   const rows = fleetRows(report);
   const names = pageNames(rows.map((row) => row.coil ?? row.latest.source.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '')));
   const chartLibrary = chartLibrarySource();
@@ -41,7 +46,7 @@ export async function writeHtmlReports(folder: string, report: Report, coverage:
   for (const [i, row] of rows.entries()) {
     await yieldToEvents();
     if (stop?.signal) break;
-    const surveys = row.coil === null ? [row.latest] : report.surveys.filter((survey) => survey.coil === row.coil);
+    const surveys = surveysOf(row);
     const fleet = { coils: row.history ? [row.history] : [], unreadable: [] };
     const title = row.coil === null ? `ringfall report: ${row.latest.source}` : `ringfall report: coil ${row.coil}`;
     const subtitle = `${surveys.length} survey${surveys.length === 1 ? '' : 's'}${coverage.interrupted ? ' (partial batch)' : ''}; fleet summary in index.html`;

@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
@@ -8,7 +11,10 @@ import { toJsonReport } from '../../core/report/to-json-report';
 import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
-import { runBatch } from '../batch/run-batch';
+import { runBatchInOrder } from '../batch/run-batch';
+import { FleetCollector } from '../batch/fleet-collector';
+import { SurveySpool } from '../batch/survey-spool';
+import { JsonReportStream } from '../json-report-stream';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { claimOutFolder } from '../batch/out-folder-lock';
 import { stoppedStatus, watchStopSignals } from '../stop-signals';
@@ -76,29 +82,47 @@ export function registerBatch(program: Command, context: CommandContext): void {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
         // the files' SHA-256 for the run record, read on this thread while the workers fit
         const hashing = describeFiles(files);
-        const result = await runBatch(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) });
-        const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
-        // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
-        const fleet = result.report.fleet === undefined || unusable.length === 0 ? result.report.fleet
-          : { ...result.report.fleet, unreadable: [...unusable, ...result.report.fleet.unreadable] };
-        const report: Report = { ...result.report, ...(fleet ? { fleet } : {}), run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
-        const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
-        const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted };
-        if (flags.json === true) {
-          const json = toJsonReport(report);
-          if (signal !== null) json['partial'] = { filesDone: result.filesDone, filesTotal: result.filesTotal, signal };
-          process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
-        } else {
-          process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
+        // surveys go to a spool on disk as they come (for the JSON report and the pages), and
+        // the collector keeps only what the summary and the fleet history need: memory stays
+        // flat in the number of files
+        const spoolFolder = claim === null && flags.json === true ? mkdtempSync(join(tmpdir(), 'ringfall-batch-')) : null;
+        const spool = claim !== null ? new SurveySpool(claim.scratchPath('surveys.jsonl')) : spoolFolder !== null ? new SurveySpool(join(spoolFolder, 'surveys.jsonl')) : null;
+        try {
+          const collector = new FleetCollector(settings);
+          let uncoiled = 0;
+          const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
+            collector.add(outcome);
+            reportUnappliedSpecs({ surveys: outcome.reports });
+            for (const survey of outcome.reports) spool?.add(pageKey(survey, () => uncoiled++), survey);
+          });
+          const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
+          const summary = collector.report();
+          // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
+          const fleet = summary.fleet === undefined ? undefined : { ...summary.fleet, unreadable: [...unusable, ...summary.fleet.unreadable] };
+          const extra = { run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
+          const report: Report = { ...summary, ...(fleet ? { fleet } : {}), ...extra };
+          const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
+          const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
+          if (flags.json === true) {
+            // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
+            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }));
+            for (const survey of spool!.all()) stream.survey(survey);
+            stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
+          } else {
+            process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
+          }
+          if (flags.out !== undefined) {
+            let pageUncoiled = 0;
+            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool!.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
+            process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
+          }
+          const stoppedBy = signal ?? stop.signal;
+          if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
+          context.setExitCode(worseStatus(collector.checksStatus, batchStatus(report)));
+        } finally {
+          spool?.dispose();
+          if (spoolFolder !== null) rmSync(spoolFolder, { recursive: true, force: true });
         }
-        if (flags.out !== undefined) {
-          const written = await writeHtmlReports(flags.out, report, coverage, stop);
-          process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
-        }
-        const stoppedBy = signal ?? stop.signal;
-        if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
-        reportUnappliedSpecs(result.report);
-        context.setExitCode(batchStatus(report));
       } finally {
         stop.dispose();
         claim?.release();
@@ -143,6 +167,11 @@ function readSeconds(text: string | undefined, option: string, least: number, mo
     throw new RingfallError('OPTION_VALUE', `${option}: "${text}" is not usable. Give seconds from ${least} to ${most}, e.g. ${example}.`, { value: text, where: option });
   }
   return seconds;
+}
+
+/** The spool key of a survey's page: its coil, or a page of its own when it has no coil id (numbered in report order). */
+function pageKey(survey: { readonly coil: string | null }, nextUncoiled: () => number): string {
+  return survey.coil === null || survey.coil.trim() === '' ? `survey ${nextUncoiled()}` : `coil ${survey.coil}`;
 }
 
 /** 2 when a file or part could not be used (an input error), combined with the checks as `fit` counts them (checksStatus) (CONTRACT.md). */

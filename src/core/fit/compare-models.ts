@@ -4,6 +4,7 @@ import { akaikeWeights } from '../stats/akaike-weights';
 import { describePowerLaw, powerLawContext } from './describe-power-law';
 import { inDistanceForm } from './distance-form-fit';
 import type { FitResult } from './fit-result';
+import { surveyUnits, type SurveyUnitChoice } from '../units/survey-units';
 
 /** The fits with their Akaike weights, the best model and the power-law sentences. */
 export interface ModelComparison {
@@ -24,10 +25,11 @@ export interface ModelComparison {
  * against the best physical model (DOMAIN.md §1.9).
  *
  * @param modelOf catalog lookup (default getModel), to tell physical models from power laws.
+ * @param units the survey's units (surveyUnits): the sentences write distances and fields in them.
  * @throws RangeError when the fits do not share n and the uncertainty scale (different data
  *   or weights cannot be compared).
  */
-export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel): ModelComparison {
+export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId) => FieldModel = getModel, units: SurveyUnitChoice = surveyUnits(null)): ModelComparison {
   const weighted = withAkaikeWeights(fits);
   const lowest = (candidates: readonly FitResult[]) =>
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
@@ -36,7 +38,7 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
   const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical);
   // A scan's fits are described by distance from the coil (distance form), not by ruler position.
   const coil = physical === null ? null : inDistanceForm(physical);
-  const shared = laws.length > 0 ? powerLawContext(inDistanceForm(laws[0]!), coil, modelOf) : null;
+  const shared = laws.length > 0 ? powerLawContext(inDistanceForm(laws[0]!), coil, modelOf, units) : null;
   const comparison = laws.map((fit) => describePowerLaw(inDistanceForm(fit), coil, modelOf, shared!));
   return { fits: weighted, best: best?.model ?? null, comparison };
 }

@@ -1,6 +1,7 @@
 import type { FieldModel, ModelId, SurveyPoints } from '../models/field-model';
 import { logLogLine } from '../models/initial-guess';
-import { formatNumber, formatQuantity } from '../units/format-quantity';
+import { formatNumber } from '../units/format-quantity';
+import { surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../units/survey-units';
 import type { FitResult } from './fit-result';
 import { runsTest } from './runs-test';
 
@@ -50,7 +51,8 @@ export function describePowerLaw(
     if (Number.isFinite(power) && Number.isFinite(coil) && coil !== 0) {
       const ratio = power / coil;
       const verdict = ratio >= 1 ? `${formatNumber(ratio, 3)}× too high` : `${formatNumber((1 - ratio) * 100, 2)} % too low`;
-      extrapolation = `; extrapolated to ${millimetres(at)} mm (twice the farthest reading) it gives ${formatQuantity(Math.abs(power), 'field', { significant: 3 })} where ${physical.model} gives ${formatQuantity(Math.abs(coil), 'field', { significant: 3 })} (${verdict})`;
+      const field = (value: number) => shared.units.format(Math.abs(value), 'field', { significant: 3 });
+      extrapolation = `; extrapolated to ${inUnit(at, shared.length)} ${shared.length.symbol} (twice the farthest reading) it gives ${field(power)} where ${physical.model} gives ${field(coil)} (${verdict})`;
     }
   }
   return `${head}: ${pattern}${extrapolation}.`;
@@ -64,6 +66,9 @@ export interface PowerLawContext {
   readonly line: { readonly slope: number; readonly intercept: number } | null;
   /** "12.5–300 mm": the distances the apparent exponent is read over. */
   readonly range: string;
+  /** How the survey's values are written (surveyUnits), and the unit of its distances. */
+  readonly units: SurveyUnitChoice;
+  readonly length: DisplayUnit;
   readonly farthest: number;
   /** The physical fit's coil field at twice the farthest distance (T), NaN without one. */
   readonly physicalField: number;
@@ -74,8 +79,9 @@ export interface PowerLawContext {
  * physical fit, worked out once for all the power laws of a survey (compareModels).
  *
  * @param any one fit of the survey (its points give the readings)
+ * @param units the survey's units (surveyUnits): distances and fields are written in them; mm and a unit chosen from the value when absent
  */
-export function powerLawContext(any: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel): PowerLawContext {
+export function powerLawContext(any: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel, units: SurveyUnitChoice = surveyUnits(null)): PowerLawContext {
   const points = any.points;
   const order = points.map((_, i) => i).sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
   const positive = order.filter((i) => points[i]!.distance > 0);
@@ -87,10 +93,11 @@ export function powerLawContext(any: FitResult, physical: FitResult | null, mode
   });
   const line = logLogLine(distance, field);
   const span = line === null ? order : positive;
-  const range = `${millimetres(points[span[0]!]?.distance ?? 0)}–${millimetres(points[span[span.length - 1]!]?.distance ?? 0)} mm`;
   const farthest = points[order[order.length - 1]!]?.distance ?? 0;
+  const length = units.unit('length', farthest, { symbol: 'mm', factor: 1e-3 });
+  const range = `${inUnit(points[span[0]!]?.distance ?? 0, length)}–${inUnit(points[span[span.length - 1]!]?.distance ?? 0, length)} ${length.symbol}`;
   const physicalField = physical !== null && farthest > 0 ? coilField(physical, modelOf, 2 * farthest) : NaN;
-  return { order, line, range, farthest, physicalField };
+  return { order, line, range, units, length, farthest, physicalField };
 }
 
 /** "below 5 of the 6 nearest readings" (most residuals y − f positive) or "above …". */
@@ -112,7 +119,7 @@ function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distanc
   return out[0]!;
 }
 
-/** A distance in mm to 3 significant digits without trailing zeros: 0.002 → "2", 0.0455 → "45.5". */
-function millimetres(metres: number): string {
-  return String(Number((metres * 1e3).toPrecision(3)));
+/** A distance in `unit` to 3 significant digits without trailing zeros: 0.002 m in mm → "2", 0.0455 m in mm → "45.5". */
+function inUnit(metres: number, unit: DisplayUnit): string {
+  return String(Number((metres / unit.factor).toPrecision(3)));
 }

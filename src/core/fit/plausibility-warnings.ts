@@ -1,4 +1,4 @@
-import { formatQuantity } from '../units/format-quantity';
+import { surveyUnits } from '../units/survey-units';
 import type { FitWarningInput } from './fit-warnings';
 
 /** Probe offsets outside this range (m) are questioned: recess plus housing is a few mm (common practice). */
@@ -14,13 +14,14 @@ const largestAcBackground = 1e-5;
  * front of the stated distance or more than 20 mm behind it (DOMAIN.md §3.1); a DC
  * background above 100 µT, an AC background above 10 µT, or any background above a
  * quarter of the largest reading (DOMAIN.md §3.4, §5: the constant is then absorbing a
- * misfit of the curve's shape).
+ * misfit of the curve's shape). Values in the survey's own units (surveyUnits).
  */
 export function plausibilityWarnings(input: FitWarningInput): string[] {
   const warnings: string[] = [];
+  const units = surveyUnits(input.survey);
   const offset = input.params['probeOffset'];
   if (offset && !offset.fixed) {
-    const shown = formatQuantity(Math.abs(offset.value), 'length', { significant: 3 });
+    const shown = units.format(Math.abs(offset.value), 'length', { significant: 3 });
     if (offset.value < offsetRange[0]) {
       warnings.push(`The fitted probe offset puts the sensing point ${shown} in front of the stated distance: check where distances were measured from (the winding plane, or the near face of a long coil).`);
     } else if (offset.value > offsetRange[1]) {
@@ -32,7 +33,7 @@ export function plausibilityWarnings(input: FitWarningInput): string[] {
     let largest = 0;
     for (let i = 0; i < input.points.n; i++) largest = Math.max(largest, Math.abs(input.points.field[i]!));
     const size = Math.abs(background.value);
-    const shown = formatQuantity(background.value, 'field', { significant: 3 });
+    const shown = units.format(background.value, 'field', { significant: 3 });
     const ac = input.survey.readingType === 'rms' || input.survey.readingType === 'peak';
     if (size > 0.25 * largest) {
       warnings.push(`The fitted background (${shown}) is more than a quarter of the largest reading: it is absorbing a misfit of the curve's shape rather than measuring a background.`);

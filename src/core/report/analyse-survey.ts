@@ -2,6 +2,7 @@ import type { Spec } from '../analysis/spec/spec';
 import { selectSpec } from '../analysis/spec/select-spec';
 import { specUse } from '../analysis/spec/spec-use';
 import { verifySpec } from '../analysis/spec/verify-spec';
+import { valueWords } from '../analysis/describe-value';
 import { isRingfallError } from '../errors';
 import { thresholdCautions } from '../analysis/thresholds/threshold-cautions';
 import { thresholdDistances } from '../analysis/thresholds/threshold-distances';
@@ -10,6 +11,7 @@ import { fitSurvey, fitSurveyNotes } from '../fit/fit-survey';
 import type { FitSurveyOptions } from '../fit/fit-survey-options';
 import type { ModelId } from '../models';
 import type { Survey } from '../survey/survey';
+import { surveyUnits } from '../units';
 import { buildSurveyReport } from './build-survey-report';
 import type { SurveyReport } from './report';
 
@@ -27,7 +29,8 @@ export interface SurveyAnalysisSettings {
  * given and none applies, the report says so: specUse), fit every model
  * (fitSurvey), check the spec (verifySpec, refitting its model with the label's geometry
  * held when the readings cannot determine it), find the threshold distances with their
- * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport.
+ * cautions (DOMAIN.md §1.10, §4.5) and assemble the SurveyReport. The verdict's sentences
+ * write fields and lengths in the units the survey's file was written in (surveyUnits).
  *
  * @throws RingfallError from fitSurvey for settings this survey cannot be fitted with
  */
@@ -46,9 +49,9 @@ export function analyseSurvey(survey: Survey, settings: SurveyAnalysisSettings):
       throw error;
     }
   };
-  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType }) : [];
+  const thresholds = settings.thresholds.length > 0 ? thresholdDistances(fits, settings.thresholds, { readingType: survey.readingType, ...(survey.units ? { units: survey.units } : {}) }) : [];
   return buildSurveyReport(survey, fits, {
-    verdict: spec ? verifySpec(spec, fits, survey.readingType, refit) : null,
+    verdict: spec ? verifySpec(spec, fits, survey.readingType, refit, valueWords(surveyUnits(survey))) : null,
     spec: specUse(settings.specs, spec, survey.coil),
     thresholds,
     cautions: thresholds.length > 0 ? thresholdCautions : [],

@@ -1,4 +1,6 @@
 import { compareModels } from '../fit/compare-models';
+import { getModel } from '../models';
+import { surveyUnits } from '../units';
 import type { FitResult } from '../fit/fit-result';
 import type { Survey } from '../survey/survey';
 import type { SpecUse, SurveyReport, ThresholdResult, Verdict } from './report';
@@ -29,7 +31,7 @@ export interface SurveyReportExtras {
  * @example buildSurveyReport(survey, fitSurvey(survey)).best // 'loop'
  */
 export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], extras: SurveyReportExtras = {}): SurveyReport {
-  const compared = fits.length === 0 ? { fits: [], best: null, comparison: [] } : compareModels(fits);
+  const compared = fits.length === 0 ? { fits: [], best: null, comparison: [] } : compareModels(fits, getModel, surveyUnits(survey));
   const warnings = [...(extras.warnings ?? [])];
   if (fits.length > 0 && compared.best === null) {
     const converged = fits.filter((fit) => fit.converged);
@@ -49,6 +51,7 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
     coil: survey.coil,
     date: survey.date,
     readingType: survey.readingType,
+    ...(survey.units ? { units: survey.units } : {}),
     readings: { total: survey.totalRows, used: survey.readings.length, rejected: survey.rejected },
     fits: compared.fits,
     best: compared.best,

@@ -1,6 +1,7 @@
 import { RingfallError } from '../errors';
 import type { FitResult, ParameterEstimate } from '../fit/fit-result';
 import type { Report, SurveyReport } from './report';
+import type { SurveyUnits } from '../survey/survey';
 import type { RunRecord } from './run-record';
 import { reportSchema } from './to-json-report';
 
@@ -31,8 +32,13 @@ export function fromJsonReport(json: unknown, source: string): Report {
 
 function surveyFromJson(survey: Json): SurveyReport {
   const readings = isObject(survey['readings']) ? survey['readings'] : {};
+  // units are taken only when well formed; the rest of the survey as saved
+  const saved: Json = { ...survey };
+  delete saved['units'];
+  const units = unitsFromJson(survey['units']);
   return {
-    ...(survey as unknown as SurveyReport),
+    ...(saved as unknown as SurveyReport),
+    ...(units ? { units } : {}),
     readings: { total: Number(readings['total'] ?? 0), used: Number(readings['used'] ?? 0), rejected: list(readings['rejected']) as unknown as SurveyReport['readings']['rejected'] },
     fits: list(survey['fits']).filter(isObject).map(fitFromJson),
     best: (survey['best'] ?? null) as SurveyReport['best'],
@@ -43,6 +49,12 @@ function surveyFromJson(survey: Json): SurveyReport {
     cautions: list(survey['cautions']) as string[],
     notes: list(survey['notes']) as string[],
   };
+}
+
+/** The survey's units when the report states both as text (a report saved before they were recorded has none). */
+function unitsFromJson(units: unknown): SurveyUnits | null {
+  if (!isObject(units) || typeof units['field'] !== 'string' || typeof units['distance'] !== 'string') return null;
+  return { field: units['field'], distance: units['distance'] };
 }
 
 function fitFromJson(fit: Json): FitResult {

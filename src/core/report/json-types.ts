@@ -90,6 +90,12 @@ export interface JsonSurvey {
   readonly coil: string | null;
   readonly date: string | null;
   readonly readingType: ReadingType | null;
+  /**
+   * The units the survey's file was written in (header, option or hand mapping), as the
+   * text and HTML reports show its values; the values in this report stay SI. Absent when
+   * not known.
+   */
+  readonly units?: { readonly field: string; readonly distance: string };
   readonly readings: { readonly total: number; readonly used: number; readonly rejected: readonly JsonRejectedRow[] };
   readonly fits: readonly JsonFit[];
   /** Best model by AICc among converged fits, or null. */

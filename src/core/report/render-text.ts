@@ -1,18 +1,22 @@
 import type { FitResult, ParameterEstimate } from '../fit/fit-result';
 import { parameterQuantityKind } from '../models/parse-parameter-assignment';
 import { printable } from '../text/printable';
-import { displayUnit, formatNumber, formatQuantity } from '../units';
+import { formatNumber, surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../units';
 import { describeRun } from './describe-run';
 import type { Report, SpecUse, SurveyReport, ThresholdResult, Verdict } from './report';
 import type { RunRecord } from './run-record';
+
+/** Threshold distances of a survey whose units are not known are shown in mm. */
+const millimetres: DisplayUnit = { symbol: 'mm', factor: 1e-3 };
 
 /** How many set-aside rows the text report lists before pointing to --json. */
 const rejectedListed = 20;
 
 /**
  * Render a Report as plain text for an 80-column terminal: per survey its provenance,
- * the best model's parameters with 95 % intervals in sensible units, the model
- * comparison, verdict, threshold distances, warnings and cautions.
+ * the best model's parameters with 95 % intervals, the model comparison, verdict,
+ * threshold distances, warnings and cautions. Fields and lengths are shown in the units
+ * the survey's file was written in (surveyUnits), else in units chosen from the values.
  */
 export function renderTextReport(report: Report): string {
   const surveys = report.surveys.map(renderSurvey).join('\n' + '═'.repeat(78) + '\n\n');
@@ -31,6 +35,7 @@ export function renderRunText(run: RunRecord): string {
 
 function renderSurvey(survey: SurveyReport): string {
   const lines: string[] = [];
+  const units = surveyUnits(survey);
   // file names, coil ids, notes and reasons come from files and arguments: shown escaped (printable), one line each
   lines.push(`Survey ${printable(survey.source)}`);
   const facts = [
@@ -55,7 +60,7 @@ function renderSurvey(survey: SurveyReport): string {
   if (best) {
     const weight = best.stats.akaikeWeight;
     lines.push(`Coil as measured — ${best.model}` + (weight === null ? '' : ` (Akaike weight ${formatNumber(weight, 3)})`));
-    lines.push(...parameterTable(best));
+    lines.push(...parameterTable(best, units));
     if (best.uncertaintyScale === 'estimated') {
       lines.push('  Intervals use the scatter of the readings (no instrument uncertainty given).');
     }
@@ -66,14 +71,14 @@ function renderSurvey(survey: SurveyReport): string {
 
   if (survey.fits.length > 0) {
     lines.push('Models side by side (same readings; lower AICc is better)');
-    lines.push(...comparisonTable(survey.fits, survey.best));
+    lines.push(...comparisonTable(survey.fits, survey.best, units));
     for (const sentence of survey.comparison) lines.push(...wrap(sentence, 2));
     lines.push('');
   }
 
   if (survey.spec?.applied === false) lines.push(...wrap(`Spec check: NOT MADE — ${survey.spec.reason ?? ''}`, 0, 2), '');
   if (survey.verdict) lines.push(...verdictLines(survey.verdict, survey.spec ?? null), '');
-  if (survey.thresholds.length > 0) lines.push(...thresholdLines(survey.thresholds), '');
+  if (survey.thresholds.length > 0) lines.push(...thresholdLines(survey.thresholds, units), '');
 
   // The survey's and the best model's warnings in full; the other models' are counted
   // here and listed in full in --json and the HTML report (a terminal report stays readable).
@@ -96,11 +101,14 @@ function renderSurvey(survey: SurveyReport): string {
   return lines.join('\n');
 }
 
-/** Value and interval formatted in one display unit chosen from the value. */
-export function formatEstimate(estimate: ParameterEstimate): { value: string; interval: string } {
+/**
+ * Value and interval formatted in one display unit: the survey's for fields and lengths
+ * (surveyUnits), else one chosen from the largest of the value and its interval's ends.
+ */
+export function formatEstimate(estimate: ParameterEstimate, units: SurveyUnitChoice = surveyUnits(null)): { value: string; interval: string } {
   const kind = parameterQuantityKind(estimate.unit);
   const reference = Math.max(Math.abs(estimate.value), Math.abs(estimate.ci95?.[0] ?? 0), Math.abs(estimate.ci95?.[1] ?? 0));
-  const unit = kind ? displayUnit(reference === 0 ? estimate.value : reference, kind) : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
+  const unit = kind ? units.unit(kind, reference === 0 ? estimate.value : reference) : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
   const show = (x: number) => `${formatNumber(x / unit.factor, 4)}${unit.symbol ? ' ' + unit.symbol : ''}`;
   let interval: string;
   if (estimate.fixed) interval = 'fixed';
@@ -110,9 +118,9 @@ export function formatEstimate(estimate: ParameterEstimate): { value: string; in
   return { value: show(estimate.value), interval };
 }
 
-function parameterTable(fit: FitResult): string[] {
+function parameterTable(fit: FitResult, units: SurveyUnitChoice): string[] {
   const rows = Object.values(fit.params).map((estimate) => {
-    const { value, interval } = formatEstimate(estimate);
+    const { value, interval } = formatEstimate(estimate, units);
     return [estimate.name, value, interval];
   });
   // The far-field moment is what every physical fit determines, even when its parts are not (DOMAIN.md §7.6).
@@ -131,13 +139,13 @@ function formatWeight(weight: number | null): string {
   return weight > 0 && weight < 0.001 ? '<0.001' : formatNumber(weight, 3);
 }
 
-function comparisonTable(fits: readonly FitResult[], best: string | null): string[] {
+function comparisonTable(fits: readonly FitResult[], best: string | null, units: SurveyUnitChoice): string[] {
   const finiteAicc = fits.filter((f) => f.converged && Number.isFinite(f.stats.aicc)).map((f) => f.stats.aicc);
   const minimum = finiteAicc.length > 0 ? Math.min(...finiteAicc) : NaN;
   const rows = fits.map((fit) => [
     (fit.model === best ? '* ' : '  ') + fit.model,
     String(fit.stats.k),
-    formatQuantity(fit.stats.rmse, 'field', { significant: 3 }),
+    units.format(fit.stats.rmse, 'field', { significant: 3 }),
     fit.stats.reducedChiSquare === null ? '—' : formatNumber(fit.stats.reducedChiSquare, 3),
     !fit.converged ? 'did not converge' : Number.isFinite(fit.stats.aicc) ? formatNumber(fit.stats.aicc - minimum, 3) : 'too few readings',
     formatWeight(fit.stats.akaikeWeight),
@@ -155,12 +163,14 @@ function verdictLines(verdict: Verdict, spec: SpecUse | null): string[] {
   return lines;
 }
 
-function thresholdLines(thresholds: readonly ThresholdResult[]): string[] {
+function thresholdLines(thresholds: readonly ThresholdResult[], units: SurveyUnitChoice): string[] {
+  const length = units.unit('length', 1, millimetres);
+  const show = (value: number) => formatNumber(value / length.factor, 3);
   const rows = thresholds.map((t) => {
-    const level = formatQuantity(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` (${t.level.label})` : '');
-    const distance = t.distance ? formatQuantity(t.distance.value, 'length', { significant: 3, unit: { symbol: 'mm', factor: 1e-3 } }) : '—';
-    const interval = t.distance?.ci95 ? `${formatNumber(t.distance.ci95[0] * 1e3, 3)} to ${formatNumber(t.distance.ci95[1] * 1e3, 3)} mm` : '—';
-    const naive = t.naive?.distance ? `${formatNumber(t.naive.distance.value * 1e3, 3)} mm (${t.naive.model})` : '—';
+    const level = units.format(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` (${t.level.label})` : '');
+    const distance = t.distance ? `${show(t.distance.value)} ${length.symbol}` : '—';
+    const interval = t.distance?.ci95 ? `${show(t.distance.ci95[0])} to ${show(t.distance.ci95[1])} ${length.symbol}` : '—';
+    const naive = t.naive?.distance ? `${show(t.naive.distance.value)} ${length.symbol} (${t.naive.model})` : '—';
     return [level, `${distance}${t.extrapolated ? ' (extrapolated)' : ''}`, interval, naive];
   });
   const lines = ['Where the field falls below a level (on axis, from the distance datum)'];

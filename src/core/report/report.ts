@@ -1,6 +1,6 @@
 import type { FitResult } from '../fit/fit-result';
 import type { ModelId } from '../models/field-model';
-import type { ReadingType, RejectedRow } from '../survey/survey';
+import type { ReadingType, RejectedRow, SurveyUnits } from '../survey/survey';
 import type { SetAsideRow } from './set-aside-rows';
 import type { RunRecord } from './run-record';
 
@@ -14,6 +14,11 @@ export interface SurveyReport {
   readonly coil: string | null;
   readonly date: string | null;
   readonly readingType: ReadingType | null;
+  /**
+   * The units the survey's file was written in; human-facing views show its fields and
+   * lengths in them (surveyUnits). Absent when not known: views choose units from the values.
+   */
+  readonly units?: SurveyUnits;
   readonly readings: { readonly total: number; readonly used: number; readonly rejected: readonly RejectedRow[] };
   readonly fits: readonly FitResult[];
   /** Best model by AICc among converged fits, or null if none converged. */

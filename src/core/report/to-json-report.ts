@@ -35,6 +35,7 @@ function surveyToJson(survey: SurveyReport, report: Report): JsonSurvey {
     coil: survey.coil,
     date: survey.date,
     readingType: survey.readingType,
+    ...(survey.units ? { units: { field: survey.units.field, distance: survey.units.distance } } : {}),
     readings: {
       total: survey.readings.total,
       used: survey.readings.used,

@@ -47,6 +47,18 @@ export interface RejectedRow {
   readonly code?: string;
 }
 
+/**
+ * The units a survey's columns were written in (from the header, an option or a hand
+ * mapping), as people write them: the reports show the survey's numbers in these units.
+ * Values inside stay SI; this only says how to show them.
+ */
+export interface SurveyUnits {
+  /** Unit of the field columns: 'T', 'mT', 'µT', 'nT', 'kG', 'G' or 'mG' (micro as µ). */
+  readonly field: string;
+  /** Unit of the distance column: 'm', 'cm', 'mm', 'µm' or 'in'. */
+  readonly distance: string;
+}
+
 export interface Survey {
   /** File name (or "pasted text", "sample: …"). */
   readonly source: string;
@@ -72,4 +84,6 @@ export interface Survey {
    * position on that ruler (parameter `centre`) in place of the probe offset.
    */
   readonly axis?: 'distance' | 'position';
+  /** Units the file's columns were in; absent for surveys not read from a file (synthetic ones): reports then choose units from the values. */
+  readonly units?: SurveyUnits;
 }

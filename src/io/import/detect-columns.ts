@@ -1,5 +1,6 @@
 import type { RingfallError } from '../../core/errors';
-import type { FieldKind } from '../../core/survey/survey';
+import type { FieldKind, SurveyUnits } from '../../core/survey/survey';
+import { displaySymbol } from '../../core/units';
 import { applyMapping } from './apply-mapping';
 import { distanceColumnAxis, exampleNames } from './header-names';
 import { importError, place } from './import-errors';
@@ -40,6 +41,8 @@ export interface ColumnLayout {
   readonly coil: number | null;
   readonly date: number | null;
   readonly reading: number | null;
+  /** The units the distance and field columns were written in, as people write them (µ for micro). */
+  readonly units: SurveyUnits;
 }
 
 export interface ColumnDetectionResult {
@@ -158,17 +161,20 @@ function buildLayout(columns: readonly ColumnDetection[], factors: readonly numb
   const index = (role: ColumnRole): number | null => columns.find((c) => c.role === role)?.index ?? null;
   const [x, y, z] = [numeric('bx'), numeric('by'), numeric('bz')];
   const components = fieldKind === 'components' && x && y && z ? ([x, y, z] as const) : null;
+  const field = components ? null : numeric('field') ?? numeric('magnitude') ?? numeric('bz');
+  const unitOf = (column: NumericColumn | null | undefined) => displaySymbol(columns[column?.index ?? -1]?.unit ?? '');
   return {
     width: columns.length,
     fieldKind,
     distance: numeric('distance') as NumericColumn,
     distanceAxis: distanceColumnAxis(columns.find((c) => c.role === 'distance')?.header ?? ''),
     radial: numeric('radial'),
-    field: components ? null : numeric('field') ?? numeric('magnitude') ?? numeric('bz'),
+    field,
     components,
     uncertainty: numeric('uncertainty'),
     coil: index('coil'),
     date: index('date'),
     reading: index('reading'),
+    units: { field: unitOf(field ?? components?.[0]), distance: unitOf(numeric('distance')) },
   };
 }

@@ -1,5 +1,5 @@
-import type { FieldKind, ReadingType, Reading, Survey } from '../../core/survey/survey';
-import { formatQuantity } from '../../core/units';
+import type { FieldKind, ReadingType, Reading, Survey, SurveyUnits } from '../../core/survey/survey';
+import { surveyUnits } from '../../core/units';
 import type { SurveyGroup } from './survey-collector';
 
 /**
@@ -15,7 +15,7 @@ import type { SurveyGroup } from './survey-collector';
 export function finishSurvey(
   group: SurveyGroup,
   otherReadingTypes: readonly (ReadingType | null)[],
-  context: { readonly source: string; readonly fieldKind: FieldKind; readonly distanceAxis?: 'distance' | 'position' | 'scan'; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[] },
+  context: { readonly source: string; readonly fieldKind: FieldKind; readonly distanceAxis?: 'distance' | 'position' | 'scan'; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
 ): Survey {
   const notes: string[] = [];
   let readings: Reading[] = group.readings;
@@ -31,7 +31,7 @@ export function finishSurvey(
     if (largest.field < 0 && sum < 0) {
       readings = readings.map((reading) => ({ ...reading, field: -reading.field }));
       notes.push(
-        `probe read reversed: the largest reading (${formatQuantity(largest.field, 'field')}, line ${largest.line}) and the sum of the readings are negative, ` +
+        `probe read reversed: the largest reading (${surveyUnits(context).format(largest.field, 'field')}, line ${largest.line}) and the sum of the readings are negative, ` +
           `so every sign was flipped (${negatives} of ${readings.length} readings were negative)`,
       );
     } else if (negatives > 0) {
@@ -62,5 +62,6 @@ export function finishSurvey(
     meta: context.meta,
     notes,
     ...(scan ? { axis: 'position' as const } : {}),
+    ...(context.units ? { units: context.units } : {}),
   };
 }

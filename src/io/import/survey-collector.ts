@@ -1,4 +1,4 @@
-import type { FieldKind, ReadingType, Reading, RejectedRow, Survey } from '../../core/survey/survey';
+import type { FieldKind, ReadingType, Reading, RejectedRow, Survey, SurveyUnits } from '../../core/survey/survey';
 import { finishSurvey } from './finish-survey';
 import { MIN_USABLE_READINGS, type ImportCounts, type SkippedSurvey } from './import-types';
 
@@ -31,6 +31,7 @@ export class SurveyCollector {
       readonly distanceAxis?: 'distance' | 'position' | 'scan';
       readonly meta: Readonly<Record<string, string>>;
       readonly fileNotes: readonly string[];
+      readonly units?: SurveyUnits;
     },
   ) {}
 

@@ -1,5 +1,5 @@
 import type { ChartConfiguration } from 'chart.js';
-import { displayUnit } from '../../core/units';
+import { surveyUnits, type SurveyUnitChoice } from '../../core/units';
 
 /**
  * A chart as plain data: a Chart.js configuration that is pure JSON (no callbacks, so
@@ -30,14 +30,17 @@ export interface DisplayUnit {
   readonly factor: number;
 }
 
-/** Field display unit chosen from the largest reading, e.g. mT for readings of a few mT. */
-export function fieldUnitFor(largestField: number): DisplayUnit {
-  return displayUnit(largestField > 0 ? largestField : 1e-3, 'field');
+/**
+ * Field axis unit: the survey's own (surveyUnits), else chosen from the largest reading,
+ * e.g. mT for readings of a few mT.
+ */
+export function fieldUnitFor(largestField: number, units: SurveyUnitChoice = surveyUnits(null)): DisplayUnit {
+  return units.unit('field', largestField > 0 ? largestField : 1e-3);
 }
 
-/** Distances are shown in mm up to 2 m, beyond that in m. */
-export function distanceUnitFor(largestDistance: number): DisplayUnit {
-  return largestDistance > 2 ? { symbol: 'm', factor: 1 } : { symbol: 'mm', factor: 1e-3 };
+/** Distance axis unit: the survey's own (surveyUnits), else mm up to 2 m and m beyond. */
+export function distanceUnitFor(largestDistance: number, units: SurveyUnitChoice = surveyUnits(null)): DisplayUnit {
+  return units.unit('length', largestDistance, largestDistance > 2 ? { symbol: 'm', factor: 1 } : { symbol: 'mm', factor: 1e-3 });
 }
 
 /** Indices 0..n−1 thinned evenly to at most `limit` (all when n ≤ limit); display only. */

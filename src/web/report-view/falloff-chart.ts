@@ -1,7 +1,7 @@
 import type { ChartDataset } from 'chart.js';
 import { confidenceBand, fittedCurve, logSpacedDistances } from '../../core/report/curves';
 import type { SurveyReport } from '../../core/report/report';
-import { formatQuantity } from '../../core/units';
+import { surveyUnits } from '../../core/units';
 import {
   baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
@@ -31,8 +31,9 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   if (positive.length === 0) return null;
   const notes: string[] = [];
 
-  const field = fieldUnitFor(largest(positive.map((p) => p.field)));
-  const length = distanceUnitFor(largest(positive.map(at)));
+  const units = surveyUnits(survey);
+  const field = fieldUnitFor(largest(positive.map((p) => p.field)), units);
+  const length = distanceUnitFor(largest(positive.map(at)), units);
   let xMin = smallest(positive.map(at));
   let xMax = largest(positive.map(at));
   for (const t of survey.thresholds) {
@@ -73,7 +74,7 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const skipped = readings.length - positive.length;
   if (skipped > 0) notes.push(`${skipped} reading(s) at zero distance or with a field ≤ 0 cannot sit on log axes; the residuals chart shows them.`);
   if (frame.model !== null && frame.offset !== 0) {
-    notes.push(`Distances run from the datum to the sensing point: the ruler distance plus the ${frame.model} fit's probe offset (${formatQuantity(frame.offset, 'length', { significant: 3, unit: { symbol: 'mm', factor: 1e-3 } })}), the same datum as the threshold distances.`);
+    notes.push(`Distances run from the datum to the sensing point: the ruler distance plus the ${frame.model} fit's probe offset (${units.format(frame.offset, 'length', { significant: 3, fallback: { symbol: 'mm', factor: 1e-3 } })}), the same datum as the threshold distances.`);
   }
 
   const distances = logSpacedDistances(xMin, xMax, curveSamples);
@@ -105,7 +106,7 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   survey.thresholds.forEach((t, index) => {
     const level = Y(t.level.value);
     if (level === null) return;
-    const name = formatQuantity(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` ${t.level.label}` : '');
+    const name = units.format(t.level.value, 'field', { significant: 3 }) + (t.level.label ? ` ${t.level.label}` : '');
     datasets.push({ label: `level ${name}`, data: [{ x: X(xMin), y: level }, { x: X(xMax), y: level }], showLine: true, pointRadius: 0, borderColor: palette.threshold, borderWidth: 1, borderDash: [2, 3], order: 4 });
     if (t.distance && t.distance.value > 0) {
       datasets.push({ label: `${t.model} reaches ${name}`, data: [{ x: X(t.distance.value), y: Y(yMin) }, { x: X(t.distance.value), y: level }], showLine: true, pointRadius: [0, 4], pointStyle: 'rectRot', borderColor: palette.threshold, backgroundColor: palette.threshold, borderWidth: 1.5, order: 4 });

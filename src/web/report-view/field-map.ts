@@ -2,7 +2,7 @@ import { contours } from 'd3-contour';
 import type { FitResult } from '../../core/fit/fit-result';
 import { fieldMapGrid, probeOffset } from '../../core/report/curves';
 import type { SurveyReport } from '../../core/report/report';
-import { formatQuantity } from '../../core/units';
+import { surveyUnits } from '../../core/units';
 import { distanceUnitFor, fieldUnitFor } from './chart-spec';
 import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
@@ -85,19 +85,20 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
     const shape = generator.contour(logValues, level);
     parts.push(`<path d="${pathOf(shape.coordinates)}" fill="${fieldRamp((i + 1) / bands)}" stroke="none"/>`);
   });
-  const length = distanceUnitFor(maxDistance);
-  const fieldUnit = fieldUnitFor(10 ** top);
+  const units = surveyUnits(survey);
+  const length = distanceUnitFor(maxDistance, units);
+  const fieldUnit = fieldUnitFor(10 ** top, units);
   for (const t of survey.thresholds) {
     if (!(t.level.value > 0)) continue;
     const shape = generator.contour(logValues, Math.log10(t.level.value));
     if (shape.coordinates.length === 0) {
-      notes.push(`The ${formatQuantity(t.level.value, 'field', { significant: 3 })} contour lies outside the mapped area.`);
+      notes.push(`The ${units.format(t.level.value, 'field', { significant: 3 })} contour lies outside the mapped area.`);
       continue;
     }
     parts.push(`<path d="${pathOf(shape.coordinates)}" fill="none" stroke="${palette.threshold}" stroke-width="2"/>`);
     const onAxis = t.model === fit.model && t.distance && t.distance.value <= maxDistance ? t.distance.value : null;
     if (onAxis !== null) {
-      const label = escapeHtml(formatQuantity(t.level.value, 'field', { significant: 3 }));
+      const label = escapeHtml(units.format(t.level.value, 'field', { significant: 3 }));
       parts.push(`<circle cx="${x(onAxis).toFixed(1)}" cy="${y(0).toFixed(1)}" r="3.5" fill="${palette.threshold}"/>`);
       parts.push(`<text x="${(x(onAxis) + 5).toFixed(1)}" y="${(y(0) - 6).toFixed(1)}" font-size="11" font-weight="600" fill="${palette.ink}" stroke="#ffffff" stroke-width="3" paint-order="stroke">${label}</text>`);
     }

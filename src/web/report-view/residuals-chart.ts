@@ -1,6 +1,7 @@
 import type { ChartDataset } from 'chart.js';
 import type { FitResult } from '../../core/fit/fit-result';
 import type { SurveyReport } from '../../core/report/report';
+import { surveyUnits } from '../../core/units';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
 import { oneTwoFiveLabels } from './figure';
 import { niceCeiling, niceLogBound } from './nice-ticks';
@@ -22,7 +23,7 @@ export function residualsChart(survey: SurveyReport, lookup: ModelLookup): Chart
   if (powerLaw && powerLaw.model !== best.model) fits.push(powerLaw);
   const notes: string[] = [];
   const offset = chartFrame(survey, lookup).offset;
-  const length = distanceUnitFor(largest(best.points.map((p) => p.distance + offset)));
+  const length = distanceUnitFor(largest(best.points.map((p) => p.distance + offset)), surveyUnits(survey));
   const logAxis = best.points.every((p) => p.distance + offset > 0);
   const stated = best.points.some((p) => p.standardUncertainty !== null && p.standardUncertainty > 0);
   const datasets: ChartDataset<'scatter', { x: number; y: number }[]>[] = [];

@@ -1,5 +1,5 @@
 import type { SpecCheck, SpecUse, ThresholdResult, Verdict } from '../../core/report/report';
-import { formatNumber, formatQuantity } from '../../core/units';
+import { formatNumber, formatQuantity, surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../../core/units';
 import { html, type SafeHtml } from './html';
 
 const statusWords: Readonly<Record<SpecCheck['status'], string>> = {
@@ -17,7 +17,8 @@ export function specNotMadeSection(spec: SpecUse): SafeHtml {
  * The spec verdict: status in words, which spec and model it used and the decision rule,
  * findings, each check with its evidence sentence.
  */
-export function verdictSection(verdict: Verdict, spec: SpecUse | null = null): SafeHtml {
+export function verdictSection(verdict: Verdict, spec: SpecUse | null = null, units: SurveyUnitChoice = surveyUnits(null)): SafeHtml {
+  const shown = (value: number, unit: string) => quantity(value, unit, units);
   const basis = [
     spec?.applied === true ? `Checked against ${spec.source}` : null,
     verdict.model ? `with the ${verdict.model} model` : null,
@@ -28,22 +29,25 @@ ${verdict.rule ? html`<p class="rf-sub rf-verdict-rule">Rule: ${verdict.rule}</p
 ${verdict.findings.length > 0 ? html`<p class="rf-findings">Findings: ${verdict.findings.map((f, i) => html`${i > 0 ? ', ' : ''}<strong>${f}</strong>`)}</p>` : ''}
 ${verdict.explanations.map((sentence) => html`<p>${sentence}</p>`)}
 ${verdict.checks.length > 0 ? html`<table class="rf-table rf-checks"><thead><tr><th scope="col">check</th><th scope="col">result</th><th scope="col">expected</th><th scope="col">measured (95% interval)</th></tr></thead>
-${verdict.checks.map((check) => html`<tbody class="rf-check"><tr><th scope="row">${check.what}</th><td><span class="${`rf-status rf-status-${check.status}`}">${check.status}</span></td><td class="rf-num">${quantity(check.expected.value, check.expected.unit)}${tolerance(check)}</td><td class="rf-num">${quantity(check.measured.value, check.measured.unit)}${check.measured.ci95 ? html`<br><span class="rf-sub">${quantity(check.measured.ci95[0], check.measured.unit)} to ${quantity(check.measured.ci95[1], check.measured.unit)}</span>` : ''}</td></tr>
+${verdict.checks.map((check) => html`<tbody class="rf-check"><tr><th scope="row">${check.what}</th><td><span class="${`rf-status rf-status-${check.status}`}">${check.status}</span></td><td class="rf-num">${shown(check.expected.value, check.expected.unit)}${tolerance(check, shown)}</td><td class="rf-num">${shown(check.measured.value, check.measured.unit)}${check.measured.ci95 ? html`<br><span class="rf-sub">${shown(check.measured.ci95[0], check.measured.unit)} to ${shown(check.measured.ci95[1], check.measured.unit)}</span>` : ''}</td></tr>
 <tr class="rf-evidence"><td colspan="4">${check.evidence}</td></tr></tbody>`)}</table>` : ''}
 </section>`;
 }
 
-function tolerance(check: SpecCheck): string {
+function tolerance(check: SpecCheck, quantity: (value: number, unit: string) => string): string {
   const parts: string[] = [];
   if (check.tolerance.relative > 0) parts.push(`${formatNumber(check.tolerance.relative * 100, 3)}%`);
   if (check.tolerance.absolute > 0) parts.push(quantity(check.tolerance.absolute, check.expected.unit));
   return parts.length > 0 ? ` ± ${parts.join(' + ')}` : '';
 }
 
-/** An SI value in a sensible display unit when its unit is T or m; as given otherwise. */
-export function quantity(value: number, unit: string): string {
-  if (unit === 'T') return formatQuantity(value, 'field', { significant: 4 });
-  if (unit === 'm') return formatQuantity(value, 'length', { significant: 4, unit: { symbol: 'mm', factor: 1e-3 } });
+/** Lengths of a survey whose units are not known are shown in mm. */
+const millimetres: DisplayUnit = { symbol: 'mm', factor: 1e-3 };
+
+/** An SI value of T or m in the survey's unit (surveyUnits; mm for a length when not known), A in a sensible unit; as given otherwise. */
+export function quantity(value: number, unit: string, units: SurveyUnitChoice = surveyUnits(null)): string {
+  if (unit === 'T') return units.format(value, 'field', { significant: 4 });
+  if (unit === 'm') return units.format(value, 'length', { significant: 4, fallback: millimetres });
   if (unit === 'A') return formatQuantity(value, 'current', { significant: 4 });
   return `${formatNumber(value, 4)}${unit && unit !== '1' ? ' ' + unit : ''}`;
 }
@@ -53,8 +57,8 @@ export function quantity(value: number, unit: string): string {
  * interval, beside what inverse-square and the fitted power law would say and their
  * ratios to it; extrapolations are marked; then the notes and the level's source.
  */
-export function thresholdSection(thresholds: readonly ThresholdResult[]): SafeHtml {
-  const mm = (value: number) => quantity(value, 'm');
+export function thresholdSection(thresholds: readonly ThresholdResult[], units: SurveyUnitChoice = surveyUnits(null)): SafeHtml {
+  const mm = (value: number) => quantity(value, 'm', units);
   const beyond = html`<br><span class="rf-flag">beyond the surveyed range</span>`;
   const naiveCell = (distance: { value: number } | null | undefined, ratio: number | null | undefined, extrapolated: boolean | undefined, label: string) =>
     distance ? html`${mm(distance.value)} ${label}${ratio !== null && ratio !== undefined ? html`<br><span class="rf-sub">${formatNumber(ratio, 3)}× the model's</span>` : ''}${extrapolated ? beyond : ''}` : '—';
@@ -66,7 +70,7 @@ export function thresholdSection(thresholds: readonly ThresholdResult[]): SafeHt
     const naive = t.naive;
     const power = t.powerLaw ?? null;
     const naiveRatio = naive?.ratio ?? (distance && naive?.distance && distance.value > 0 ? naive.distance.value / distance.value : null);
-    return html`<tr><th scope="row">${formatQuantity(t.level.value, 'field', { significant: 3 })}${t.level.label ? html`<br><span class="rf-sub">${t.level.label}</span>` : ''}</th>
+    return html`<tr><th scope="row">${units.format(t.level.value, 'field', { significant: 3 })}${t.level.label ? html`<br><span class="rf-sub">${t.level.label}</span>` : ''}</th>
 <td class="rf-num">${t.model}: ${distance ? mm(distance.value) : 'not reached'}${distance?.ci95 ? html`<br><span class="rf-sub">${mm(distance.ci95[0])} to ${mm(distance.ci95[1])}${t.intervalMethod === 'monte-carlo' ? ' (Monte Carlo)' : ''}</span>` : ''}${t.extrapolated ? beyond : ''}</td>
 <td class="rf-num">${naiveCell(naive?.distance, naiveRatio, naive?.extrapolated, '')}</td>
 <td class="rf-num">${power ? naiveCell(power.distance, power.ratio, power.extrapolated, `(n = ${formatNumber(power.exponent, 3)})`) : '—'}</td></tr>`;

@@ -92,6 +92,16 @@ describe('fleetHistory()', () => {
     expect(fleetHistory(swapped.slice(0, 2)).coils[0]!.flags).not.toContain('geometry-changed');
   });
 
+  it('fleetHistory() writes a geometry change in inches when both surveys were logged in inches, in mm when they differ', () => {
+    const inches = { field: 'G', distance: 'in' } as const;
+    const swapped = [{ ...loopSurvey('FL-8', '2024-01-10', 100, 0.0508), units: inches }, { ...loopSurvey('FL-8', '2025-01-10', 100, 0.0381), units: inches }];
+    // 1 in = 25.4 mm exactly (international yard and pound agreement, 1959): 50.8 mm = 2.00 in, 38.1 mm = 1.50 in
+    const sentence = fleetHistory(swapped).coils[0]!.explanations.find((e) => e.startsWith('geometry-changed'))!;
+    expect(sentence).toMatch(/^geometry-changed: radius 2\.00 in \([0-9.]+–[0-9.]+\) on 2024-01-10 but 1\.50 in \([0-9.]+–[0-9.]+\) on 2025-01-10 \(difference -0\.500 in,/);
+    const mixed = [swapped[0]!, { ...swapped[1]!, units: { field: 'mT', distance: 'mm' } }];
+    expect(fleetHistory(mixed).coils[0]!.explanations.find((e) => e.startsWith('geometry-changed'))).toMatch(/radius 50\.8 mm .* but 38\.1 mm/);
+  });
+
   it('fleetHistory() flags "failed-spec" from the latest survey\'s verdict', () => {
     const failed: Verdict = { status: 'fail', findings: ['degraded'], checks: [], explanations: [] };
     const coil = fleetHistory([loopSurvey('FL-9', '2024-05-01', 100, 0.045), loopSurvey('FL-9', '2025-05-01', 99, 0.045, failed)]).coils[0]!;

@@ -1,5 +1,6 @@
 import type { FitResult } from '../../fit/fit-result';
 import type { FleetSummary, Verdict } from '../../report/report';
+import type { SurveyUnits } from '../../survey/survey';
 import type { RelativePlusAbsolute } from '../../units';
 import type { Spec } from '../spec/spec';
 import { coilHistory } from './coil-history';
@@ -12,6 +13,8 @@ export interface FleetSurvey {
   readonly date: string | null;
   readonly fits: readonly FitResult[];
   readonly verdict: Verdict | null;
+  /** The units the survey's file was written in, when known (SurveyReport.units). */
+  readonly units?: SurveyUnits;
 }
 
 /** Options of the fleet history. */

@@ -1,7 +1,7 @@
 import type { FitResult } from '../../fit/fit-result';
 import { studentTQuantile } from '../../stats';
-import type { RelativePlusAbsolute } from '../../units';
-import { describeValue, parameterWords } from '../describe-value';
+import { surveyUnits, type RelativePlusAbsolute } from '../../units';
+import { parameterWords, valueWords } from '../describe-value';
 import { parameterRole } from '../parameter-roles';
 import type { Spec } from '../spec/spec';
 import type { FleetSurvey } from './fleet-history';
@@ -13,7 +13,8 @@ import type { FleetSurvey } from './fleet-history';
  * (a conservative choice for two estimates with unequal variances) — and larger than the
  * tolerance (the spec's for that parameter, else the default relative to the earlier
  * value). A coil's windings do not change size, so such a jump means a different
- * (swapped or mislabeled) unit or a changed set-up (DOMAIN.md §5).
+ * (swapped or mislabeled) unit or a changed set-up (DOMAIN.md §5). Lengths are written
+ * in the distance unit both surveys' files were written in, else in one chosen from the value.
  */
 export function geometryChanges(
   surveys: readonly FleetSurvey[],
@@ -43,9 +44,11 @@ export function geometryChanges(
     const tolerance = spec?.params.find((p) => p.name === name)?.tolerance ?? defaultTolerance;
     const allowed = tolerance.relative * Math.abs(x.value) + tolerance.absolute;
     if (Math.abs(difference) > margin && Math.abs(difference) > allowed) {
+      const shared = surveys[a]!.units?.distance === surveys[b]!.units?.distance ? surveys[b]! : null;
+      const written = valueWords(surveyUnits(shared)).value;
       sentences.push(
-        `geometry-changed: ${parameterWords(name)} ${describeValue(x.value, 'length', x.ci95)} on ${label(surveys[a]!)} but ${describeValue(y.value, 'length', y.ci95)} on ${label(surveys[b]!)} ` +
-          `(difference ${describeValue(difference, 'length')}, beyond both the statistical margin ±${describeValue(margin, 'length')} and the tolerance ±${describeValue(allowed, 'length')}): a swapped or mislabeled unit, or a changed set-up.`,
+        `geometry-changed: ${parameterWords(name)} ${written(x.value, 'length', x.ci95)} on ${label(surveys[a]!)} but ${written(y.value, 'length', y.ci95)} on ${label(surveys[b]!)} ` +
+          `(difference ${written(difference, 'length')}, beyond both the statistical margin ±${written(margin, 'length')} and the tolerance ±${written(allowed, 'length')}): a swapped or mislabeled unit, or a changed set-up.`,
       );
     }
   }

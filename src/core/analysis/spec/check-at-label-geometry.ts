@@ -2,7 +2,7 @@ import type { FitResult } from '../../fit/fit-result';
 import { parameterQuantityKind } from '../../models';
 import type { SpecCheck } from '../../report/report';
 import { decideConformity } from '../decide-conformity';
-import { describeTolerance, describeValue, parameterWords } from '../describe-value';
+import { parameterWords, valueWords, type ValueWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
 import type { CheckOutcome } from './check-parameter';
@@ -40,7 +40,7 @@ export const atLabelGeometry = 'ampereTurns at label geometry';
  * @param outcomes the label-parameter checks already made (to see what was undetermined)
  */
 export function checkAtLabelGeometry(
-  spec: Spec, fitted: FittedModel, outcomes: readonly CheckOutcome[], relation: ReadingRelation, refit: Refit,
+  spec: Spec, fitted: FittedModel, outcomes: readonly CheckOutcome[], relation: ReadingRelation, refit: Refit, shown: ValueWords = valueWords(),
 ): CheckOutcome | { readonly unavailable: string } | null {
   const amplitude = spec.params.find((p) => parameterRole(p.name) === 'amplitude');
   const amplitudeOutcome = outcomes.find((o) => o.check.what === amplitude?.name);
@@ -56,7 +56,7 @@ export function checkAtLabelGeometry(
   if (geometry.length === 0) return null;
   const held = Object.fromEntries(geometry.map((g) => [g.name, g.value]));
   const heldText = (values: Readonly<Record<string, number>>) =>
-    geometry.map((g) => `${parameterWords(g.name)} ${describeValue(values[g.name]!, parameterQuantityKind(model.parameters.find((p) => p.name === g.name)!.unit))}`).join(', ');
+    geometry.map((g) => `${parameterWords(g.name)} ${shown.value(values[g.name]!, parameterQuantityKind(model.parameters.find((p) => p.name === g.name)!.unit))}`).join(', ');
   const unavailable = (values: Readonly<Record<string, number>>, why: string) => ({
     unavailable: `The check of ${parameterWords(amplitude.name)} at the label's geometry was not made: the ${model.id} fit with ${heldText(values)} held ${why}. ` +
       'Add readings within about one radius so the geometry is fitted rather than assumed, or check the label\'s dimensions and their tolerances.',
@@ -84,9 +84,9 @@ export function checkAtLabelGeometry(
   const side = value < amplitude.value ? 'low' : 'high';
   const kind = parameterQuantityKind('A');
   const geometryText = heldText(held);
-  const zone = `${describeValue(decision.lower, kind)} to ${describeValue(decision.upper, kind)}`;
-  const measured = `with the label's geometry held (${geometryText}), ${parameterWords(amplitude.name)} ${describeValue(value, kind, ci95)} vs ${describeTolerance(amplitude.value, kind, amplitude.tolerance)} on the label, ` +
-    `widened by ±${describeValue(stack * factor, kind)} for the geometry's own tolerance`;
+  const zone = `${shown.value(decision.lower, kind)} to ${shown.value(decision.upper, kind)}`;
+  const measured = `with the label's geometry held (${geometryText}), ${parameterWords(amplitude.name)} ${shown.value(value, kind, ci95)} vs ${shown.tolerance(amplitude.value, kind, amplitude.tolerance)} on the label, ` +
+    `widened by ±${shown.value(stack * factor, kind)} for the geometry's own tolerance`;
   const evidence = {
     pass: `${measured}: the whole interval lies within ${zone}, so the readings agree with the label as a whole.`,
     fail: `${measured}: the whole interval lies ${side === 'low' ? 'below' : 'above'} ${zone}, so the readings disagree with the label even with each dimension given its tolerance.`,

@@ -3,7 +3,7 @@ import type { SpecCheck } from '../../report/report';
 import { formatNumber } from '../../units';
 import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { decideConformity } from '../decide-conformity';
-import { describeTolerance, describeValue } from '../describe-value';
+import { describeValue, valueWords, type ValueWords } from '../describe-value';
 import { beyondSurvey, deltaVariance, probeOffsetOf, surveyedFieldRange, type FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
 import type { CheckOutcome } from './check-parameter';
@@ -27,7 +27,7 @@ import type { SpecClaim } from './spec';
  *
  * @param naive converged descriptive fits of the same survey (inverse-square, power-law)
  */
-export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[], labelValues: Float64Array | null): CheckOutcome {
+export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: ReadingRelation, naive: readonly FittedModel[], labelValues: Float64Array | null, shown: ValueWords = valueWords()): CheckOutcome {
   const model = fitted.point.model;
   const fromSurface = claim.datum === 'surface' || !model.physical;
   const values = fromSurface ? backgroundFree(fitted) : coilOnlyValues(model, fitted.values);
@@ -48,6 +48,7 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
     const otherValue = fitted === other ? null : other.point.field(backgroundFree(other), reading, claim.radial) * factor;
     return otherValue === null || !Number.isFinite(otherValue) ? [] : [{ model: other.fit.model, value: otherValue, unit: 'T' as const }];
   });
+  // the check's name follows the spec's words, whatever units the survey was written in
   const where = `field at ${describeValue(claim.distance, 'length')} from the ${claim.datum}${claim.radial > 0 ? `, ${describeValue(claim.radial, 'length')} off axis` : ''}`;
   // The label's own coil at the claimed point: a claim it reproduces is the label's physics, not an extrapolation.
   const labelField = labelValues === null ? null : fitted.point.field(labelValues, fieldPoint, claim.radial);
@@ -55,12 +56,12 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
   const labelConsistent = labelField !== null && Math.abs(labelField - claim.field) <= labelZone;
   const base = { what: where, kind: 'claim' as const, datum: claim.datum, expected: { value: claim.field, unit: 'T' }, measured: { value, unit: 'T', ci95 }, tolerance: claim.tolerance, alternatives };
   const side = value < claim.field ? 'low' : 'high';
-  const claimText = describeTolerance(claim.field, 'field', claim.tolerance);
-  const others = alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${describeValue(a.value, 'field')}`);
-  if (labelField !== null) others.unshift(`the label's own coil ${describeValue(labelField, 'field')}`);
+  const claimText = shown.tolerance(claim.field, 'field', claim.tolerance);
+  const others = alternatives.map((a) => `${a.model}${a.model === 'power-law' ? exponentOf(naive, a.model) : ''} ${shown.value(a.value, 'field')}`);
+  if (labelField !== null) others.unshift(`the label's own coil ${shown.value(labelField, 'field')}`);
   const sideBySide = others.length === 0 ? '' : `; ${others.join(', ')}`;
   const extrapolated = beyondSurvey(fieldPoint, surveyedFieldRange(fitted, offset)) ? ' (outside the surveyed distances: the model extrapolates)' : '';
-  const measuredText = `${describeValue(value, 'field', ci95)} from the ${model.id} fit${extrapolated} vs ${claimText} claimed${sideBySide}`;
+  const measuredText = `${shown.value(value, 'field', ci95)} from the ${model.id} fit${extrapolated} vs ${claimText} claimed${sideBySide}`;
   if (!relation.comparable) {
     return { check: { ...base, status: 'inconclusive', evidence: `${measuredText}.`, toDecide: relation.note ?? '' }, role: 'claim', side, blocked: 'reading-type', matchesNaive: null };
   }
@@ -73,7 +74,7 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
   if (decision.status !== 'inconclusive') return { check, role: 'claim', side, blocked: null, matchesNaive: matches };
   const toDecide = decision.shrinkFactor === 0
     ? 'The estimate sits on the tolerance limit; no amount of readings can move it off.'
-    : decidingMeasurement(fitted, { gradient, neededHalfWidth: half! * decision.shrinkFactor!, words: `the ${where} interval`, kind: 'field' });
+    : decidingMeasurement(fitted, { gradient, neededHalfWidth: half! * decision.shrinkFactor!, words: `the ${where} interval`, kind: 'field' }, shown);
   return { check: { ...check, toDecide }, role: 'claim', side, blocked: null, matchesNaive: matches };
 }
 

@@ -2,7 +2,7 @@ import type { ModelId } from '../../models/field-model';
 import type { SpecCheck } from '../../report/report';
 import { decideConformity } from '../decide-conformity';
 import { parameterQuantityKind } from '../../models';
-import { describeTolerance, describeValue, parameterWords } from '../describe-value';
+import { parameterWords, valueWords, type ValueWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
 import { parameterRole, type ParameterRole } from '../parameter-roles';
 import { decidingMeasurement } from './deciding-measurement';
@@ -28,7 +28,7 @@ export interface CheckOutcome {
  * cannot be related, is inconclusive with the reason; an inconclusive interval gets the
  * measurement that would decide it.
  */
-export function checkParameter(fitted: FittedModel, label: SpecParameter, relation: ReadingRelation): CheckOutcome {
+export function checkParameter(fitted: FittedModel, label: SpecParameter, relation: ReadingRelation, shown: ValueWords = valueWords()): CheckOutcome {
   const index = fitted.point.model.parameters.findIndex((p) => p.name === label.name);
   const spec = fitted.point.model.parameters[index]!;
   const estimate = fitted.fit.params[label.name]!;
@@ -47,26 +47,26 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
     measured: { value, unit: spec.unit, ci95 },
     tolerance: label.tolerance,
   };
-  const labelText = describeTolerance(label.value, kind, label.tolerance);
+  const labelText = shown.tolerance(label.value, kind, label.tolerance);
   const inconclusive = (evidence: string, toDecide: string, blocked: CheckOutcome['blocked']): CheckOutcome => ({
     check: { ...base, status: 'inconclusive', evidence, toDecide }, role, side, blocked,
   });
   if (scaled && !relation.comparable) {
-    return inconclusive(`${words} ${describeValue(value, kind, ci95)} is in the survey's reading type, the label's ${labelText} in another.`, relation.note ?? '', 'reading-type');
+    return inconclusive(`${words} ${shown.value(value, kind, ci95)} is in the survey's reading type, the label's ${labelText} in another.`, relation.note ?? '', 'reading-type');
   }
   if (estimate.fixed) {
-    return inconclusive(`${words} was held fixed at ${describeValue(value, kind)} in the fit, so the survey does not test the label's ${labelText}.`, `Fit ${label.name} freely (drop --fix ${label.name}).`, 'fixed');
+    return inconclusive(`${words} was held fixed at ${shown.value(value, kind)} in the fit, so the survey does not test the label's ${labelText}.`, `Fit ${label.name} freely (drop --fix ${label.name}).`, 'fixed');
   }
   if (!estimate.determined || ci95 === null) {
     return inconclusive(
-      `these readings do not determine ${words} (fit ${describeValue(value, kind)}); the label says ${labelText}.`,
+      `these readings do not determine ${words} (fit ${shown.value(value, kind)}); the label says ${labelText}.`,
       'Add readings where the curve changes shape — closer than about the coil\'s size; far-field readings fix only the moment N·I·area — or fix the parameters the label states (--fix NAME=…) so that the rest are determined.',
       'undetermined',
     );
   }
   const decision = decideConformity(value, ci95, label.value, label.tolerance);
-  const zone = `${describeValue(decision.lower, kind)} to ${describeValue(decision.upper, kind)}`;
-  const measuredText = `${words} ${describeValue(value, kind, ci95)} vs ${labelText} on the label`;
+  const zone = `${shown.value(decision.lower, kind)} to ${shown.value(decision.upper, kind)}`;
+  const measuredText = `${words} ${shown.value(value, kind, ci95)} vs ${labelText} on the label`;
   const verdicts = {
     pass: `${measuredText}: the whole interval lies within ${zone}.`,
     fail: `${measuredText}: the whole interval lies ${side === 'low' ? 'below' : 'above'} the tolerance zone ${zone}.`,
@@ -79,7 +79,7 @@ export function checkParameter(fitted: FittedModel, label: SpecParameter, relati
   const currentHalf = Math.max(value - ci95[0], ci95[1] - value);
   const toDecide = decision.shrinkFactor === 0
     ? `The estimate sits on the tolerance limit; no amount of readings can move it off.`
-    : decidingMeasurement(fitted, { gradient, neededHalfWidth: currentHalf * decision.shrinkFactor!, words: `the ${words} interval`, kind }) +
+    : decidingMeasurement(fitted, { gradient, neededHalfWidth: currentHalf * decision.shrinkFactor!, words: `the ${words} interval`, kind }, shown) +
       (role === 'geometry' ? ' Geometry is best pinned by readings near z ≈ R, where the curve bends.' : '');
   return { check: { ...check, toDecide }, role, side, blocked: null };
 }

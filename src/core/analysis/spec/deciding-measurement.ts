@@ -1,5 +1,5 @@
 import type { QuantityKind } from '../../units';
-import { describeValue } from '../describe-value';
+import { valueWords, type ValueWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
 import { noiseFromFit } from '../noise-from-fit';
 import { sensitivityRows } from '../plan/design-problem';
@@ -26,7 +26,7 @@ const candidateCount = 80;
  * from memory), at on-axis distances from 0 to 1.5× the farthest reading, each as
  * precise as the survey's own readings (noiseFromFit). Stops at 4× the survey's size.
  */
-export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget): string {
+export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget, shown: ValueWords = valueWords()): string {
   const k = fitted.freeIndex.length;
   const coverage = fitted.coverageFactor;
   if (fitted.covariance === null || coverage === null || k === 0) return 'Free the parameters in the fit so that it reports intervals.';
@@ -65,18 +65,18 @@ export function decidingMeasurement(fitted: FittedModel, target: DecisionTarget)
     chosen.push(best);
   }
   const reached = halfWidth();
-  const needed = `±${describeValue(target.neededHalfWidth, target.kind)}`;
+  const needed = `±${shown.value(target.neededHalfWidth, target.kind)}`;
   if (reached > target.neededHalfWidth) {
-    return `Even ${chosen.length} more readings as precise as these would only shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} needed): reduce the reading uncertainty — a positioning jig near the steep part of the curve, a better meter — rather than add points.`;
+    return `Even ${chosen.length} more readings as precise as these would only shrink ${target.words} to ±${shown.value(reached, target.kind)} (${needed} needed): reduce the reading uncertainty — a positioning jig near the steep part of the curve, a better meter — rather than add points.`;
   }
   // Where most of them go: the middle half of the chosen distances.
   const distances = chosen.map((c) => candidates[c]!.distance).sort((a, b) => a - b);
   const low = distances[Math.floor((distances.length - 1) / 4)]!;
   const high = distances[Math.ceil((3 * (distances.length - 1)) / 4)]!;
   const where = high - low <= 0.1 * high
-    ? `near ${describeValue((low + high) / 2, 'length', null, 2)}`
-    : `${distances.length >= 4 ? 'mostly ' : ''}between ${describeValue(low, 'length', null, 2)} and ${describeValue(high, 'length', null, 2)}`;
-  return `About ${chosen.length} more on-axis reading${chosen.length === 1 ? '' : 's'} ${where}, as precise as these, would shrink ${target.words} to ±${describeValue(reached, target.kind)} (${needed} decides it).`;
+    ? `near ${shown.value((low + high) / 2, 'length', null, 2)}`
+    : `${distances.length >= 4 ? 'mostly ' : ''}between ${shown.value(low, 'length', null, 2)} and ${shown.value(high, 'length', null, 2)}`;
+  return `About ${chosen.length} more on-axis reading${chosen.length === 1 ? '' : 's'} ${where}, as precise as these, would shrink ${target.words} to ±${shown.value(reached, target.kind)} (${needed} decides it).`;
 }
 
 function quadratic(matrix: Float64Array, x: ArrayLike<number>, y: ArrayLike<number>, k: number): number {

@@ -1,5 +1,5 @@
 import { parameterQuantityKind, type ParameterUnit } from '../../models';
-import { describeValue, parameterWords } from '../describe-value';
+import { parameterWords, valueWords, type ValueWords } from '../describe-value';
 import type { CheckOutcome } from './check-parameter';
 
 /** Findings (CONTRACT.md verdict.findings) with one sentence of evidence each. */
@@ -20,7 +20,7 @@ export interface SpecFindings {
  * reproduces (not the label's own coil) is also **power-law-extrapolation**; values not comparable across detector types give
  * **reading-type-mismatch**.
  */
-export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
+export function specFindings(outcomes: readonly CheckOutcome[], shown: ValueWords = valueWords()): SpecFindings {
   const findings: string[] = [];
   const explanations: string[] = [];
   const params = outcomes.filter((o) => o.check.kind === 'parameter');
@@ -30,25 +30,25 @@ export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
   const failedAmplitude = amplitude.filter((o) => o.check.status === 'fail');
   if (failedGeometry.length > 0) {
     findings.push('mislabeled');
-    const amplitudeNote = failedAmplitude.length > 0 ? `; the ${failedAmplitude.map((o) => against(o)).join(', ')} may follow from the different geometry` : '';
-    explanations.push(`${failedGeometry.map(against).join('; ')} → the curve's shape differs from the labeled geometry: a different, swapped or mislabeled coil${amplitudeNote}.`);
+    const amplitudeNote = failedAmplitude.length > 0 ? `; the ${failedAmplitude.map((o) => against(o, shown)).join(', ')} may follow from the different geometry` : '';
+    explanations.push(`${failedGeometry.map((o) => against(o, shown)).join('; ')} → the curve's shape differs from the labeled geometry: a different, swapped or mislabeled coil${amplitudeNote}.`);
   } else if (failedAmplitude.length > 0) {
     const low = failedAmplitude.every((o) => o.side === 'low');
     const asLabeled = geometry.length > 0 && geometry.every((o) => o.check.status === 'pass');
     const shape = geometry.length === 0
       ? 'no geometry on the label to compare the shape with'
-      : geometry.map((o) => (o.check.status === 'pass' ? `${words(o)} ${measured(o)} as labeled` : `${words(o)} ${measured(o).replace(/ \(.*\)$/, '')} not decided`)).join('; ');
+      : geometry.map((o) => (o.check.status === 'pass' ? `${words(o)} ${measured(o, shown)} as labeled` : `${words(o)} ${measured(o, shown).replace(/ \(.*\)$/, '')} not decided`)).join('; ');
     if (asLabeled) {
       findings.push(low ? 'degraded' : 'amplitude-high');
       explanations.push(
-        `${failedAmplitude.map(against).join('; ')}; ${shape} → ` +
+        `${failedAmplitude.map((o) => against(o, shown)).join('; ')}; ${shape} → ` +
           (low
             ? 'amplitude loss: shorted turns or lower drive current (a wrong turn count or current on the label looks the same; measure the coil current to tell).'
             : 'more ampere-turns than labeled: a higher drive current or more turns than stated.'),
       );
     } else {
       findings.push(low ? 'amplitude-low' : 'amplitude-high');
-      explanations.push(`${failedAmplitude.map(against).join('; ')}; ${shape} → the amplitude is ${low ? 'low' : 'high'}, but without the geometry confirmed a ${low ? 'smaller' : 'larger'} coil is not ruled out: add readings within about one radius to tell degraded from mislabeled.`);
+      explanations.push(`${failedAmplitude.map((o) => against(o, shown)).join('; ')}; ${shape} → the amplitude is ${low ? 'low' : 'high'}, but without the geometry confirmed a ${low ? 'smaller' : 'larger'} coil is not ruled out: add readings within about one radius to tell degraded from mislabeled.`);
     }
   }
   const moment = outcomes.find((o) => o.role === 'moment' && o.check.status === 'fail');
@@ -60,7 +60,7 @@ export function specFindings(outcomes: readonly CheckOutcome[]): SpecFindings {
   if (claims.some((o) => o.check.status === 'fail')) findings.push('claim-not-met');
   for (const claim of claims.filter((o) => o.matchesNaive && o.check.status !== 'pass')) {
     if (!findings.includes('power-law-extrapolation')) findings.push('power-law-extrapolation');
-    explanations.push(`The claimed ${describeValue(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${describeValue(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law.`);
+    explanations.push(`The claimed ${shown.value(claim.check.expected.value, 'field')} (${claim.check.what}) matches the fitted ${claim.matchesNaive} curve, not the coil's physics (${shown.value(claim.check.measured.value, 'field')}): the datasheet figure was probably extrapolated with a power law.`);
   }
   if (outcomes.some((o) => o.blocked === 'reading-type')) findings.push('reading-type-mismatch');
   for (const outcome of outcomes) {
@@ -73,10 +73,10 @@ function words(outcome: CheckOutcome): string {
   return parameterWords(outcome.check.what);
 }
 
-function measured(outcome: CheckOutcome): string {
-  return describeValue(outcome.check.measured.value, parameterQuantityKind(outcome.check.measured.unit as ParameterUnit), outcome.check.measured.ci95);
+function measured(outcome: CheckOutcome, shown: ValueWords): string {
+  return shown.value(outcome.check.measured.value, parameterQuantityKind(outcome.check.measured.unit as ParameterUnit), outcome.check.measured.ci95);
 }
 
-function against(outcome: CheckOutcome): string {
-  return `${words(outcome)} ${measured(outcome)} vs ${describeValue(outcome.check.expected.value, parameterQuantityKind(outcome.check.expected.unit as ParameterUnit))} on the label`;
+function against(outcome: CheckOutcome, shown: ValueWords): string {
+  return `${words(outcome)} ${measured(outcome, shown)} vs ${shown.value(outcome.check.expected.value, parameterQuantityKind(outcome.check.expected.unit as ParameterUnit))} on the label`;
 }

@@ -5,6 +5,7 @@ import type { ReadingType } from '../../survey/survey';
 import { convergedFit } from '../best-fit';
 import { decisionRule } from '../decide-conformity';
 import { coilOnlyValues } from '../coil-only-values';
+import { valueWords, type ValueWords } from '../describe-value';
 import { fittedModel, type FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
 import { checkAtLabelGeometry, type Refit } from './check-at-label-geometry';
@@ -30,8 +31,10 @@ import { specFindings } from './spec-findings';
  * @param fits every fit of the survey; the spec's model must be among them
  * @param readingType the survey's detector type
  * @param refit fits the spec's model again with parameters held (analyseSurvey passes one)
+ * @param shown how the sentences write values: valueWords(surveyUnits(survey)) for the
+ *   survey's own units (analyseSurvey passes it); units chosen from the values when absent
  */
-export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: ReadingType | null, refit?: Refit): Verdict {
+export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: ReadingType | null, refit?: Refit, shown: ValueWords = valueWords()): Verdict {
   const fit = convergedFit(fits, spec.model);
   if (fit === null) {
     const tried = fits.some((f) => f.model === spec.model);
@@ -46,8 +49,8 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
   }
   const fitted = fittedModel(fit, getModel(spec.model));
   const relation = readingRelation(spec.readingType, readingType, spec.crestFactor);
-  const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation));
-  const atLabel = refit ? checkAtLabelGeometry(spec, fitted, outcomes, relation, refit) : null;
+  const outcomes: CheckOutcome[] = spec.params.map((label) => checkParameter(fitted, label, relation, shown));
+  const atLabel = refit ? checkAtLabelGeometry(spec, fitted, outcomes, relation, refit, shown) : null;
   if (atLabel && 'check' in atLabel) {
     // the undetermined ampere-turns check no longer needs to suggest holding the label's values: that check was just made
     const index = outcomes.findIndex((o) => o.blocked === 'undetermined' && o.role === 'amplitude');
@@ -66,8 +69,8 @@ export function verifySpec(spec: Spec, fits: readonly FitResult[], readingType: 
     const other = convergedFit(fits, id);
     return other && other !== fit ? [fittedModel(other, getModel(id))] : [];
   });
-  outcomes.push(...spec.claims.map((claim) => checkClaim(fitted, claim, relation, naive, labelCoil(fitted, spec))));
-  const { findings, explanations } = specFindings(outcomes);
+  outcomes.push(...spec.claims.map((claim) => checkClaim(fitted, claim, relation, naive, labelCoil(fitted, spec), shown)));
+  const { findings, explanations } = specFindings(outcomes, shown);
   const statuses = outcomes.map((o) => o.check.status);
   const status: CheckStatus = statuses.includes('fail') ? 'fail' : statuses.every((s) => s === 'pass') ? 'pass' : 'inconclusive';
   const notes = relation.note && relation.comparable ? [relation.note] : [];

@@ -1,8 +1,8 @@
 import type { FitResult } from '../../fit/fit-result';
 import { getModel, nearFaceModels } from '../../models';
 import type { ThresholdResult } from '../../report/report';
-import type { ReadingType } from '../../survey/survey';
-import { formatQuantity } from '../../units';
+import type { ReadingType, SurveyUnits } from '../../survey/survey';
+import { surveyUnits } from '../../units';
 import { bestPhysicalFit, convergedFit } from '../best-fit';
 import { beyondSurvey, fittedModel, probeOffsetOf, surveyedFieldRange, type FittedModel } from '../fitted-model';
 import { parameterRole } from '../parameter-roles';
@@ -15,6 +15,8 @@ import type { ThresholdLevel } from './threshold-level';
 export interface ThresholdContext extends ThresholdIntervalOptions {
   /** Detector type of the survey's readings (null when not stated). */
   readonly readingType: ReadingType | null;
+  /** The units the survey's file was written in; the notes write fields and lengths in them (surveyUnits). */
+  readonly units?: SurveyUnits;
 }
 
 /**
@@ -52,6 +54,7 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
   const range = surveyedFieldRange(fitted, probeOffsetOf(fitted));
   const scale = lengthScale(fitted, range);
   const beyond = (z: number | null) => beyondSurvey(z, range);
+  const units = surveyUnits(context);
   return levels.map((level) => {
     const estimate = thresholdInterval(fitted, level.value, scale, context);
     const naive = naiveDistance(convergedFit(fits, 'inverse-square'), level.value, offset, scale);
@@ -59,8 +62,8 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     const powerDistance = naiveDistance(power, level.value, offset, scale);
     const ratio = (z: number | null) => (z !== null && estimate.distance ? z / estimate.distance : null);
     const notes = [...commonNotes(fitted, physical !== null), ...(scan ? [scanNote] : []), ...estimate.notes, ...readingTypeNotes(level, context.readingType), ...level.notes];
-    if (estimate.distance === null) notes.unshift(`The fitted ${chosen.model} field stays below ${formatQuantity(level.value, 'field')} everywhere on the axis beyond the datum.`);
-    if (beyond(estimate.distance) && range) notes.push(`Extrapolated: the survey reaches ${formatQuantity(range[1], 'length')} from the datum; this distance rests on the model, not on readings.`);
+    if (estimate.distance === null) notes.unshift(`The fitted ${chosen.model} field stays below ${units.format(level.value, 'field')} everywhere on the axis beyond the datum.`);
+    if (beyond(estimate.distance) && range) notes.push(`Extrapolated: the survey reaches ${units.format(range[1], 'length')} from the datum; this distance rests on the model, not on readings.`);
     if (level.flag) notes.push(`Level source: ${level.flag}.`);
     return {
       level: { ...levelOf(level) },
