@@ -30,8 +30,9 @@ const cache = new WeakMap<FieldModel, FieldModel>();
  * near-face model (its ∂/∂length includes the datum shift, removed here); the rest as is.
  *
  * Initial guess: the centre at the middle of the positions where |B| is at least half its
- * largest value (the peak of a symmetric profile, robust to a flat top), then the model's
- * own start on the readings folded to |p − centre|.
+ * largest value (the peak of a symmetric profile, robust to a flat top; moved a quarter of
+ * the reading spacing off a reading it falls on), then the model's own start on the
+ * readings folded to |p − centre|.
  *
  * @returns the same object for the same model (cached); the model itself when it
  *   has no probe offset.
@@ -67,7 +68,7 @@ export function scanModel(base: FieldModel): FieldModel {
       base.evaluate(innerParams(params), foldedPoints(params, points), out);
     },
     initialGuess(points: SurveyPoints): Float64Array {
-      const centre = peakCentre(points);
+      const centre = offReadings(peakCentre(points), points);
       const at = new Float64Array(k);
       at[offsetIndex] = centre;
       const start = base.initialGuess(foldedPoints(at, points));
@@ -98,6 +99,20 @@ export function scanModel(base: FieldModel): FieldModel {
   }
   cache.set(base, model);
   return model;
+}
+
+/**
+ * `centre` moved off any reading it coincides with (within 1e-9 of the span), by a quarter
+ * of the smallest gap between distinct positions: a dipole or power law is infinite at its
+ * centre, so a start there could not be evaluated.
+ */
+function offReadings(centre: number, points: SurveyPoints): number {
+  const sorted = Float64Array.from(points.distance).sort();
+  const span = sorted.length > 0 ? sorted[sorted.length - 1]! - sorted[0]! : 0;
+  if (!sorted.some((p) => Math.abs(p - centre) <= 1e-9 * span)) return centre;
+  let gap = Infinity;
+  for (let i = 1; i < sorted.length; i++) if (sorted[i]! > sorted[i - 1]!) gap = Math.min(gap, sorted[i]! - sorted[i - 1]!);
+  return Number.isFinite(gap) ? centre + 0.25 * gap : centre;
 }
 
 /**
