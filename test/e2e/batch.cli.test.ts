@@ -139,8 +139,12 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
       expect(index).toContain(`href="${page}"`);
       const html = readFileSync(join(out, page), 'utf8');
       expect(html).toContain("default-src 'none'");
-      expect(html).not.toMatch(/<script[^>]+src=|<link[^>]+href="http/);
+      // the one script a page loads is the folder's shared copy of Chart.js, by a relative path
+      expect([...html.matchAll(/<script[^>]+src="([^"]*)"/g)].map((m) => m[1])).toEqual(['ringfall-charts.js']);
+      expect(html).not.toMatch(/<link[^>]+href="http/);
     }
+    // Chart.js once for the folder, not once per page (the banner of node_modules/chart.js/dist/chart.umd.js)
+    expect(readFileSync(join(out, 'ringfall-charts.js'), 'utf8')).toContain('Chart.js v4.6.1');
     // the skip list's line is on the index too, so the page says what was left out
     expect(index).toContain('3 files left out: sample-data/.ringfall-skip lists flawed/ as not surveys');
   });

@@ -72,16 +72,7 @@ export class FleetCollector {
   }
 
   private fleetSurvey(survey: SurveyReport): FleetSurvey {
-    // what the history reads of a fit (coil-history.ts, geometry-changes.ts, best-fit.ts): model,
-    // convergence, n, k and AICc, and the amplitude and geometry estimates; nothing else is kept
-    const fits = survey.fits
-      .filter((fit) => this.specModels.has(fit.model) || getModel(fit.model).physical)
-      .map((fit) => ({
-        model: fit.model,
-        converged: fit.converged,
-        params: Object.fromEntries(Object.entries(fit.params).filter(([name]) => ['amplitude', 'geometry'].includes(parameterRole(name)))),
-        stats: { n: fit.stats.n, k: fit.stats.k, aicc: fit.stats.aicc },
-      }) as unknown as FitResult);
+    const fits = survey.fits.filter((fit) => this.specModels.has(fit.model) || getModel(fit.model).physical).map(historyFit);
     const verdict = survey.verdict === null ? null : { status: survey.verdict.status, findings: survey.verdict.findings, checks: [], explanations: [] };
     return { source: survey.source, coil: survey.coil, date: survey.date, fits, verdict };
   }
@@ -96,8 +87,22 @@ function withoutPoints(survey: SurveyReport): SurveyReport {
   return {
     ...survey,
     readings: { ...survey.readings, rejected: [] },
-    fits: survey.fits.map((fit) => ({ ...fit, points: [], covariance: null, correlation: null, warnings: [] })),
+    fits: survey.fits.map(historyFit),
     comparison: [], notes: [], cautions: [],
     verdict: survey.verdict === null ? null : { ...survey.verdict, checks: [] },
   };
+}
+
+/**
+ * What the history and the summary rows read of a fit (coil-history.ts, geometry-changes.ts,
+ * best-fit.ts, summary-fit.ts, fleet-rows.ts): model, convergence, n, k and AICc, and the
+ * amplitude and geometry estimates; nothing else is kept.
+ */
+function historyFit(fit: FitResult): FitResult {
+  return {
+    model: fit.model,
+    converged: fit.converged,
+    params: Object.fromEntries(Object.entries(fit.params).filter(([name]) => ['amplitude', 'geometry'].includes(parameterRole(name)))),
+    stats: { n: fit.stats.n, k: fit.stats.k, aicc: fit.stats.aicc },
+  } as unknown as FitResult;
 }

@@ -32,6 +32,13 @@ export interface WorkerPoolRun {
   stop(): Promise<void>;
 }
 
+/**
+ * Old-generation heap of a worker, MB: V8 otherwise lets a long-lived worker's heap grow
+ * far past what it holds (measured: a third of batch's RSS growth over 10,000 files); a
+ * survey of 10^5 readings fitted with every model stays well inside it.
+ */
+const workerHeapMb = 256;
+
 /** Chunks kept in flight per worker, so a worker never waits for the next message. */
 const inFlightPerWorker = 2;
 
@@ -68,7 +75,7 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
 
   const limitMs = options.fileTimeLimit === undefined ? null : options.fileTimeLimit * 1000;
   const start = () => {
-    const worker = new Worker(options.entry, { workerData: options.workerData });
+    const worker = new Worker(options.entry, { workerData: options.workerData, resourceLimits: { maxOldGenerationSizeMb: workerHeapMb } });
     const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
     let ready = false;
     // the chunk the worker is on (the oldest in flight) and since when, once the worker has loaded

@@ -9,10 +9,14 @@ import { unwritable } from './out-folder-lock';
 import { yieldToEvents, type StopSignals } from '../stop-signals';
 import { writeFileAtomic } from '../write-file-atomic';
 
+/** The one copy of Chart.js in an `--out` folder, loaded by every page by this relative path (so still offline). */
+export const chartLibraryFile = 'ringfall-charts.js';
+
 /**
- * `batch --out DIR`: one self-contained HTML report per coil (its surveys, its history in
+ * `batch --out DIR`: one HTML report per coil (its surveys, its history in
  * the fleet section; the web page's report view, renderReportDocument), one per survey
- * without a coil id, and index.html linking them — the pages first, the index last, each
+ * without a coil id, and index.html linking them; the pages load the folder's one copy of
+ * Chart.js (ringfall-charts.js, written first), still offline. The pages come first, the index last, each
  * file under a temporary name renamed into place when whole (writeFileAtomic): a run that
  * fails part-way (a full disk) leaves no truncated file and no link to a page that is not
  * there. A stop request (SIGINT, SIGTERM) between pages ends the pages early; the index
@@ -31,7 +35,6 @@ export async function writeHtmlReports(
 ): Promise<string[]> {
   const rows = fleetRows(report);
   const names = pageNames(rows.map((row) => row.coil ?? row.latest.source.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '')));
-  const chartLibrary = chartLibrarySource();
   const written: string[] = [];
   const write = (name: string, text: string) => {
     const path = join(folder, name);
@@ -42,6 +45,9 @@ export async function writeHtmlReports(
     }
     written.push(path);
   };
+  // one copy of Chart.js for every page (a fleet's pages would otherwise each carry it)
+  write(chartLibraryFile, chartLibrarySource());
+  const chartLibrary = { file: chartLibraryFile };
   const pages: (string | null)[] = rows.map(() => null);
   for (const [i, row] of rows.entries()) {
     await yieldToEvents();

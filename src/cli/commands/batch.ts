@@ -1,3 +1,4 @@
+import { once } from 'node:events';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -106,7 +107,11 @@ export function registerBatch(program: Command, context: CommandContext): void {
           if (flags.json === true) {
             // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }));
-            for (const survey of spool!.all()) stream.survey(survey);
+            for (const survey of spool!.all()) {
+              stream.survey(survey);
+              // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
+              if (process.stdout.writableNeedDrain) await once(process.stdout, 'drain');
+            }
             stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
@@ -114,7 +119,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
           if (flags.out !== undefined) {
             let pageUncoiled = 0;
             const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool!.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
-            process.stderr.write(`ringfall batch: wrote ${written.length} HTML files to ${flags.out} (open ${written[0]})\n`);
+            process.stderr.write(`ringfall batch: wrote ${written.filter((path) => path.endsWith('.html')).length} HTML pages and one copy of Chart.js to ${flags.out} (open ${written[0]})\n`);
           }
           const stoppedBy = signal ?? stop.signal;
           if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));

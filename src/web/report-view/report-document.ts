@@ -28,8 +28,12 @@ ${report.run ? renderRunSection(report.run) : ''}
 
 /** Options of a self-contained report file. */
 export interface ReportDocumentOptions {
-  /** Chart.js UMD bundle source (chart.umd.js), inlined so the file needs no network. */
-  readonly chartLibrary: string;
+  /**
+   * Chart.js UMD bundle source (chart.umd.js), inlined so the file needs no network; or
+   * `{ file }`, one copy beside the page loaded by that relative path (`batch --out` shares
+   * one among its pages; still offline).
+   */
+  readonly chartLibrary: string | { readonly file: string };
   /** Page title; default "ringfall report". */
   readonly title?: string;
   /** One line under the title, e.g. "made by ringfall 0.1.0 from 3 files". */
@@ -40,18 +44,23 @@ export interface ReportDocumentOptions {
 
 /**
  * One self-contained HTML file with the same view as the web page: inline CSS, the
- * Chart.js bundle and chart data inline, the field map as inline SVG, and a Content
+ * Chart.js bundle (or a link to one copy beside the page) and chart data inline, the field map as inline SVG, and a Content
  * Security Policy that forbids every outside request. Opens offline from disk and
  * prints to PDF cleanly. Text from survey files is escaped.
  */
 export function renderReportDocument(report: Report, options: ReportDocumentOptions): string {
   const title = options.title ?? 'ringfall report';
+  const shared = typeof options.chartLibrary !== 'string';
   // "</script" inside the library would end the element early; "<\/" means the same in JS.
-  const library = options.chartLibrary.replace(/<\/(script)/gi, '<\\/$1');
-  const page: SafeHtml = html`${documentHead("default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:", title, 820)}<body>
+  const library = typeof options.chartLibrary === 'string'
+    ? html`<script>${trusted(options.chartLibrary.replace(/<\/(script)/gi, '<\\/$1'))}</script>`
+    : html`<script src="${options.chartLibrary.file}"></script>`;
+  // 'self' lets a page load the shared library beside it, and nothing from elsewhere
+  const csp = `default-src 'none'; style-src 'unsafe-inline'; script-src ${shared ? "'self' " : ''}'unsafe-inline'; img-src data:`;
+  const page: SafeHtml = html`${documentHead(csp, title, 820)}<body>
 <header class="rf-report rf-doc-head"><h1>${title}</h1>${options.subtitle ? html`<p>${options.subtitle}</p>` : ''}</header>
 ${renderReportBody(report, options.lookup ?? catalogLookup)}
-<script>${trusted(library)}</script>
+${library}
 <script>${trusted(drawChartsSource)}
 window.addEventListener('beforeprint', function () { document.querySelectorAll('details').forEach(function (d) { d.open = true; }); });</script>
 </body>
