@@ -7,8 +7,8 @@ import { catalogReading } from './catalog-reading';
 import { buildSpecFiles } from './build-spec-files';
 import { gaussianSource, noisyReading, display, type NoiseModel } from './noisy-reading';
 import {
-  applicatorDistancesMm, applicatorProbeOffset, benchBackground, benchName, fleetAmpereTurns,
-  fleetDates, fleetDistancesMm, fleetRadius, handheldMeter, inventedNote, labMeter,
+  applicatorDistancesMm, applicatorProbeOffset, benchBackground, benchName, calibrationPair, calibrationPairCentre, fleetAmpereTurns,
+  fleetDates, fleetDistancesMm, fleetRadius, handheldMeter, inventedNote, labMeter, pairScanPositionsMm,
 } from './scenario';
 
 /** What TRUTH.json says about one survey: model, parameters (SI), noise and seed. */
@@ -147,10 +147,23 @@ export function buildSampleData(): { files: Map<string, string>; truth: TruthEnt
     params: {}, surveys: fleetSurveys,
   });
 
+  // 8. The calibration coil pair QH-70 scanned along its axis on a rail, through both coils:
+  // signed positions from the rail's ruler zero, which is 23.1 mm from the pair's midpoint.
+  const pairParams = { ...calibrationPair, centre: calibrationPairCentre, background: benchBackground };
+  const pairReading = catalogReading('coil-pair', pairParams, 'axial');
+  const pairGaussian = gaussianSource(1107);
+  const pairRows = pairScanPositionsMm.map((mm) => `${mm},${display(noisyReading(pairReading, mm / 1000, labMeter, pairGaussian), 1e-3, 5)}`);
+  files.set('qh-70-2026-03-05-pair-scan.csv', [...metadata('QH-70', '2026-03-05', 'dc', 'lab teslameter axial probe on a rail through both coils; ruler zero at the rail\'s end stop, not the midpoint'),
+    'position (mm),B (mT)', ...pairRows].join('\n') + '\n');
+  truth.push({
+    file: 'qh-70-2026-03-05-pair-scan.csv', story: 'calibration coil pair at Helmholtz spacing, scanned through both coils: signed positions, midpoint 23.1 mm from the ruler zero',
+    coil: 'QH-70', date: '2026-03-05', readingType: 'dc', model: 'coil-pair', seed: 1107, noise: labMeter, params: pairParams,
+  });
+
   for (const [path, text] of buildSpecFiles()) files.set(path, text);
   const flawed = buildFlawedFiles(healthy, metadata('QA-107', '2025-03-11', 'dc', axialProbe));
   for (const [path, text] of flawed.files) files.set(path, text);
   truth.push(...flawed.truth);
-  files.set('TRUTH.json', `${JSON.stringify({ note: inventedNote, units: 'SI: A, m, T; probeOffset and background as DESIGN.md defines them', surveys: truth }, null, 2)}\n`);
+  files.set('TRUTH.json', `${JSON.stringify({ note: inventedNote, units: 'SI: A, m, T; probeOffset, centre and background as DESIGN.md defines them', surveys: truth }, null, 2)}\n`);
   return { files, truth };
 }

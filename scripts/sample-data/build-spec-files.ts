@@ -5,7 +5,7 @@
  * does, probe offset included), rounded to two digits as a datasheet prints them. QA-214 carries the QA applicator label although it was wound on
  * a larger former; that disagreement is the point of its sample.
  */
-import { applicatorLabel, applicatorProbeOffset } from './scenario';
+import { applicatorLabel, applicatorProbeOffset, calibrationPair } from './scenario';
 import { catalogReading } from './catalog-reading';
 
 /** A claim as a datasheet prints it: two significant digits, in mT. */
@@ -39,6 +39,12 @@ export function buildSpecFiles(): Map<string, string> {
       coil: 'QT-9', model: 'thick-coil',
       params: { ampereTurns: '1500 A', innerRadius: '20 mm', outerRadius: '40 mm', length: '30 mm' }, tolerance: '5%',
       claims: [0, 50].map((mm) => claim(mm, thick(mm / 1000), '10%')), readingType: 'dc',
+    },
+    {
+      // the calibration pair's datasheet: its coils, no field claims (its scan is checked by its parameters)
+      coil: 'QH-70', model: 'coil-pair',
+      params: { ampereTurns: `${calibrationPair.ampereTurns} A`, radius: `${calibrationPair.radius * 1000} mm`, separation: `${calibrationPair.separation * 1000} mm` },
+      tolerance: '3%', readingType: 'dc',
     },
   ];
   const files = new Map<string, string>();

@@ -47,3 +47,15 @@ export const fleetAmpereTurns: Readonly<Record<string, readonly number[]>> = {
 
 /** True radius of each fleet coil, m. */
 export const fleetRadius: Readonly<Record<string, number>> = { 'QA-107': 0.045, 'QA-330': 0.05, 'QA-412': 0.05 };
+
+/**
+ * QH-70, the bench's calibration coil pair: two 100-turn coils of 35 mm radius at
+ * Helmholtz spacing (separation = radius) on 0.5 A, ampere-turns per coil.
+ */
+export const calibrationPair = { ampereTurns: 50, radius: 0.035, separation: 0.035 };
+
+/** Where QH-70's midpoint sits on the scan rail's ruler, m: the ruler's zero is the rail's end stop, not the midpoint. */
+export const calibrationPairCentre = 0.0231;
+
+/** Ruler positions of the two-sided scan through QH-70, mm: every 5 mm from −150 to +120 (55 positions). */
+export const pairScanPositionsMm = Array.from({ length: 55 }, (_, i) => -150 + 5 * i);

@@ -3,7 +3,7 @@ import { parseThresholdLevel, type ThresholdLevel } from '../core/analysis/thres
 import { RingfallError } from '../core/errors';
 import { defaultModels, type FitSurveyOptions } from '../core/fit/fit-survey-options';
 import type { RobustLoss } from '../core/fit/robust-fit';
-import { getModel, parseParameterAssignment } from '../core/models';
+import { getModel, parseParameterAssignment, scanModel } from '../core/models';
 import type { FieldModel, ModelId } from '../core/models';
 import { lookupUnit, parseQuantity, parseRelativePlusAbsolute, unitsOfKind } from '../core/units';
 
@@ -112,7 +112,8 @@ function readFixed(texts: readonly string[], models: readonly FieldModel[]): Rec
   const fixed: Record<string, number> = {};
   for (const text of texts) {
     const name = /^\s*([A-Za-z]+)\s*=/.exec(text)?.[1];
-    const owner = name === undefined ? models[0]! : models.find((m) => m.parameters.some((p) => p.name === name));
+    // centre is the scan form's parameter (a survey of signed positions): looked up there.
+    const owner = name === undefined ? models[0]! : [...models, ...models.map(scanModel)].find((m) => m.parameters.some((p) => p.name === name));
     if (owner === undefined) {
       const valid = models.map((m) => `${m.id}: ${m.parameters.map((p) => p.name).join(', ')}`).join('; ');
       throw new RingfallError(

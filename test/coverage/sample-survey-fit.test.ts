@@ -38,3 +38,20 @@ describe('fitSurvey() on the invented sample surveys against sample-data/TRUTH.j
     }
   }
 });
+
+describe('fitSurvey() on the invented two-sided scan of the calibration coil pair against sample-data/TRUTH.json', () => {
+  it('qh-70-2026-03-05-pair-scan.csv: every reading used; the 95 % intervals of ampere-turns, radius, separation and centre contain the true values', () => {
+    const file = 'qh-70-2026-03-05-pair-scan.csv';
+    const entry = truth.find((t) => t.file === file)!;
+    const survey = importSurveys(readFileSync(join(folder, file), 'utf8'), { source: file }).surveys[0]!;
+    expect(survey.axis).toBe('position');
+    const [fit] = fitSurvey(survey, { models: ['coil-pair'], instrumentUncertainty: { relative: entry.noise.relativeSd, absolute: entry.noise.floorSd }, positionUncertainty: entry.noise.positionSd });
+    expect(fit!.stats.n).toBe(survey.totalRows);
+    for (const name of ['ampereTurns', 'radius', 'separation', 'centre']) {
+      const interval = fit!.params[name]!.ci95!;
+      // TRUTH.json, written by the generator from the stated parameters
+      expect(interval[0], name).toBeLessThanOrEqual(entry.params[name]!);
+      expect(interval[1], name).toBeGreaterThanOrEqual(entry.params[name]!);
+    }
+  });
+});

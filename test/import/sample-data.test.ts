@@ -63,6 +63,11 @@ describe('sample-data generator fields (scripts/sample-data/catalog-reading.ts)'
           expectClose(axial(d), loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z) + background, { rel: 1e-9, abs: 1e-15 }, `${entry.coil} d=${d}`);
           const off = loopOffAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, 0.03, z);
           expectClose(magnitude(d, 0.03), Math.hypot(off.axial, off.radial) + background, { rel: 1e-9, abs: 1e-15 }, `${entry.coil} d=${d} ρ=30 mm`);
+        } else if (entry.model === 'coil-pair') {
+          // a scan (params.centre): d is a signed ruler position; the two loops sit ± separation/2 about the centre
+          const x = d - 0.1 - (p['centre'] ?? NaN);
+          const pair = (z: number) => loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z - (p['separation'] ?? NaN) / 2) + loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z + (p['separation'] ?? NaN) / 2);
+          expectClose(axial(d - 0.1), pair(x) + background, { rel: 1e-9 }, `${entry.coil} position ${d - 0.1}`);
         } else if (entry.model === 'rectangle') {
           expectClose(axial(d), rectangleOnAxis(p['ampereTurns'] ?? NaN, p['width'] ?? NaN, p['height'] ?? NaN, z) + background, { rel: 1e-9 });
         } else {
@@ -104,7 +109,8 @@ describe('sample-data/ files', () => {
     return rho === 0 ? axial : Math.hypot(axial, radial);
   };
   // rows per file, counted from scripts/sample-data: healthyOrderMm (25 distances + 3 repeats of 20 mm),
-  // applicatorDistancesMm (25), the mat's 15 and the thick coil's 17 distances, the 5 × 6 grid, fleet 3 coils × 5 dates × 12
+  // applicatorDistancesMm (25), the mat's 15 and the thick coil's 17 distances, the 5 × 6 grid, fleet 3 coils × 5 dates × 12,
+  // the pair scan's 55 positions
   const cases: [file: string, predict: typeof loop, rows: number][] = [
     ['qa-107-2025-03-11-healthy.csv', loop, 28],
     ['qa-107-2026-03-10-degraded.csv', loop, 25],
@@ -113,6 +119,9 @@ describe('sample-data/ files', () => {
     ['qt-9-2026-02-03-thick.csv', (z, _rho, p) => thickCoilOnAxis(p['ampereTurns'] ?? NaN, p['innerRadius'] ?? NaN, p['outerRadius'] ?? NaN, p['length'] ?? NaN, z + (p['length'] ?? NaN) / 2), 17],
     ['qa-330-2026-03-02-offaxis-grid.csv', loop, 30],
     ['fleet-log-2025-2026.csv', loop, 180],
+    // a scan: the "distance" is the signed ruler position, probeOffset absent (0); the loops at centre ± separation/2
+    ['qh-70-2026-03-05-pair-scan.csv', (z, _rho, p) => loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z - (p['centre'] ?? NaN) - (p['separation'] ?? NaN) / 2)
+      + loopOnAxis(p['ampereTurns'] ?? NaN, p['radius'] ?? NaN, z - (p['centre'] ?? NaN) + (p['separation'] ?? NaN) / 2), 55],
   ];
   for (const [file, predict, rows] of cases) {
     it(`${file} imports whole and agrees with TRUTH.json within the stated noise`, () => {
@@ -167,12 +176,13 @@ describe('sample-data/ files', () => {
       loop: [['ampereTurns', 'A'], ['radius', 'm'], ['probeOffset', 'm'], ['background', 'T']],
       rectangle: [['ampereTurns', 'A'], ['width', 'm'], ['height', 'm'], ['probeOffset', 'm'], ['background', 'T']],
       'thick-coil': [['ampereTurns', 'A'], ['innerRadius', 'm'], ['outerRadius', 'm'], ['length', 'm'], ['probeOffset', 'm'], ['background', 'T']],
+      'coil-pair': [['ampereTurns', 'A'], ['radius', 'm'], ['separation', 'm'], ['probeOffset', 'm'], ['background', 'T']],
     };
     const catalog = (id: string) => names[id]?.map(([name, unit]) => ({ name, unit, lower: -Infinity, upper: Infinity, description: name }));
     const specPaths = [...files.keys()].filter((p) => p.endsWith('.spec.json'));
-    // six coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
-    expect(specPaths).toHaveLength(7);
+    // seven coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
+    expect(specPaths).toHaveLength(8);
     for (const path of specPaths) expect(parseSpecText(read(path), path, catalog, Object.keys(names)).length, path).toBeGreaterThan(0);
-    expect(parseSpecText(read('specs/all-coils.spec.json'), 'all', catalog, Object.keys(names)).flatMap((s) => s.coils ?? [])).toEqual(['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9']);
+    expect(parseSpecText(read('specs/all-coils.spec.json'), 'all', catalog, Object.keys(names)).flatMap((s) => s.coils ?? [])).toEqual(['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9', 'QH-70']);
   });
 });

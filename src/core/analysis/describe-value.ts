@@ -11,6 +11,7 @@ const zeroUnits: Record<QuantityKind, { symbol: string; factor: number }> = {
 const friendly: Readonly<Record<string, string>> = {
   ampereTurns: 'ampere-turns',
   probeOffset: 'probe offset',
+  centre: 'coil centre on the ruler',
   innerRadius: 'inner radius',
   outerRadius: 'outer radius',
   moment: 'moment',

@@ -17,6 +17,7 @@ const roles: Readonly<Record<string, ParameterRole>> = {
   width: 'geometry',
   height: 'geometry',
   probeOffset: 'offset',
+  centre: 'offset',
   background: 'background',
   exponent: 'exponent',
 };

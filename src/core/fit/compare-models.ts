@@ -2,6 +2,7 @@ import { getModel } from '../models';
 import type { FieldModel, ModelId } from '../models/field-model';
 import { akaikeWeights } from '../stats/akaike-weights';
 import { describePowerLaw, powerLawContext } from './describe-power-law';
+import { inDistanceForm } from './distance-form-fit';
 import type { FitResult } from './fit-result';
 import { surveyUnits, type SurveyUnitChoice } from '../units/survey-units';
 
@@ -35,8 +36,10 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
   const best = lowest(weighted);
   const physical = lowest(weighted.filter((fit) => modelOf(fit.model).physical));
   const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical);
-  const shared = laws.length > 0 ? powerLawContext(laws[0]!, physical, modelOf, units) : null;
-  const comparison = laws.map((fit) => describePowerLaw(fit, physical, modelOf, shared!));
+  // A scan's fits are described by distance from the coil (distance form), not by ruler position.
+  const coil = physical === null ? null : inDistanceForm(physical);
+  const shared = laws.length > 0 ? powerLawContext(inDistanceForm(laws[0]!), coil, modelOf, units) : null;
+  const comparison = laws.map((fit) => describePowerLaw(inDistanceForm(fit), coil, modelOf, shared!));
   return { fits: weighted, best: best?.model ?? null, comparison };
 }
 

@@ -1,5 +1,5 @@
 import { RingfallError } from '../errors';
-import { getModel, modelIds } from '../models';
+import { getModel, modelIds, scanModel } from '../models';
 import type { Survey } from '../survey/survey';
 import { withAkaikeWeights } from './compare-models';
 import type { FitResult } from './fit-result';
@@ -31,7 +31,8 @@ import { surveyPoints } from './survey-points';
 export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitResult[] {
   const ids = options.models ?? defaultModels;
   if (ids.length === 0) throw new RangeError('fitSurvey: options.models is empty; expected at least one model id');
-  const models = ids.map((id) => getModel(id));
+  // A scan (signed positions along the axis) fits the coil centre's position in place of the probe offset.
+  const models = ids.map((id) => (survey.axis === 'position' ? scanModel(getModel(id)) : getModel(id)));
   checkFixedParameters(models, options.fixed ?? {});
   const uncertainty = readingUncertainty(survey, options.instrumentUncertainty);
   const position = options.positionUncertainty ?? 0;

@@ -39,7 +39,10 @@ export function fitWarnings(input: FitWarningInput): string[] {
   const { model, solution, uncertainty, search, options } = input;
   const warnings: string[] = [];
   if (solution.stopCode === 'non-finite-start') {
-    warnings.push(`Not fitted: the model cannot be evaluated at every reading from its start${model.physical ? '' : ' (a power law needs the sensing point beyond distance 0: leave probeOffset free or drop --fix probeOffset)'}.`);
+    const scan = model.parameters.some((p) => p.name === 'centre');
+    const hint = scan ? ' (a dipole or power law is infinite at its centre: leave centre free or fix it between readings)'
+      : model.physical ? '' : ' (a power law needs the sensing point beyond distance 0: leave probeOffset free or drop --fix probeOffset)';
+    warnings.push(`Not fitted: the model cannot be evaluated at every reading from its start${hint}.`);
   } else if (!solution.converged) {
     warnings.push(`The search did not converge (${solution.stopReason.replace(/^not converged: /, '').replace(/\.$/, '')}); the values are the best found and may be far from the coil's.`);
   }

@@ -16,6 +16,7 @@ const momentFormula: Partial<Record<ModelId, string>> = {
 const remedy: Readonly<Record<string, string>> = {
   amplitude: 'a power law describes the curve over the surveyed range, not the coil',
   probeOffset: 'add readings close to the coil, or fix it (--fix probeOffset=…) from the probe\'s drawing',
+  centre: 'add readings on both sides of the coil, through its centre',
   background: 'add readings far from the coil or one with the coil switched off, or fix it (--fix background=…)',
   exponent: 'a power law\'s exponent needs readings over a wider range of distances',
 };
@@ -33,7 +34,7 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
   const warnings: string[] = [];
   const freeNames = solution.freeIndices.map((j) => model.parameters[j]!.name);
   const undetermined = freeNames.filter((name) => params[name]?.determined === false);
-  const isCoil = (name: string) => model.physical && name !== 'probeOffset' && name !== 'background';
+  const isCoil = (name: string) => model.physical && name !== 'probeOffset' && name !== 'centre' && name !== 'background';
   const coil = undetermined.filter(isCoil);
   const k = freeNames.length;
   const correlationOf = (a: string, b: string): number | null => {
@@ -102,18 +103,22 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
 function largestLength(input: FitWarningInput): { name: string; value: number } | null {
   let best: { name: string; value: number } | null = null;
   input.model.parameters.forEach((spec, j) => {
-    if (spec.unit !== 'm' || spec.name === 'probeOffset') return;
+    if (spec.unit !== 'm' || spec.name === 'probeOffset' || spec.name === 'centre') return;
     const value = Math.abs(input.solution.params[j]!);
     if (best === null || value > best.value) best = { name: spec.name, value };
   });
   return best;
 }
 
-/** Nearest field point to the coil centre, √((d + probeOffset)² + ρ²), m. */
+/** Nearest field point to the coil centre, √((d + probeOffset)² + ρ²), or √((p − centre)² + ρ²) on a scan, m. */
 function nearestFieldPoint(input: FitWarningInput): number {
   const offset = input.params['probeOffset']?.value ?? 0;
+  const centre = input.params['centre']?.value;
   let nearest = Infinity;
-  for (let i = 0; i < input.points.n; i++) nearest = Math.min(nearest, Math.hypot(input.points.distance[i]! + offset, input.points.radial[i]!));
+  for (let i = 0; i < input.points.n; i++) {
+    const axial = centre === undefined ? input.points.distance[i]! + offset : input.points.distance[i]! - centre;
+    nearest = Math.min(nearest, Math.hypot(axial, input.points.radial[i]!));
+  }
   return nearest;
 }
 

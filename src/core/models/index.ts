@@ -55,3 +55,4 @@ export function getModel(id: ModelId | string, where = '--model'): FieldModel {
 
 export { coilPairModel, dipoleModel, inverseCubeModel, inverseSquareModel, loopModel, powerLawModel, rectangleModel, solenoidModel, thickCoilModel };
 export { predictField, type FieldPrediction } from './predict-field';
+export { centreParameter, nearFaceModels, peakCentre, scanModel } from './scan-model';

@@ -62,5 +62,6 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
     warnings,
     cautions: extras.cautions ?? [],
     notes: [...survey.notes, ...(extras.notes ?? [])],
+    ...(survey.axis === 'position' ? { axis: 'position' as const } : {}),
   };
 }

@@ -103,6 +103,12 @@ export interface JsonSurvey {
   readonly comparison: readonly string[];
   /** The model summaries read the coil from and why (summaryFit), or null when no coil model converged. */
   readonly summaryModel: { readonly model: ModelId; readonly basis: 'spec' | 'coil-history' | 'best-physical' } | null;
+  /**
+   * 'position' when the survey is a scan along the axis (signed positions from a ruler's
+   * zero, every fit has `centre` in place of `probeOffset`, fit points' `distance` is the
+   * signed position); absent for distances from the datum.
+   */
+  readonly axis?: 'position';
   /** The spec checked, or why none applied; null when no spec file was given. */
   readonly spec: SpecUse | null;
   readonly verdict: Verdict | null;

@@ -38,6 +38,8 @@ export interface SurveyReport {
   readonly cautions: readonly string[];
   /** Importer notes (units read, sign flipped, …). */
   readonly notes: readonly string[];
+  /** 'position' for a scan (Survey.axis): readings at signed ruler positions, the coil's `centre` fitted. Absent otherwise. */
+  readonly axis?: 'position';
 }
 
 export type CheckStatus = 'pass' | 'fail' | 'inconclusive';

@@ -51,6 +51,7 @@ function surveyToJson(survey: SurveyReport, report: Report): JsonSurvey {
     warnings: survey.warnings,
     notes: survey.notes,
     cautions: survey.cautions,
+    ...(survey.axis === undefined ? {} : { axis: survey.axis }),
   };
 }
 

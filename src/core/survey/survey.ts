@@ -77,6 +77,13 @@ export interface Survey {
   readonly meta: Readonly<Record<string, string>>;
   /** Things the importer did that the report must say (e.g. "all readings negative: probe reversed, signs flipped"). */
   readonly notes: readonly string[];
+  /**
+   * What a reading's `distance` is: absent or 'distance', measured outward from the model's
+   * datum (winding plane, midpoint or near face); 'position', a signed position along the
+   * axis from any ruler zero (a scan through the coil), fitted with the coil centre's
+   * position on that ruler (parameter `centre`) in place of the probe offset.
+   */
+  readonly axis?: 'distance' | 'position';
   /** Units the file's columns were in; absent for surveys not read from a file (synthetic ones): reports then choose units from the values. */
   readonly units?: SurveyUnits;
 }

@@ -2,7 +2,7 @@ import type { RingfallError } from '../../core/errors';
 import type { FieldKind, SurveyUnits } from '../../core/survey/survey';
 import { displaySymbol } from '../../core/units';
 import { applyMapping } from './apply-mapping';
-import { exampleNames } from './header-names';
+import { distanceColumnAxis, exampleNames } from './header-names';
 import { importError, place } from './import-errors';
 import type { ColumnDetection, ColumnRole, ImportOptions } from './import-types';
 import { shorten } from './read-number';
@@ -27,6 +27,12 @@ export interface ColumnLayout {
   readonly width: number;
   readonly fieldKind: FieldKind;
   readonly distance: NumericColumn;
+  /**
+   * What the distance column's name says (distanceColumnAxis): 'distance' outward from the
+   * datum (negative values rejected), 'position' a ruler position, a scan when any value is
+   * negative, 'scan' always a scan. Positions may be negative.
+   */
+  readonly distanceAxis: 'distance' | 'position' | 'scan';
   readonly radial: NumericColumn | null;
   /** The field column (plain B, |B| or a lone Bz); null when components are used. */
   readonly field: NumericColumn | null;
@@ -161,6 +167,7 @@ function buildLayout(columns: readonly ColumnDetection[], factors: readonly numb
     width: columns.length,
     fieldKind,
     distance: numeric('distance') as NumericColumn,
+    distanceAxis: distanceColumnAxis(columns.find((c) => c.role === 'distance')?.header ?? ''),
     radial: numeric('radial'),
     field,
     components,

@@ -15,7 +15,7 @@ import type { SurveyGroup } from './survey-collector';
 export function finishSurvey(
   group: SurveyGroup,
   otherReadingTypes: readonly (ReadingType | null)[],
-  context: { readonly source: string; readonly fieldKind: FieldKind; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
+  context: { readonly source: string; readonly fieldKind: FieldKind; readonly distanceAxis?: 'distance' | 'position' | 'scan'; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
 ): Survey {
   const notes: string[] = [];
   let readings: Reading[] = group.readings;
@@ -45,6 +45,10 @@ export function finishSurvey(
   if (others.length > 0) {
     notes.push(`the same coil and date also has ${others.join(', ')} readings in this file; they form a separate survey, since detector types are never mixed`);
   }
+  const scan = context.distanceAxis === 'scan' || (context.distanceAxis === 'position' && readings.some((reading) => reading.distance < 0));
+  if (scan) {
+    notes.push('distances read as signed positions along the axis from the ruler\'s zero (a scan through the coil): every reading is used and the position of the coil\'s centre on that ruler is fitted (centre)');
+  }
   notes.push(...context.fileNotes);
   return {
     source: context.source,
@@ -57,6 +61,7 @@ export function finishSurvey(
     totalRows: readings.length + group.rejected.length,
     meta: context.meta,
     notes,
+    ...(scan ? { axis: 'position' as const } : {}),
     ...(context.units ? { units: context.units } : {}),
   };
 }

@@ -9,6 +9,7 @@ const namesByRole: Readonly<Record<ColumnRole, readonly string[]>> = {
   distance: [
     'distance', 'dist', 'z', 'd', 'axial distance', 'axial position', 'axial', 'depth',
     'height', 'position', 'pos', 'gap', 'distance from coil', 'distance to coil', 'probe distance',
+    'scan position', 'ruler position', 'signed position',
   ],
   radial: [
     'radial offset', 'radial', 'rho', 'ρ', 'r offset', 'radial distance', 'radial position',
@@ -47,6 +48,34 @@ for (const [role, names] of Object.entries(namesByRole) as [ColumnRole, readonly
 
 /** Names that hold a field value when a field unit follows them ("Reading (mT)", "value [G]"). */
 const valueNames = new Set(['reading', 'value', 'measurement', 'meas', 'result']);
+
+/** Distance-column names that mean a position on a ruler along the axis (signed when any value is negative). */
+const positionNames: ReadonlySet<string> = new Set(['position', 'pos', 'axial position', 'z']);
+/** Distance-column names that always mean a signed position on a ruler along the axis (a scan). */
+const scanNames: ReadonlySet<string> = new Set(['scan position', 'ruler position', 'signed position']);
+
+/**
+ * What a distance column's header says about its zero: 'scan' for a name that always
+ * means a signed ruler position ("scan position (mm)"), 'position' for a name that means
+ * one when the survey has a negative value ("z (mm)", "position", "pos_mm", "axial
+ * position"), else 'distance' (outward from the datum). The unit part is dropped first:
+ * a bracket, "/unit", or a last word after a separator.
+ *
+ * @example distanceColumnAxis('pos_mm') // 'position'
+ */
+export function distanceColumnAxis(header: string): 'distance' | 'position' | 'scan' {
+  const normalized = normalizeColumnName(header);
+  const words = normalized.split(' ');
+  const candidates = [
+    normalized,
+    normalizeColumnName(header.replace(/\s*[([].*$/u, '')),
+    normalizeColumnName(header.replace(/\s*\/.*$/u, '')),
+    words.slice(0, -1).join(' '),
+  ];
+  if (candidates.some((name) => scanNames.has(name))) return 'scan';
+  if (candidates.some((name) => positionNames.has(name))) return 'position';
+  return 'distance';
+}
 
 /** Lower-case a column name and make runs of spaces, underscores, hyphens and dots one space. */
 export function normalizeColumnName(name: string): string {

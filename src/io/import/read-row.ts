@@ -90,11 +90,11 @@ function decimalCommaHint(cells: readonly string[], width: number, decimalComma:
 function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): Reading | Problem {
   const distance = readColumn(cells, layout.distance, decimalComma);
   if (typeof distance !== 'number') return distance;
-  if (distance < 0) {
+  if (distance < 0 && layout.distanceAxis === 'distance') {
     return problem(cells, layout.distance, 'ROW_NEGATIVE_DISTANCE',
-      'is negative; distances are measured outward from the coil (winding plane or near face). Put readings from the other side in their own survey with positive distances.');
+      'is negative; distances are measured outward from the coil (winding plane or near face). Put readings from the other side in their own survey with positive distances, or, for a scan through the coil, name the column "position" so that signed positions along the axis are used.');
   }
-  if (distance > maximumDistance) return problem(cells, layout.distance, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
+  if (Math.abs(distance) > maximumDistance) return problem(cells, layout.distance, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
   let radial = 0;
   if (layout.radial) {
     const value = readColumn(cells, layout.radial, decimalComma);

@@ -28,6 +28,7 @@ export class SurveyCollector {
     private readonly context: {
       readonly source: string;
       readonly fieldKind: FieldKind;
+      readonly distanceAxis?: 'distance' | 'position' | 'scan';
       readonly meta: Readonly<Record<string, string>>;
       readonly fileNotes: readonly string[];
       readonly units?: SurveyUnits;

@@ -10,7 +10,7 @@ import { oneTwoFiveLabels } from './figure';
 import { niceLogBound } from './nice-ticks';
 import { largest, smallest } from './extent';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
-import { chartFrame, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
+import { chartFrame, chartReadings, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
 type Point = { x: number; y: number | null };
 const curveSamples = 160;
@@ -24,7 +24,7 @@ const curveSamples = 160;
 export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSpec | null {
   const reference = readingsFit(survey);
   if (!reference) return null;
-  const readings = reference.points;
+  const readings = chartReadings(survey, lookup);
   const frame = chartFrame(survey, lookup);
   const at = (p: { distance: number }) => p.distance + frame.offset;
   const positive = readings.filter((p) => at(p) > 0 && p.field > 0);

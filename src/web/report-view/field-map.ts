@@ -8,7 +8,7 @@ import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
 import { largest, smallest } from './extent';
 import { fieldRamp, palette } from './palette';
-import { isAxisymmetric, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
+import { chartReadings, isAxisymmetric, rankedFits, type ModelLookup } from './survey-facts';
 
 /** The field map figure: inline SVG plus what it shows. */
 export interface FieldMapFigure {
@@ -41,7 +41,7 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   if (fit.model !== survey.best) notes.push(`Drawn with ${fit.model}, the best-ranked axisymmetric model; the best model overall (${survey.best ?? 'none'}) is not axisymmetric.`);
   const offset = probeOffset(model, fit);
   // readings drawn where they were sensed: ruler distance plus this model's probe offset
-  const readings = (readingsFit(survey)?.points ?? []).map((p) => ({ ...p, distance: p.distance + offset }));
+  const readings = chartReadings(survey, lookup).map((p) => ({ ...p, distance: p.distance + offset }));
   const thresholdDistances = survey.thresholds.filter((t) => t.model === fit.model).map((t) => t.distance?.value ?? 0);
   const maxReading = Math.max(0, largest(readings.map((p) => p.distance)));
   let maxDistance = Math.max(maxReading, ...thresholdDistances.filter((d) => d < maxReading * 20)) * 1.1;

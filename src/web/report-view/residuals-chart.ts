@@ -55,7 +55,7 @@ export function residualsChart(survey: SurveyReport, lookup: ModelLookup): Chart
   if (extreme > 50) notes.push('Some residuals lie beyond ±50 and are clipped at the chart edge.');
   const options = baseOptions();
   options.scales = {
-    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `distance from datum to sensing point (${length.symbol})${logAxis ? ', log scale' : ''}` }, ...(logAxis ? { ticks: { format: { maximumSignificantDigits: 3 }, rfLabels: oneTwoFiveLabels, autoSkip: false } } : {}), grid: { color: palette.grid } },
+    x: { type: logAxis ? 'logarithmic' : 'linear', min: xMin, max: xMax, title: { display: true, text: `${survey.axis === 'position' ? 'position on the ruler (a scan through the coil)' : 'distance from datum to sensing point'} (${length.symbol})${logAxis ? ', log scale' : ''}` }, ...(logAxis ? { ticks: { format: { maximumSignificantDigits: 3 }, rfLabels: oneTwoFiveLabels, autoSkip: false } } : {}), grid: { color: palette.grid } },
     y: { type: 'linear', min: -limit, max: limit, title: { display: true, text: stated ? 'residual ÷ standard uncertainty' : 'residual ÷ RMS residual' }, grid: { color: palette.grid } },
   } as unknown as NonNullable<typeof options.scales>;
   return {

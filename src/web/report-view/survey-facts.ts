@@ -1,3 +1,4 @@
+import { inDistanceForm } from '../../core/fit/distance-form-fit';
 import type { FitResult } from '../../core/fit/fit-result';
 import { getModel, isModelId, type FieldModel, type ModelId } from '../../core/models';
 import { probeOffset } from '../../core/report/curves';
@@ -45,9 +46,23 @@ export function bestPowerLaw(survey: SurveyReport): FitResult | null {
  * best physical fit), so readings, curves, threshold distances and the field map line up.
  */
 export function chartFrame(survey: SurveyReport, lookup: ModelLookup): { offset: number; model: ModelId | null } {
-  const thresholdModel = survey.thresholds[0]?.model;
-  const fit = rankedFits(survey).find((f) => f.converged && (thresholdModel ? f.model === thresholdModel : lookup(f.model)?.physical === true))
-    ?? bestFit(survey);
+  const fit = frameFit(survey, lookup);
   const model = fit ? lookup(fit.model) : undefined;
   return fit && model ? { offset: probeOffset(model, fit), model: fit.model } : { offset: 0, model: null };
+}
+
+function frameFit(survey: SurveyReport, lookup: ModelLookup): FitResult | null {
+  const thresholdModel = survey.thresholds[0]?.model;
+  return rankedFits(survey).find((f) => f.converged && (thresholdModel ? f.model === thresholdModel : lookup(f.model)?.physical === true))
+    ?? bestFit(survey);
+}
+
+/**
+ * The readings as the charts draw them: readingsFit's points, or for a scan (signed ruler
+ * positions) the chart frame's fit in distance form, each reading at its distance from
+ * that fit's coil datum (both sides of the coil folded onto one axis).
+ */
+export function chartReadings(survey: SurveyReport, lookup: ModelLookup): FitResult['points'] {
+  const fit = survey.axis === 'position' ? frameFit(survey, lookup) : null;
+  return fit ? inDistanceForm(fit).points : readingsFit(survey)?.points ?? [];
 }

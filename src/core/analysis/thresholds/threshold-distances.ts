@@ -1,5 +1,5 @@
 import type { FitResult } from '../../fit/fit-result';
-import { getModel } from '../../models';
+import { getModel, nearFaceModels } from '../../models';
 import type { ThresholdResult } from '../../report/report';
 import type { ReadingType, SurveyUnits } from '../../survey/survey';
 import { surveyUnits } from '../../units';
@@ -48,8 +48,10 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     }));
   }
   const fitted = fittedModel(chosen, getModel(chosen.model));
-  const offset = probeOffsetOf(fitted);
-  const range = surveyedFieldRange(fitted, offset);
+  // A scan's naive curves are centred on the coil (|position − centre|): from a near face they are half a length nearer.
+  const scan = chosen.params['centre'] !== undefined;
+  const offset = scan ? -0.5 * (nearFaceModels.has(chosen.model) ? chosen.params['length']?.value ?? 0 : 0) : probeOffsetOf(fitted);
+  const range = surveyedFieldRange(fitted, probeOffsetOf(fitted));
   const scale = lengthScale(fitted, range);
   const beyond = (z: number | null) => beyondSurvey(z, range);
   const units = surveyUnits(context);
@@ -59,7 +61,7 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     const power = convergedFit(fits, 'power-law');
     const powerDistance = naiveDistance(power, level.value, offset, scale);
     const ratio = (z: number | null) => (z !== null && estimate.distance ? z / estimate.distance : null);
-    const notes = [...commonNotes(fitted, physical !== null), ...estimate.notes, ...readingTypeNotes(level, context.readingType), ...level.notes];
+    const notes = [...commonNotes(fitted, physical !== null), ...(scan ? [scanNote] : []), ...estimate.notes, ...readingTypeNotes(level, context.readingType), ...level.notes];
     if (estimate.distance === null) notes.unshift(`The fitted ${chosen.model} field stays below ${units.format(level.value, 'field')} everywhere on the axis beyond the datum.`);
     if (beyond(estimate.distance) && range) notes.push(`Extrapolated: the survey reaches ${units.format(range[1], 'length')} from the datum; this distance rests on the model, not on readings.`);
     if (level.flag) notes.push(`Level source: ${level.flag}.`);
@@ -83,6 +85,8 @@ export function thresholdDistances(fits: readonly FitResult[], levels: readonly 
     } satisfies ThresholdResult;
   });
 }
+
+const scanNote = 'The survey is a scan along the axis: the distance is measured from the fitted coil (its winding plane, the midpoint of a pair, or the near face of a long coil), not from the ruler\'s zero; the field is the same on both sides of the coil.';
 
 function levelOf(level: ThresholdLevel): ThresholdResult['level'] {
   return { value: level.value, unit: 'T', ...(level.label ? { label: level.label } : {}), ...(level.flag ? { flag: level.flag } : {}) };
