@@ -13,7 +13,8 @@ import { writeFileAtomic } from '../write-file-atomic';
 export const chartLibraryFile = 'ringfall-charts.js';
 
 /**
- * `batch --out DIR`: one HTML report per coil (its surveys, its history in
+ * `batch --out DIR`: one HTML report per coil (its latest survey in full, the others in the
+ * survey table, its history in
  * the fleet section; the web page's report view, renderReportDocument), one per survey
  * without a coil id, and index.html linking them; the pages load the folder's one copy of
  * Chart.js (ringfall-charts.js, written first), still offline. The pages come first, the index last, each
@@ -59,7 +60,7 @@ export async function writeHtmlReports(
     // a page's run record names the files its surveys came from (the index names them all)
     const sources = new Set(surveys.map((survey) => survey.source.replace(/ \(.*\)$/, '')));
     const run = report.run === undefined ? undefined : { ...report.run, inputs: report.run.inputs.filter((input) => sources.has(input.name)) };
-    write(names[i]!, renderReportDocument({ surveys, fleet, ...(run ? { run } : {}) }, { chartLibrary, title, subtitle }));
+    write(names[i]!, renderReportDocument({ surveys, fleet, ...(run ? { run } : {}) }, { chartLibrary, title, subtitle, detail: 'latest' }));
     pages[i] = names[i]!;
   }
   const pagesStopped = pages.some((page) => page === null);

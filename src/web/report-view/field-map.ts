@@ -1,3 +1,4 @@
+import { simplifyPolyline, type Point } from './simplify-path';
 import { contours } from 'd3-contour';
 import type { FitResult } from '../../core/fit/fit-result';
 import { fieldMapGrid, probeOffset } from '../../core/report/curves';
@@ -74,8 +75,9 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   const y = (rho: number) => margin.top + innerHeight / 2 - (rho / maxRadial) * (innerHeight / 2);
   const gridX = (c: number) => margin.left + Math.min(1, Math.max(0, (c - 0.5) / (columns - 1))) * innerWidth;
   const gridY = (r: number) => margin.top + Math.min(1, Math.max(0, (r - 0.5) / (rows - 1))) * innerHeight;
+  // each ring traced cell by cell, thinned to what shows at a quarter pixel (simplify-path.ts)
   const pathOf = (polygons: number[][][][]) => polygons
-    .map((polygon) => polygon.map((ring) => 'M' + ring.map(([c, r]) => `${gridX(c!).toFixed(1)},${gridY(r!).toFixed(1)}`).join('L') + 'Z').join(''))
+    .map((polygon) => polygon.map((ring) => 'M' + simplifyPolyline(ring.map(([c, r]): Point => [gridX(c!), gridY(r!)]), 0.25).map(([px, py]) => `${px.toFixed(1)},${py.toFixed(1)}`).join('L') + 'Z').join(''))
     .join('');
 
   const generator = contours().size([columns, rows]);

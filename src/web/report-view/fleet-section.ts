@@ -46,7 +46,8 @@ const amperes = (value: number) => formatQuantity(value, 'current', { significan
  * them) when the report has a fleet section; every survey with the model its summary
  * uses (the spec's, else the coil history's, else the best physical one; the same model
  * the coils table names) and why, its ampere-turns and verdict, linking to its section; and a history chart of ampere-turns
- * per coil over time. `surveyIds[i]` is survey i's element id.
+ * per coil over time. `surveyIds[i]` is survey i's element id, or empty when the
+ * report shows that survey in this table only (its row then has no link).
  */
 export function renderFleetSection(report: Report, surveyIds: readonly string[]): SafeHtml {
   const history = historyChart(report);
@@ -59,7 +60,7 @@ ${history ? chartFigure('rf-fleet-history', 'History: ampere-turns of each coil 
     const summary = reportSummaryFit(report, survey, getModel);
     const estimate = summary?.fit.params['ampereTurns'];
     const shown = estimate ? formatEstimate(estimate) : null;
-    return html`<tr><th scope="row" class="rf-nowrap"><a href="${`#${surveyIds[i] ?? ''}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a></th><td class="rf-nowrap">${survey.date ?? '—'}</td><td>${survey.source}</td><td>${summary ? html`${summary.fit.model} <span class="rf-note">(${summaryBasisWords[summary.basis]})</span>` : 'no coil model converged'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td></tr>`;
+    return html`<tr><th scope="row" class="rf-nowrap">${surveyIds[i] ? html`<a href="${`#${surveyIds[i]}`}" data-survey-index="${i}">${survey.coil ?? '(no id)'}</a>` : survey.coil ?? '(no id)'}</th><td class="rf-nowrap">${survey.date ?? '—'}</td><td>${survey.source}</td><td>${summary ? html`${summary.fit.model} <span class="rf-note">(${summaryBasisWords[summary.basis]})</span>` : 'no coil model converged'}</td><td class="rf-num">${shown ? `${shown.value} (${shown.interval})` : '—'}</td><td>${survey.verdict ? html`<span class="${`rf-status rf-status-${survey.verdict.status}`}">${survey.verdict.status}</span>` : '—'}</td></tr>`;
   })}</tbody></table>
 </section>`;
 }

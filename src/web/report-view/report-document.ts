@@ -16,14 +16,27 @@ export function surveyElementId(index: number): string {
  * The report body (fleet overview when there are several surveys, then every survey)
  * as HTML. Used by the web page and by `renderReportDocument`.
  */
-export function renderReportBody(report: Report, lookup: ModelLookup = catalogLookup): SafeHtml {
-  const ids = report.surveys.map((_, i) => surveyElementId(i));
+export function renderReportBody(report: Report, lookup: ModelLookup = catalogLookup, detail: 'every' | 'latest' = 'every'): SafeHtml {
+  const latest = latestIndex(report);
+  const shown = report.surveys.map((_, i) => detail === 'every' || i === latest);
+  const ids = report.surveys.map((_, i) => (shown[i] ? surveyElementId(i) : ''));
   return html`<div class="rf-report">
 ${report.surveys.length > 1 ? renderFleetSection(report, ids) : ''}
-${report.surveys.map((survey, i) => renderSurveySection(survey, lookup, ids[i]!))}
+${detail === 'latest' && report.surveys.length > 1 ? html`<p class="rf-note">The latest survey is shown in full; the earlier ones are in the table above (each file's own report: fit it alone).</p>` : ''}
+${report.surveys.map((survey, i) => (shown[i] ? renderSurveySection(survey, lookup, ids[i]!) : ''))}
 ${report.surveys.length === 0 ? html`<p class="rf-empty">The report holds no survey.</p>` : ''}
 ${report.run ? renderRunSection(report.run) : ''}
 </div>`;
+}
+
+/** The latest survey of a report: the latest date (undated count as earliest), the last on ties. */
+function latestIndex(report: Report): number {
+  let best = 0;
+  report.surveys.forEach((survey, i) => {
+    const current = report.surveys[best]!;
+    if ((survey.date ?? '') >= (current.date ?? '')) best = i;
+  });
+  return best;
 }
 
 /** Options of a self-contained report file. */
@@ -40,6 +53,8 @@ export interface ReportDocumentOptions {
   readonly subtitle?: string;
   /** Where models come from; default the core catalog (tests pass stand-ins). */
   readonly lookup?: ModelLookup;
+  /** Every survey in full (default), or the latest only with the others in the survey table (batch's coil pages). */
+  readonly detail?: 'every' | 'latest';
 }
 
 /**
@@ -59,7 +74,7 @@ export function renderReportDocument(report: Report, options: ReportDocumentOpti
   const csp = `default-src 'none'; style-src 'unsafe-inline'; script-src ${shared ? "'self' " : ''}'unsafe-inline'; img-src data:`;
   const page: SafeHtml = html`${documentHead(csp, title, 820)}<body>
 <header class="rf-report rf-doc-head"><h1>${title}</h1>${options.subtitle ? html`<p>${options.subtitle}</p>` : ''}</header>
-${renderReportBody(report, options.lookup ?? catalogLookup)}
+${renderReportBody(report, options.lookup ?? catalogLookup, options.detail ?? 'every')}
 ${library}
 <script>${trusted(drawChartsSource)}
 window.addEventListener('beforeprint', function () { document.querySelectorAll('details').forEach(function (d) { d.open = true; }); });</script>
