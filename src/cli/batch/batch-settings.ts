@@ -16,4 +16,10 @@ export interface BatchSettings extends SurveyAnalysisSettings {
    * most of what would be copied between threads.
    */
   readonly keepPoints: boolean;
+  /**
+   * Send each survey back as a digest (survey-digest.ts: a spool line, a summary row, the
+   * history's part) instead of the report object, so the main thread of a large batch only
+   * appends text and keeps small rows.
+   */
+  readonly digest?: boolean;
 }

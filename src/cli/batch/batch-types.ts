@@ -3,6 +3,7 @@
  * here is plain data (structured-clonable): no functions, no class instances.
  */
 import type { SurveyReport } from '../../core/report/report';
+import type { SurveyDigest } from './survey-digest';
 
 /** One survey file to fit: its place in the sorted file list and its path as found. */
 export interface FileTask {
@@ -23,6 +24,8 @@ export interface FileOutcome {
   readonly index: number;
   readonly source: string;
   readonly reports: readonly SurveyReport[];
+  /** With BatchSettings.digest: the surveys as digests instead of `reports` (which is then empty). */
+  readonly digests?: readonly SurveyDigest[];
   /** The file itself when it could not be read at all, or its coil/date groups that could not be fitted. */
   readonly unreadable: readonly UnreadableEntry[];
 }

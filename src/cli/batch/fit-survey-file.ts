@@ -1,4 +1,5 @@
 import { readSurveyBytes } from '../read-survey-bytes';
+import { digestSurvey } from './survey-digest';
 import { isRingfallError } from '../../core/errors';
 import { analyseSurvey } from '../../core/report/analyse-survey';
 import type { SurveyReport } from '../../core/report/report';
@@ -45,6 +46,10 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
     reports[0] = { ...reports[0], warnings: [...unassigned.map((row) => row.text), ...reports[0].warnings] };
   } else {
     unreadable.push(...unassigned.map((row) => ({ source, reason: row.text, code: row.code })));
+  }
+  if (settings.digest === true) {
+    const specModels = new Set<string>(settings.specs.map((spec) => spec.model));
+    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels)), unreadable };
   }
   return { index: task.index, source, reports, unreadable };
 }

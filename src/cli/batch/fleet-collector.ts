@@ -1,13 +1,10 @@
 import { fleetHistory, type FleetSurvey } from '../../core/analysis/fleet/fleet-history';
-import type { FitResult } from '../../core/fit/fit-result';
-import { getModel } from '../../core/models';
-import { parameterRole } from '../../core/analysis/parameter-roles';
 import type { Report, SurveyReport } from '../../core/report/report';
-import { checksStatus } from '../checks-status';
 import { exitStatus, worseStatus } from '../exit-codes';
 import type { BatchSettings } from './batch-settings';
 import type { FileOutcome, UnreadableEntry } from './batch-types';
 import { later } from './fleet-rows';
+import { digestSurvey, type SurveyDigest } from './survey-digest';
 
 /**
  * Gathers a batch's file outcomes (in file order) into what the fleet summary, the fleet
@@ -33,21 +30,22 @@ export class FleetCollector {
     this.specModels = new Set(settings.specs.map((spec) => spec.model));
   }
 
-  /** Take one file's outcome (call in file order). */
-  add(outcome: FileOutcome): void {
+  /** Take one file's outcome (call in file order); its surveys as digests, made here when the worker sent reports. */
+  add(outcome: FileOutcome): readonly SurveyDigest[] {
     this.unreadable.push(...outcome.unreadable);
-    for (const survey of outcome.reports) {
+    const digests = outcome.digests ?? outcome.reports.map((survey) => digestSurvey(survey, this.specModels));
+    for (const digest of digests) {
       this.surveys += 1;
-      // the checks of this survey alone (spec, thresholds); the fleet's flags are added at the end
-      this.status = worseStatus(this.status, checksStatus({ surveys: [survey] }));
-      this.fleetSurveys.push(this.fleetSurvey(survey));
-      const row = withoutPoints(survey);
-      if (survey.coil === null || survey.coil.trim() === '') this.uncoiled.push(row);
+      this.status = worseStatus(this.status, digest.status);
+      this.fleetSurveys.push(digest.history);
+      const row = digest.row;
+      if (row.coil === null || row.coil.trim() === '') this.uncoiled.push(row);
       else {
-        const current = this.latest.get(survey.coil);
-        if (current === undefined || later(survey, current)) this.latest.set(survey.coil, row);
+        const current = this.latest.get(row.coil);
+        if (current === undefined || later(row, current)) this.latest.set(row.coil, row);
       }
     }
+    return digests;
   }
 
   /** Surveys taken so far. */
@@ -70,39 +68,4 @@ export class FleetCollector {
     const surveys = [...fleet.coils.flatMap((coil) => this.latest.get(coil.coil) ?? []), ...this.uncoiled];
     return { surveys, fleet };
   }
-
-  private fleetSurvey(survey: SurveyReport): FleetSurvey {
-    const fits = survey.fits.filter((fit) => this.specModels.has(fit.model) || getModel(fit.model).physical).map(historyFit);
-    const verdict = survey.verdict === null ? null : { status: survey.verdict.status, findings: survey.verdict.findings, checks: [], explanations: [] };
-    return { source: survey.source, coil: survey.coil, date: survey.date, fits, verdict };
-  }
-}
-
-/**
- * A survey as a summary row reads it (fleet-rows.ts, attention-list.ts): its fits without
- * per-reading points, covariance, correlation or warnings, the verdict without its checks,
- * no rejected rows, comparison, notes or cautions (the whole survey is in the spool).
- */
-function withoutPoints(survey: SurveyReport): SurveyReport {
-  return {
-    ...survey,
-    readings: { ...survey.readings, rejected: [] },
-    fits: survey.fits.map(historyFit),
-    comparison: [], notes: [], cautions: [],
-    verdict: survey.verdict === null ? null : { ...survey.verdict, checks: [] },
-  };
-}
-
-/**
- * What the history and the summary rows read of a fit (coil-history.ts, geometry-changes.ts,
- * best-fit.ts, summary-fit.ts, fleet-rows.ts): model, convergence, n, k and AICc, and the
- * amplitude and geometry estimates; nothing else is kept.
- */
-function historyFit(fit: FitResult): FitResult {
-  return {
-    model: fit.model,
-    converged: fit.converged,
-    params: Object.fromEntries(Object.entries(fit.params).filter(([name]) => ['amplitude', 'geometry'].includes(parameterRole(name)))),
-    stats: { n: fit.stats.n, k: fit.stats.k, aicc: fit.stats.aicc },
-  } as unknown as FitResult;
 }

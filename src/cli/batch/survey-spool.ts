@@ -21,7 +21,12 @@ export class SurveySpool {
 
   /** Append `survey` under `key` (surveys under one key are read back in the order added). */
   add(key: string, survey: SurveyReport): void {
-    const bytes = Buffer.from(`${JSON.stringify(survey, keepNumbers)}\n`, 'utf8');
+    this.addLine(key, spoolLine(survey));
+  }
+
+  /** Append a survey already made into a line (spoolLine, e.g. by a worker) under `key`. */
+  addLine(key: string, line: string): void {
+    const bytes = Buffer.from(line, 'utf8');
     for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
     const list = this.places.get(key) ?? [];
     const place = { offset: this.size, length: bytes.length };
@@ -65,6 +70,11 @@ export class SurveySpool {
     }
     rmSync(this.path, { force: true });
   }
+}
+
+/** A survey as one line of a spool: JSON that keeps non-finite numbers, and a newline. */
+export function spoolLine(survey: SurveyReport): string {
+  return `${JSON.stringify(survey, keepNumbers)}\n`;
 }
 
 /**

@@ -92,9 +92,9 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const collector = new FleetCollector(settings);
           let uncoiled = 0;
           const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
-            collector.add(outcome);
-            reportUnappliedSpecs({ surveys: outcome.reports });
-            for (const survey of outcome.reports) spool?.add(pageKey(survey, () => uncoiled++), survey);
+            const digests = collector.add(outcome);
+            reportUnappliedSpecs({ surveys: digests.map((digest) => digest.row) });
+            for (const digest of digests) spool?.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
           });
           const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
           const summary = collector.report();
@@ -148,6 +148,8 @@ async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
     specs: options.spec === null ? [] : await readSpecFile(options.spec),
     thresholds: options.thresholds,
     keepPoints: flags.out !== undefined,
+    // workers send digests: the main thread appends each survey's text to the spool and keeps a small row
+    digest: true,
   };
 }
 
