@@ -1,20 +1,23 @@
-import type { ColumnDetection, ColumnMapping, ColumnRole } from '../io';
+import { distanceColumnAxis, type ColumnDetection, type ColumnMapping, type ColumnRole } from '../io';
 import { displaySymbol, unitsOfKind } from '../core/units';
 import { pageText } from './page-words';
 import { h, uniqueId, type Child } from './dom';
 import type { FileOutcome } from './pipeline';
 
-const roles: readonly ColumnRole[] = ['distance', 'radial', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
+/** The roles a column can be given here; 'position' is the distance column read as signed ruler positions (a scan). */
+type PageRole = ColumnRole | 'position';
 
-const roleWords: Readonly<Record<ColumnRole | 'ignore', string>> = {
-  distance: 'distance along the axis', radial: 'radial offset', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
+const roles: readonly PageRole[] = ['distance', 'position', 'radial', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
+
+const roleWords: Readonly<Record<PageRole | 'ignore', string>> = {
+  distance: 'distance along the axis', position: 'position on a ruler through the coil (a scan)', radial: 'radial offset', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
   bx: 'component Bx', by: 'component By', bz: 'component Bz (axial)', uncertainty: 'reading uncertainty', coil: 'coil id', date: 'date',
   reading: 'detector type (dc/rms/peak)', ignore: 'not used',
 };
 
 /** Which units a role takes: lengths, fields, or none. */
-function unitsFor(role: ColumnRole | 'ignore'): readonly string[] {
-  if (role === 'distance' || role === 'radial') return unitsOfKind('length');
+function unitsFor(role: PageRole | 'ignore'): readonly string[] {
+  if (role === 'distance' || role === 'position' || role === 'radial') return unitsOfKind('length');
   if (['field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty'].includes(role)) return unitsOfKind('field');
   return [];
 }
@@ -41,11 +44,13 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
     const rows = detection.columns.map((column) => {
       const roleId = uniqueId('role');
       const unitId = uniqueId('unit');
+      // a distance column of ruler positions (set so, or named as always meaning a scan) shows as such
+      const shown: PageRole | 'ignore' = column.role === 'distance' && (column.axis === 'scan' || distanceColumnAxis(column.header) === 'scan') ? 'position' : column.role ?? 'ignore';
       const role = h('select', { id: roleId, 'aria-label': `Role of column ${column.index + 1} "${column.header}"` },
-        (['ignore', ...roles] as const).map((r) => h('option', { value: r, selected: (column.role ?? 'ignore') === r }, roleWords[r])));
+        (['ignore', ...roles] as const).map((r) => h('option', { value: r, selected: shown === r }, roleWords[r])));
       const unit = h('select', { id: unitId, 'aria-label': `Unit of column ${column.index + 1} "${column.header}"` });
       const fillUnits = () => {
-        const chosen = role.value as ColumnRole | 'ignore';
+        const chosen = role.value as PageRole | 'ignore';
         const options = unitsFor(chosen);
         unit.replaceChildren(h('option', { value: '' }, options.length === 0 ? '—' : column.unit ? `as read (${displaySymbol(column.unit)})` : 'choose…'),
           ...options.map((u) => h('option', { value: u }, u)));
@@ -63,7 +68,7 @@ export function columnsPanel(outcome: FileOutcome, current: readonly ColumnMappi
     const apply = h('button', { type: 'button', class: 'primary' }, 'Use this reading and refit');
     apply.addEventListener('click', () => {
       onApply(selects.map(({ role, unit, column }) => {
-        const mapping: ColumnMapping = { column: column.index, role: role.value as ColumnRole | 'ignore' };
+        const mapping: ColumnMapping = { column: column.index, role: role.value as PageRole | 'ignore' };
         return unit.value ? { ...mapping, unit: unit.value } : mapping;
       }));
     });

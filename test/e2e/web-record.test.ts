@@ -114,6 +114,29 @@ describe('the page follows the user and keeps a record', () => {
     await expect(page.locator('#file-list li .file-name').allInnerTexts()).resolves.toContain('first.csv');
   });
 
+  it('reads a column set by hand as ruler positions as a scan through the coil, and fits its centre', async () => {
+    await page.getByRole('button', { name: 'Remove all files' }).click();
+    // a loop scanned through from −60 to +60 mm of a ruler whose zero is 12 mm from the winding plane (on-axis field: Jackson §5.5)
+    const mu0 = 1.25663706212e-6;
+    const rows = Array.from({ length: 25 }, (_, i) => {
+      const position = -60 + 5 * i;
+      const z = (position - 12) / 1000;
+      const b = (mu0 * 120 * 0.045 ** 2) / (2 * (0.045 ** 2 + z * z) ** 1.5) * (1 + 0.005 * Math.sin(1.7 * i));
+      return `${position},${(b * 1e3).toFixed(5)}`;
+    });
+    const file = scratchFile('rail.csv', ['# coil: RAIL-1', '# date: 2026-03-04', 'distance (mm),B (mT)', ...rows].join('\n') + '\n');
+    await andWaitForReport(() => page.setInputFiles('#survey-files', file));
+    // named "distance", the rows below zero are set aside
+    await expect(page.locator('#file-list li', { hasText: 'rail.csv' }).innerText()).resolves.toContain('1 survey(s), 13 readings');
+    const card = page.locator('details.file-columns', { hasText: 'rail.csv' });
+    if (!(await card.evaluate((element) => (element as HTMLDetailsElement).open))) await card.locator('summary').click();
+    await card.getByLabel('Role of column 1 "distance (mm)"').selectOption('position');
+    await andWaitForReport(() => card.getByRole('button', { name: 'Use this reading and refit' }).click());
+    await expect(page.locator('#file-list li', { hasText: 'rail.csv' }).innerText()).resolves.toContain('1 survey(s), 25 readings');
+    const centre = page.locator('.rf-params').first().locator('tr[data-param=centre]');
+    expect(Math.abs(Number(await centre.getAttribute('data-value')) - 0.012)).toBeLessThan(0.001);
+  });
+
   it('says so when the spec is for another coil, in its own words', async () => {
     await page.getByRole('button', { name: 'Remove all files' }).click();
     await andWaitForReport(() => page.setInputFiles('#survey-files', scratchFile('other.csv', loopSurveyText('QA-107', '2026-03-03'))));

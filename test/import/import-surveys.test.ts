@@ -138,6 +138,16 @@ describe('importSurveys() reads the file forms of CONTRACT.md', () => {
     expect(detection.columns[1]?.reason).toBe('set by hand as magnitude');
   });
 
+  it('importSurveys() reads a distance column mapped as "position" as a scan: negative positions used, not set aside', () => {
+    const text = 'distance (mm),B (mT)\n-20,1.3\n-10,1.6\n0,1.7\n10,1.6\n20,1.3\n';
+    // as named, a distance never goes below the datum: the two negative rows are set aside
+    expect(importSurveys(text, { source }).surveys[0]?.readings).toHaveLength(3);
+    const { surveys, detection } = importSurveys(text, { source, mapping: [{ column: 0, role: 'position' }] });
+    expect(surveys[0]?.readings.map((r) => r.distance)).toEqual([-0.02, -0.01, 0, 0.01, 0.02]);
+    expect(surveys[0]?.axis).toBe('position');
+    expect(detection.columns[0]).toMatchObject({ role: 'distance', axis: 'scan', reason: 'set by hand as ruler position (a scan)' });
+  });
+
   it('importSurveysStreaming() gives the same result as importSurveys() for any chunking', async () => {
     const text = '# coil: Q\r\ndistance (mm);B (mT)\r\n0;1,7\r\n10;"1,6"\r\n20;1,3\r\nx;1\r\n';
     const whole = importSurveys(text, { source });

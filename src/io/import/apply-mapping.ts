@@ -25,17 +25,18 @@ export function applyMapping(
     const index = typeof mapping.column === 'number'
       ? (Number.isInteger(mapping.column) && mapping.column >= 0 && mapping.column < columns.length ? mapping.column : -1)
       : columns.findIndex((c) => c.header === String(mapping.column).trim());
-    if (index < 0 || (mapping.role !== 'ignore' && !roles.includes(mapping.role))) {
+    if (index < 0 || (mapping.role !== 'ignore' && mapping.role !== 'position' && !roles.includes(mapping.role))) {
       problems.push(importError(
         'IMPORT_MAPPING',
         `Column mapping not applied: ${index < 0 ? `no column ${JSON.stringify(mapping.column)}` : `unknown role "${mapping.role}"`} ` +
           `(${place(options.source, headerLine)}; columns: ${columns.map((c) => `"${c.header}"`).join(', ')}). ` +
-          `Name a column by its 0-based index or exact header, with a role of ${roles.join(', ')} or ignore.`,
+          `Name a column by its 0-based index or exact header, with a role of ${roles.join(', ')}, position or ignore.`,
         place(options.source, headerLine), mapping,
       ));
       continue;
     }
-    const role: ColumnRole | null = mapping.role === 'ignore' ? null : mapping.role;
+    // 'position': the distance column, read as signed ruler positions (a scan)
+    const role: ColumnRole | null = mapping.role === 'ignore' ? null : mapping.role === 'position' ? 'distance' : mapping.role;
     if (role !== null) {
       for (const other of columns) {
         if (other.role !== null && clashes(role, other.role) && other.index !== index && !mapped.has(other.index)) {
@@ -45,12 +46,14 @@ export function applyMapping(
     }
     const column = columns[index] as ColumnDetection;
     const unit = mapping.unit ?? (role === column.role ? column.unit : null);
+    const { axis: _axis, ...rest } = column;
     columns[index] = {
-      ...column,
+      ...rest,
+      ...(mapping.role === 'position' ? { axis: 'scan' as const } : {}),
       role,
       unit: role === null ? null : unit,
       unitSource: role === null || unit === null ? null : mapping.unit !== undefined ? 'mapping' : column.unitSource,
-      reason: role === null ? 'ignored (set by hand)' : `set by hand as ${role}`,
+      reason: role === null ? 'ignored (set by hand)' : `set by hand as ${mapping.role === 'position' ? 'ruler position (a scan)' : role}`,
     };
     mapped.add(index);
   }

@@ -167,7 +167,7 @@ function buildLayout(columns: readonly ColumnDetection[], factors: readonly numb
     width: columns.length,
     fieldKind,
     distance: numeric('distance') as NumericColumn,
-    distanceAxis: distanceColumnAxis(columns.find((c) => c.role === 'distance')?.header ?? ''),
+    distanceAxis: columns.find((c) => c.role === 'distance')?.axis ?? distanceColumnAxis(columns.find((c) => c.role === 'distance')?.header ?? ''),
     radial: numeric('radial'),
     field,
     components,

@@ -26,8 +26,11 @@ export type ColumnRole =
 export interface ColumnMapping {
   /** The column: 0-based index, or its header text exactly as written. */
   readonly column: number | string;
-  /** What the column holds, or 'ignore' to leave it out. */
-  readonly role: ColumnRole | 'ignore';
+  /**
+   * What the column holds, or 'ignore' to leave it out; 'position' is a distance column of
+   * signed positions on a ruler (a scan through the coil, whatever its header says).
+   */
+  readonly role: ColumnRole | 'ignore' | 'position';
   /** Unit of a numeric column (e.g. "mm", "mT"); overrides the unit in the header. */
   readonly unit?: string;
 }
@@ -59,6 +62,8 @@ export interface ColumnDetection {
   readonly unitSource: UnitSource | null;
   /** One sentence for people: `name "distance" with unit "mm" in brackets`. */
   readonly reason: string;
+  /** A distance column set by hand as ruler positions of a scan ('scan'); absent: as its header says. */
+  readonly axis?: 'scan';
 }
 
 /** A `# key: value` line before the header. */

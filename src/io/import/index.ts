@@ -1,6 +1,7 @@
 export { importSurveys, importSurveysStreaming } from './import-surveys';
 export { SurveyImporter } from './survey-importer';
 export { detectSurveyLayout } from './detect-survey-layout';
+export { distanceColumnAxis } from './header-names';
 export type { ImportErrorCode } from './import-errors';
 export {
   MIN_USABLE_READINGS,
