@@ -1,4 +1,4 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -19,7 +19,9 @@ parentPort.on('message', (request) => {
   parentPort.postMessage({ kind: 'done', chunk: request.chunk, outcomes: request.files.map((file) => ({ index: file.index, source: file.path, reports: [], unreadable: [] })) });
 });
 parentPort.postMessage({ kind: 'ready' });
-`);
+// each worker thread says where it started, so a test can count the threads
+if (workerData === 'count') writeFileSync(new URL('./started-' + threadId, import.meta.url), '');
+`.replace("import { parentPort, workerData } from 'node:worker_threads';", "import { parentPort, workerData, threadId } from 'node:worker_threads';\nimport { writeFileSync } from 'node:fs';"));
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
 async function run(paths: readonly string[], workers: number, workerData: unknown = null): Promise<FileOutcome[]> {
@@ -61,5 +63,18 @@ describe('runWorkerPool()', () => {
     await pool.stop();
     await expect(pool.done).resolves.toBeUndefined();
     expect(outcomes.length).toBeLessThan(50);
+  });
+
+  it('runWorkerPool() replaces a worker that has fitted its share of files with a fresh one, and still gives every file one outcome', async () => {
+    const paths = Array.from({ length: 20 }, (_, i) => `r${i}.csv`);
+    const outcomes: FileOutcome[] = [];
+    const pool = runWorkerPool(paths.map((path, index) => ({ index, path })), {
+      workers: 1, chunkSize: 3, entry, workerData: 'count', filesPerWorker: 6, onOutcomes: (finished) => outcomes.push(...finished),
+    });
+    await pool.done;
+    expect(outcomes.map((o) => o.source).sort()).toEqual([...paths].sort());
+    expect(outcomes.every((o) => o.unreadable.length === 0)).toBe(true);
+    // 20 files, 6 per worker: four threads one after another
+    expect(readdirSync(folder).filter((name) => name.startsWith('started-'))).toHaveLength(4);
   });
 });

@@ -23,6 +23,8 @@ export interface WorkerPoolOptions {
    * the outcome BATCH_FILE_TIMEOUT. Default: no limit.
    */
   readonly fileTimeLimit?: number;
+  /** Files one worker fits before a fresh one replaces it (default filesPerWorker, 2,000). */
+  readonly filesPerWorker?: number;
 }
 
 /** A running pool: `done` settles when every file has an outcome or the pool was stopped. */
@@ -38,6 +40,13 @@ export interface WorkerPoolRun {
  * survey of 10^5 readings fitted with every model stays well inside it.
  */
 const workerHeapMb = 256;
+
+/**
+ * Files one worker fits before it is replaced by a fresh one: V8 lets a busy worker's heap
+ * grow towards its limit however little it keeps, so a long batch recycles its workers
+ * (a start costs a fraction of a second; 2,000 files take tens of seconds).
+ */
+const defaultFilesPerWorker = 2000;
 
 /** Chunks kept in flight per worker, so a worker never waits for the next message. */
 const inFlightPerWorker = 2;
@@ -74,6 +83,7 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
   };
 
   const limitMs = options.fileTimeLimit === undefined ? null : options.fileTimeLimit * 1000;
+  const filesPerWorker = options.filesPerWorker ?? defaultFilesPerWorker;
   const start = () => {
     const worker = new Worker(options.entry, { workerData: options.workerData, resourceLimits: { maxOldGenerationSizeMb: workerHeapMb } });
     const inFlight = new Map<number, { files: FileTask[]; retry: boolean }>();
@@ -81,10 +91,14 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
     // the chunk the worker is on (the oldest in flight) and since when, once the worker has loaded
     let since = performance.now();
     let timedOut = false;
+    // files given to this worker; past filesPerWorker it takes no more and is replaced once idle
+    let given = 0;
+    let retiring = false;
     workers.add(worker);
     const feed = () => {
-      while (!stopped && inFlight.size < inFlightPerWorker && queue.length > 0) {
+      while (!stopped && inFlight.size < inFlightPerWorker && queue.length > 0 && given < filesPerWorker) {
         const chunk = queue.shift()!;
+        given += chunk.files.length;
         const id = nextChunk++;
         if (inFlight.size === 0) since = performance.now();
         inFlight.set(id, chunk);
@@ -112,7 +126,11 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
       pending -= message.outcomes.length;
       options.onOutcomes(message.outcomes);
       if (pending === 0) finish();
-      else feed();
+      else if (given >= filesPerWorker && inFlight.size === 0) {
+        // a fresh worker starts with a small heap; this one has done its share
+        retiring = true;
+        void worker.terminate();
+      } else feed();
     });
     let failure: Error | null = null;
     worker.on('error', (error) => {
@@ -122,6 +140,10 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
       if (watch !== null) clearInterval(watch);
       workers.delete(worker);
       if (stopped || settle === null) return;
+      if (retiring && inFlight.size === 0) {
+        start();
+        return;
+      }
       const reason = failure?.message ?? `it exited with status ${code}`;
       if (!ready) {
         finish(new Error(`A batch worker could not start: ${reason}`));
