@@ -38,8 +38,19 @@ export function summaryFit(survey: Pick<SurveyReport, 'fits' | 'spec'>, modelOf:
 
 /** summaryFit for a survey of a report, with its coil's history model when the report has a fleet section. */
 export function reportSummaryFit(report: Report, survey: SurveyReport, modelOf: (id: ModelId) => FieldModel): SummaryFit | null {
-  const coil = survey.coil === null ? undefined : report.fleet?.coils.find((c) => c.coil === survey.coil);
-  return summaryFit(survey, modelOf, coil?.model ?? null);
+  const coil = survey.coil === null || report.fleet === undefined ? undefined : historyModels(report.fleet).get(survey.coil);
+  return summaryFit(survey, modelOf, coil ?? null);
+}
+
+/** Each coil's history model by coil id, made once per fleet section (a fleet of 10,000 coils is looked up per survey). */
+const historyModelsOf = new WeakMap<NonNullable<Report['fleet']>, ReadonlyMap<string, ModelId | null>>();
+function historyModels(fleet: NonNullable<Report['fleet']>): ReadonlyMap<string, ModelId | null> {
+  let models = historyModelsOf.get(fleet);
+  if (models === undefined) {
+    models = new Map(fleet.coils.map((coil) => [coil.coil, coil.model] as const));
+    historyModelsOf.set(fleet, models);
+  }
+  return models;
 }
 
 /** Why a summary uses its model, in a few words: "spec's model", "coil history's model", "best coil model by AICc". */
