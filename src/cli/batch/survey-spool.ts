@@ -51,14 +51,18 @@ export class SurveySpool {
     return this.order.length;
   }
 
+  /** One buffer for reading surveys back, grown as needed: reading 50,000 surveys allocates no buffer per survey. */
+  private readBuffer = Buffer.alloc(1 << 16);
+
   private at({ offset, length }: { offset: number; length: number }): SurveyReport {
-    const bytes = Buffer.alloc(length);
+    if (this.readBuffer.length < length) this.readBuffer = Buffer.alloc(Math.max(length, 2 * this.readBuffer.length));
+    const bytes = this.readBuffer;
     for (let done = 0; done < length;) {
       const got = readSync(this.fd, bytes, done, length - done, offset + done);
       if (got === 0) throw new Error(`survey spool ${this.path}: ended at byte ${offset + done}, expected ${offset + length}`);
       done += got;
     }
-    return JSON.parse(bytes.toString('utf8'), restoreNumbers) as SurveyReport;
+    return JSON.parse(bytes.toString('utf8', 0, length), restoreNumbers) as SurveyReport;
   }
 
   /** Close and delete the spool file. */
