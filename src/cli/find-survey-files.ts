@@ -10,7 +10,7 @@ const surveyEndings = new Set(['.csv', '.tsv', '.txt']);
 export interface UnusablePath {
   readonly source: string;
   readonly reason: string;
-  /** INPUT_FOLDER_UNREADABLE, INPUT_NOT_REGULAR, INPUT_SYMLINK_LOOP, INPUT_LINK_BROKEN or INPUT_UNREADABLE. */
+  /** INPUT_FOLDER_UNREADABLE, INPUT_NOT_REGULAR, INPUT_SYMLINK_LOOP, INPUT_LINK_BROKEN, INPUT_UNREADABLE or INPUT_SKIP_LIST_UNREADABLE. */
   readonly code: string;
 }
 
@@ -115,7 +115,10 @@ function walk(folder: string, search: Search, lists: readonly SkipList[] | null)
     search.unusable.push({ source: folder, code: 'INPUT_FOLDER_UNREADABLE', reason: `Cannot list the folder (${code}), so the survey files in it were not read. Give read and search permission on it, or leave it out.` });
     return;
   }
-  const own = lists === null ? null : readSkipList(folder);
+  const own = lists === null ? null : readSkipList(folder, (path, code) => search.unusable.push({
+    source: path, code: 'INPUT_SKIP_LIST_UNREADABLE',
+    reason: `Cannot read this skip list (${code}), so nothing in its folder was left out by it. Make it readable, or remove it.`,
+  }));
   const active = lists === null ? null : own === null ? lists : [...lists, own];
   entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
   for (const entry of entries) {

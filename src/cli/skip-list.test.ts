@@ -2,7 +2,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { findSurveyFiles, skippedLines } from './find-survey-files';
+import { findSurveyFiles, skippedLines, type UnusablePath } from './find-survey-files';
 import type { SkippedFiles } from './skip-list';
 
 const root = mkdtempSync(join(tmpdir(), 'ringfall-skip-test-'));
@@ -50,5 +50,14 @@ describe('.ringfall-skip lists in folder searches', () => {
     expect(findSurveyFiles([folder]).map((f) => f.slice(folder.length + 1))).toEqual(['b/x.csv']);
     const only = tree({ '.ringfall-skip': '*.csv\n', 'x.csv': '' });
     expect(() => findSurveyFiles([only])).toThrow(/holds no \.csv, \.tsv or \.txt file \(1 left out by .*\.ringfall-skip; --no-skip fits them\)/);
+  });
+
+  it('names a skip list that is there but cannot be read, and leaves nothing out by it', () => {
+    const folder = tree({ 'a.csv': '', 'flawed/x.csv': '' });
+    // a folder where the list should be: reading it fails with EISDIR (POSIX read(2)), even for root
+    mkdirSync(join(folder, '.ringfall-skip'));
+    const unusable: UnusablePath[] = [];
+    expect(findSurveyFiles([folder], { unusable })).toHaveLength(2);
+    expect(unusable).toEqual([{ source: join(folder, '.ringfall-skip'), code: 'INPUT_SKIP_LIST_UNREADABLE', reason: expect.stringContaining('Cannot read this skip list (EISDIR)') }]);
   });
 });

@@ -23,14 +23,18 @@ export interface SkipList {
  * of characters within one name and `?` one character; a trailing `/` matches folders
  * only; a pattern without any other `/` matches that name at any depth below the folder,
  * one with a `/` the path from the folder (the rules of .gitignore patterns, simplified).
+ * A list that exists but cannot be read is reported through `onUnreadable`.
  * @example readSkipList('sample-data')?.patterns // ['flawed/']
  */
-export function readSkipList(folder: string): SkipList | null {
+export function readSkipList(folder: string, onUnreadable: (path: string, code: string) => void = () => undefined): SkipList | null {
   const path = join(folder, skipListName);
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
-  } catch {
+  } catch (cause) {
+    const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
+    // no list is the usual case; a list that is there but cannot be read is said, not passed over
+    if (code !== 'ENOENT' && code !== 'ENOTDIR') onUnreadable(path, code);
     return null;
   }
   const patterns = text.replace(/^\uFEFF/, '').split(/\r?\n/).map((line) => line.trim()).filter((line) => line !== '' && !line.startsWith('#'));

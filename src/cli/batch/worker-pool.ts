@@ -141,7 +141,8 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
       workers.delete(worker);
       if (stopped || settle === null) return;
       if (retiring && inFlight.size === 0) {
-        start();
+        // a fresh worker only while there is work left for it; a later crash starts its own
+        if (queue.length > 0) start();
         return;
       }
       const reason = failure?.message ?? `it exited with status ${code}`;

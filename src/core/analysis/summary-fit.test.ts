@@ -19,6 +19,7 @@ describe('summaryFit(): the one model a summary, a verdict and a history read a 
     expect(summaryModelWords(summary!)).toBe('rectangle (best coil model by AICc)');
   });
 
+  // ringfall's own rule, as docs/CONTRACT.md states it for summaryModel: a verdict is made with the spec's model
   it("prefers the applied spec's model, then the coil history's model", () => {
     expect(summaryFit({ fits, spec: spec('loop') }, getModel, 'rectangle')?.basis).toBe('spec');
     expect(summaryFit({ fits, spec: spec('loop') }, getModel, 'rectangle')?.fit.model).toBe('loop');
@@ -27,6 +28,7 @@ describe('summaryFit(): the one model a summary, a verdict and a history read a 
     expect(summaryModelWords(fromHistory!)).toBe("loop (the coil history's model)");
   });
 
+  // the same rule: only a converged coil model can describe the coil (DOMAIN.md §1.11)
   it('ignores a spec that did not apply, a history model that is a power law, and models that did not converge', () => {
     expect(summaryFit({ fits, spec: spec('loop', false) }, getModel)?.fit.model).toBe('rectangle');
     expect(summaryFit({ fits, spec: null }, getModel, 'power-law')?.fit.model).toBe('rectangle');

@@ -2,12 +2,17 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { simplifyPolyline, type Point } from './simplify-path';
 
+// distance from p to the segment a–b worked out another way than the code under test: the
+// perpendicular distance |(b − a) × (p − a)| / |b − a| when p projects inside the segment,
+// else the distance to the nearer end (analytic geometry, any textbook)
 function distanceToSegment(p: Point, a: Point, b: Point): number {
-  const dx = b[0] - a[0];
-  const dy = b[1] - a[1];
-  const length2 = dx * dx + dy * dy;
-  const t = length2 === 0 ? 0 : Math.max(0, Math.min(1, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / length2));
-  return Math.hypot(p[0] - a[0] - t * dx, p[1] - a[1] - t * dy);
+  const along = [b[0] - a[0], b[1] - a[1]] as const;
+  const length = Math.hypot(along[0], along[1]);
+  if (length === 0) return Math.hypot(p[0] - a[0], p[1] - a[1]);
+  const projection = ((p[0] - a[0]) * along[0] + (p[1] - a[1]) * along[1]) / length;
+  if (projection <= 0) return Math.hypot(p[0] - a[0], p[1] - a[1]);
+  if (projection >= length) return Math.hypot(p[0] - b[0], p[1] - b[1]);
+  return Math.abs(along[0] * (p[1] - a[1]) - along[1] * (p[0] - a[0])) / length;
 }
 
 describe('simplifyPolyline() (Douglas & Peucker 1973)', () => {

@@ -12,6 +12,8 @@ describe('readTrend(): what a coil\'s ampere-turn trend says', () => {
     expect(readTrend(-5, [-8, -2], 20, 5).status).toBe('declining');
   });
 
+  // ringfall's stated steady band, the tolerance per year (docs/CONTRACT.md fleet section; common practice
+  // for periodic checks, not from a standard), read with the same whole-interval rule
   it('reads steady when the whole interval lies inside ±band, and undetermined when it crosses zero and reaches past the band', () => {
     expect(readTrend(-1, [-15, 13], 20, 5).status).toBe('steady');
     expect(readTrend(-1, [-20, 20], 20, 5).status).toBe('steady');
@@ -39,6 +41,7 @@ describe('readTrend(): what a coil\'s ampere-turn trend says', () => {
     expect(decides(n + k - 1)).toBe(false);
   });
 
+  // the cap of fifty is ringfall's own (trend-reading.ts moreSurveysShown); a zero-width interval at zero is steady by the rule above
   it('says "many more" rather than a number past fifty surveys, and nothing to project without an interval', () => {
     expect(readTrend(0.1, [-1000, 1000], 1, 3).moreSurveys).toBeNull();
     expect(readTrend(0, [0, 0], 0, 3).status).toBe('steady');
