@@ -1,21 +1,8 @@
 import type { Reading, ReadingType } from '../../core/survey/survey';
 import type { ColumnLayout, NumericColumn } from './detect-columns';
-import type { FileLayout } from './read-layout';
 import { explainNumberCell, readNumber, shorten } from './read-number';
 import { readRowKey } from './read-row-key';
-import type { SurveyCollector } from './survey-collector';
-
-/** What the row reader needs besides the row. */
-export interface RowContext {
-  readonly layout: ColumnLayout;
-  readonly decimalComma: boolean;
-  /** Header text of every column, for messages. */
-  readonly headers: readonly string[];
-  /** Which columns are used (have a role). */
-  readonly used: readonly boolean[];
-  readonly defaults: FileLayout['defaults'];
-  readonly collector: SurveyCollector;
-}
+import type { RowContext } from './row-context';
 
 /** Largest |value| taken for a reading: beyond any gaussmeter (the strongest DC magnets reach about 45 T). */
 const maximumField = 100;
@@ -50,12 +37,6 @@ export function readRow(cells: readonly string[], line: number, context: RowCont
 }
 
 /** A row's key cells: coil, date, reading type. */
-export interface RowKey {
-  readonly coil: string | null;
-  readonly date: string | null;
-  readonly readingType: ReadingType | null;
-}
-
 function checkWidth(cells: readonly string[], context: RowContext): Problem | null {
   const width = context.layout.width;
   if (cells.length === width) return null;
