@@ -1,3 +1,4 @@
+import type { ProblemCode } from '../../core/error-codes';
 import type { ReadingType } from '../../core/survey/survey';
 import { parseDate } from './parse-date';
 import { parseReadingType } from './parse-reading-type';
@@ -11,7 +12,7 @@ export interface RowKey {
   readonly readingType: ReadingType | null;
 }
 
-type WidthProblem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string } | null;
+type WidthProblem = { readonly column: string | null; readonly value: string | null; readonly code: ProblemCode; readonly reason: string } | null;
 
 /**
  * Read which survey a row belongs to: its coil, date and reading-type cells, each

@@ -1,3 +1,4 @@
+import type { ProblemCode } from '../../core/error-codes';
 import type { Reading, ReadingType } from '../../core/survey/survey';
 import type { ColumnLayout, NumericColumn } from './detect-columns';
 import { explainNumberCell, readNumber, shorten } from './read-number';
@@ -9,7 +10,7 @@ const maximumField = 100;
 /** Largest distance taken, m: far beyond any coil survey. */
 const maximumDistance = 100;
 
-type Problem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string };
+type Problem = { readonly column: string | null; readonly value: string | null; readonly code: ProblemCode; readonly reason: string };
 
 /**
  * Read one data row into a Reading of its survey, or a RejectedRow with line, column,
@@ -141,7 +142,7 @@ function readColumn(cells: readonly string[], column: NumericColumn, decimalComm
   return { column: column.header, value: shorten(cell.trim()), code, reason };
 }
 
-function problem(cells: readonly string[], column: NumericColumn, code: string, what: string): Problem {
+function problem(cells: readonly string[], column: NumericColumn, code: ProblemCode, what: string): Problem {
   const value = shorten((cells[column.index] ?? '').trim());
   return { column: column.header, value, code, reason: `column "${shorten(column.header, 60)}": "${value}" ${what}` };
 }
