@@ -1,4 +1,5 @@
 import type { FieldModel, SurveyPoints } from '../models/field-model';
+import { isBackgroundParameter, isPlacementParameter } from '../models/placement';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
 import { deltaMethodVariance } from '../stats/delta-method-variance';
 
@@ -41,8 +42,8 @@ function momentAt(model: FieldModel, params: ArrayLike<number>, scratch: MomentS
   let size = 0;
   for (let j = 0; j < coil.length; j++) {
     const spec = model.parameters[j]!;
-    const placement = spec.name === 'probeOffset' || spec.name === 'centre';
-    coil[j] = placement || spec.name === 'background' ? 0 : params[j]!;
+    const placement = isPlacementParameter(spec.name);
+    coil[j] = placement || isBackgroundParameter(spec.name) ? 0 : params[j]!;
     if (spec.unit === 'm' && !placement) size = Math.max(size, Math.abs(coil[j]!));
   }
   if (!(size > 0) || !Number.isFinite(size)) size = 1e-3;

@@ -71,6 +71,10 @@ export interface FitResult {
     readonly standardUncertainty: number | null;
     /** Set when a robust loss flagged this reading as an outlier. */
     readonly outlier?: boolean;
+    /** A 3-D map's reading: its position in the map's frame (m). */
+    readonly position?: { readonly x: number; readonly y: number; readonly z: number };
+    /** A vector map's reading is three points, one per component of the map's frame; `field` is that component. */
+    readonly component?: 'x' | 'y' | 'z';
   }[];
   /**
    * Far-field magnetic moment of a physical model (A·m², DOMAIN.md §7.6), with its

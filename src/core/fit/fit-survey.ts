@@ -1,12 +1,12 @@
 import { RingfallError } from '../errors';
-import { getModel, modelIds, scanModel } from '../models';
+import { modelIds } from '../models';
 import type { Survey } from '../survey/survey';
 import { withAkaikeWeights } from './compare-models';
 import type { FitResult } from './fit-result';
 import { fitModel } from './fit-model';
 import { checkFixedParameters, defaultModels, type FitSurveyOptions } from './fit-survey-options';
+import { isVectorMap, omittedModelNote, surveyProblem, withMapPoints } from './map-survey';
 import { readingUncertainty } from './reading-uncertainty';
-import { surveyPoints } from './survey-points';
 
 /**
  * Fit every requested catalog model to one survey (DOMAIN.md §7) and compare them: per
@@ -31,10 +31,12 @@ import { surveyPoints } from './survey-points';
 export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitResult[] {
   const ids = options.models ?? defaultModels;
   if (ids.length === 0) throw new RangeError('fitSurvey: options.models is empty; expected at least one model id');
-  // A scan (signed positions along the axis) fits the coil centre's position in place of the probe offset.
-  const models = ids.map((id) => (survey.axis === 'position' ? scanModel(getModel(id)) : getModel(id)));
+  // A scan (signed positions along the axis) fits the coil centre's position in place of the
+  // probe offset, a transverse scan the axis's lateral position, a 3-D map the coil's pose.
+  const { survey: fitted, points, models } = surveyProblem(survey, ids);
+  if (models.length === 0) throw new RangeError(`fitSurvey: none of the models ${ids.join(', ')} can be fitted to a 3-D map; ask for loop, thick-coil, solenoid, coil-pair or dipole`);
   checkFixedParameters(models, options.fixed ?? {});
-  const uncertainty = readingUncertainty(survey, options.instrumentUncertainty);
+  const uncertainty = readingUncertainty(fitted, options.instrumentUncertainty);
   const position = options.positionUncertainty ?? 0;
   if (!(position >= 0) || !Number.isFinite(position)) {
     throw new RingfallError('FIT_POSITION_UNCERTAINTY', `Position uncertainty: ${position} m is not a length ≥ 0 (--position-uncertainty). Give it like "0.5mm".`, { value: position });
@@ -46,10 +48,9 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
       { value: position },
     );
   }
-  const points = surveyPoints(survey);
   const seed = options.seed ?? 1;
-  const fits = models.map((model) => fitModel(model, survey, points, uncertainty.standardUncertainty, options, seed + modelIds.indexOf(model.id)));
-  return withAkaikeWeights(fits);
+  const fits = models.map((model) => fitModel(model, fitted, points, uncertainty.standardUncertainty, options, seed + modelIds.indexOf(model.id)));
+  return withAkaikeWeights(survey.axis === 'map' ? fits.map((fit) => withMapPoints(fit, fitted, isVectorMap(survey))) : fits);
 }
 
 /**
@@ -58,8 +59,8 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
  * the scatter of the residuals (DOMAIN.md §7.4).
  */
 export function fitSurveyNotes(survey: Survey, options: FitSurveyOptions = {}): string[] {
-  const uncertainty = readingUncertainty(survey, options.instrumentUncertainty);
-  const notes = [...uncertainty.notes];
+  const uncertainty = readingUncertainty(surveyProblem(survey, []).survey, options.instrumentUncertainty);
+  const notes = [...uncertainty.notes, ...omittedModelNote(surveyProblem(survey, options.models ?? defaultModels).omitted)];
   if (uncertainty.standardUncertainty === null) {
     notes.push('No uncertainty was given for the readings: every reading weighs the same and the intervals are scaled by the scatter of the residuals. Give the meter\'s accuracy (--uncertainty 1.5%+2µT) to weight readings and test the scatter against it.');
   } else if ((options.positionUncertainty ?? 0) > 0) {

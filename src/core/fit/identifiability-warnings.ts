@@ -1,3 +1,4 @@
+import { isBackgroundParameter, isPlacementParameter } from '../models/placement';
 import type { ModelId } from '../models/field-model';
 import { formatNumber } from '../units/format-quantity';
 import type { FitWarningInput } from './fit-warnings';
@@ -19,6 +20,12 @@ const remedy: Readonly<Record<string, string>> = {
   centre: 'add readings on both sides of the coil, through its centre',
   background: 'add readings far from the coil or one with the coil switched off, or fix it (--fix background=…)',
   exponent: 'a power law\'s exponent needs readings over a wider range of distances',
+  lateralCentre: 'add readings on both sides of the axis, across the coil',
+  centreX: 'add readings on all sides of the coil',
+  centreY: 'add readings on all sides of the coil',
+  centreZ: 'add readings on both sides of the coil along its axis, or fix it (--fix centreZ=…)',
+  tilt: 'add readings off the axis and around the coil (vector readings show the axis best)',
+  azimuth: 'with the axis along the map\'s z (tilt near 0) the azimuth has no meaning; otherwise add readings around the coil',
 };
 
 /**
@@ -34,7 +41,7 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
   const warnings: string[] = [];
   const freeNames = solution.freeIndices.map((j) => model.parameters[j]!.name);
   const undetermined = freeNames.filter((name) => params[name]?.determined === false);
-  const isCoil = (name: string) => model.physical && name !== 'probeOffset' && name !== 'centre' && name !== 'background';
+  const isCoil = (name: string) => model.physical && !isPlacementParameter(name) && !isBackgroundParameter(name);
   const coil = undetermined.filter(isCoil);
   const k = freeNames.length;
   const correlationOf = (a: string, b: string): number | null => {
@@ -103,7 +110,7 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
 function largestLength(input: FitWarningInput): { name: string; value: number } | null {
   let best: { name: string; value: number } | null = null;
   input.model.parameters.forEach((spec, j) => {
-    if (spec.unit !== 'm' || spec.name === 'probeOffset' || spec.name === 'centre') return;
+    if (spec.unit !== 'm' || isPlacementParameter(spec.name)) return;
     const value = Math.abs(input.solution.params[j]!);
     if (best === null || value > best.value) best = { name: spec.name, value };
   });
@@ -115,6 +122,12 @@ function nearestFieldPoint(input: FitWarningInput): number {
   const offset = input.params['probeOffset']?.value ?? 0;
   const centre = input.params['centre']?.value;
   let nearest = Infinity;
+  const map = input.points.map;
+  if (map !== undefined && input.params['centreX'] !== undefined) {
+    const [x, y, z] = [input.params['centreX'].value, input.params['centreY']?.value ?? 0, input.params['centreZ']?.value ?? 0];
+    for (let i = 0; i < input.points.n; i++) nearest = Math.min(nearest, Math.hypot(map.x[i]! - x, map.y[i]! - y, map.z[i]! - z));
+    return nearest;
+  }
   for (let i = 0; i < input.points.n; i++) {
     const axial = centre === undefined ? input.points.distance[i]! + offset : input.points.distance[i]! - centre;
     nearest = Math.min(nearest, Math.hypot(axial, input.points.radial[i]!));

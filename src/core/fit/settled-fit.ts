@@ -1,3 +1,4 @@
+import { isPlacementParameter } from '../models/placement';
 import type { FieldModel, SurveyPoints } from '../models/field-model';
 import { surveyReach } from '../models/initial-guess';
 import type { LeastSquaresSolution } from './least-squares-types';
@@ -48,7 +49,7 @@ export function settledFit(
   for (const j of fit.freeIndices) {
     const spec = model.parameters[j]!;
     const size = Math.abs(fit.params[j]!);
-    if (spec.unit === 'm' && spec.name !== 'probeOffset' && spec.name !== 'centre' && !(size >= 1e-3 * reach && size <= 100 * reach)) return false;
+    if (spec.unit === 'm' && !isPlacementParameter(spec.name) && !(size >= 1e-3 * reach && size <= 100 * reach)) return false;
   }
   const norm = Math.sqrt(fit.chiSquare);
   for (let c = 0; c < k; c++) {

@@ -16,7 +16,7 @@ export type ModelId =
   | 'inverse-cube';
 
 /** Unit of a parameter in SI, as it appears in the JSON report. */
-export type ParameterUnit = 'A' | 'm' | 'T' | 'A·m²' | '1' | 'T·m^n';
+export type ParameterUnit = 'A' | 'm' | 'T' | 'A·m²' | '1' | 'T·m^n' | 'rad';
 
 export interface ParameterSpec {
   /** Name used in --fix, spec files and JSON (camelCase: ampereTurns, radius, probeOffset). */
@@ -40,6 +40,17 @@ export interface SurveyPoints {
   readonly radial: Float64Array;
   readonly field: Float64Array;
   readonly kind: 'magnitude' | 'axial';
+  /**
+   * A 3-D map's positions (m, the map's frame; Survey.axis 'map'), one per point, read by
+   * poseModel (pose-model.ts) in place of distance and radial; absent otherwise.
+   */
+  readonly map?: {
+    readonly x: Float64Array;
+    readonly y: Float64Array;
+    readonly z: Float64Array;
+    /** What each point reads: 0, 1, 2 the map's x, y, z component of B; −1 the magnitude |B|. */
+    readonly component: Int8Array;
+  };
 }
 
 export interface FieldModel {

@@ -25,6 +25,8 @@ export interface Reading {
   readonly radial: number;
   /** The reading used for fitting, T (see FieldKind). */
   readonly field: number;
+  /** Position in a 3-D map's frame (m), when the survey is a map (Survey.axis 'map'); distance is then z and radial √(x² + y²). */
+  readonly position?: { readonly x: number; readonly y: number; readonly z: number };
   /** Components as read, T, when the file gave Bx/By/Bz. */
   readonly components?: { readonly x: number; readonly y: number; readonly z: number };
   /** Standard uncertainty of this reading from the file, T. */
@@ -81,9 +83,18 @@ export interface Survey {
    * What a reading's `distance` is: absent or 'distance', measured outward from the model's
    * datum (winding plane, midpoint or near face); 'position', a signed position along the
    * axis from any ruler zero (a scan through the coil), fitted with the coil centre's
-   * position on that ruler (parameter `centre`) in place of the probe offset.
+   * position on that ruler (parameter `centre`) in place of the probe offset; 'map', a 3-D
+   * map: every reading has a `position` (x, y, z) and the coil's pose is fitted.
    */
-  readonly axis?: 'distance' | 'position';
+  readonly axis?: 'distance' | 'position' | 'map';
+  /**
+   * 'position' for a transverse scan: each reading's `radial` is a signed position across
+   * the coil on a lateral ruler from any zero, fitted with the axis's position on that
+   * ruler (parameter `lateralCentre`). Absent otherwise (radial offsets from the axis).
+   * With `axis` 'map' the readings carry x, y, z instead ('map': the coil's pose is fitted:
+   * centreX, centreY, centreZ, tilt, azimuth).
+   */
+  readonly lateral?: 'position';
   /** Units the file's columns were in; absent for surveys not read from a file (synthetic ones): reports then choose units from the values. */
   readonly units?: SurveyUnits;
 }
