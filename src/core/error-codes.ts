@@ -47,6 +47,7 @@ export const problemCodes = {
   IMPORT_NO_FIELD: 'no field column',
   IMPORT_COLUMN_CONFLICT: 'more than one column for the same role',
   IMPORT_COMPONENTS_INCOMPLETE: 'some but not all of Bx, By, Bz',
+  IMPORT_MAP_INCOMPLETE: 'a y column without an x column (a 3-D map needs x, y and z)',
   IMPORT_MAPPING: 'a column mapping that names no column or an unknown role',
   IMPORT_METADATA: 'a metadata value (a date) that cannot be read',
   IMPORT_DISTANCE_UNIT_MISSING: 'a distance column with no unit',

@@ -7,17 +7,17 @@ import type { FileOutcome } from './pipeline';
 /** The roles a column can be given here; 'position' is the distance column read as signed ruler positions (a scan). */
 type PageRole = ColumnRole | 'position';
 
-const roles: readonly PageRole[] = ['distance', 'position', 'radial', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
+const roles: readonly PageRole[] = ['distance', 'position', 'radial', 'lateral', 'y', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
 
 const roleWords: Readonly<Record<PageRole | 'ignore', string>> = {
-  distance: 'distance along the axis', position: 'position on a ruler through the coil (a scan)', radial: 'radial offset', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
+  distance: 'distance along the axis', position: 'position on a ruler through the coil (a scan)', radial: 'radial offset', lateral: 'position across the coil (a transverse scan; x of a 3-D map)', y: 'y of a 3-D map', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
   bx: 'component Bx', by: 'component By', bz: 'component Bz (axial)', uncertainty: 'reading uncertainty', coil: 'coil id', date: 'date',
   reading: 'detector type (dc/rms/peak)', ignore: 'not used',
 };
 
 /** Which units a role takes: lengths, fields, or none. */
 function unitsFor(role: PageRole | 'ignore'): readonly string[] {
-  if (role === 'distance' || role === 'position' || role === 'radial') return unitsOfKind('length');
+  if (role === 'distance' || role === 'position' || role === 'radial' || role === 'lateral' || role === 'y') return unitsOfKind('length');
   if (['field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty'].includes(role)) return unitsOfKind('field');
   return [];
 }

@@ -9,6 +9,10 @@ export interface PackedPoints {
   readonly count: number;
   /** 1/0 per reading when the fit flagged outliers, else null (no `outlier` key). */
   readonly outliers: Uint8Array | null;
+  /** A 3-D map's x, y, z per reading (3·count), else null. */
+  readonly positions?: Float64Array | null;
+  /** A vector map's component per point (0, 1, 2 for x, y, z), else null. */
+  readonly components?: Int8Array | null;
 }
 
 /** A Report whose fits carry `packed` columns in place of `points`. */
@@ -32,7 +36,11 @@ export function packReport(report: Report): { message: PackedReport; transfer: A
     const columns = new Float64Array(count * fields);
     const hasOutliers = count > 0 && 'outlier' in fit.points[0]!;
     const outliers = hasOutliers ? new Uint8Array(count) : null;
+    const positions = count > 0 && fit.points[0]!.position !== undefined ? new Float64Array(3 * count) : null;
+    const components = count > 0 && fit.points[0]!.component !== undefined ? new Int8Array(count) : null;
     fit.points.forEach((p, i) => {
+      if (positions) positions.set([p.position?.x ?? Number.NaN, p.position?.y ?? Number.NaN, p.position?.z ?? Number.NaN], 3 * i);
+      if (components) components[i] = p.component === 'x' ? 0 : p.component === 'y' ? 1 : 2;
       columns[i] = p.line;
       columns[count + i] = p.distance;
       columns[2 * count + i] = p.radial;
@@ -44,7 +52,9 @@ export function packReport(report: Report): { message: PackedReport; transfer: A
     });
     transfer.push(columns.buffer as ArrayBuffer);
     if (outliers) transfer.push(outliers.buffer as ArrayBuffer);
-    return { columns, count, outliers };
+    if (positions) transfer.push(positions.buffer as ArrayBuffer);
+    if (components) transfer.push(components.buffer as ArrayBuffer);
+    return { columns, count, outliers, positions, components };
   }));
   const stripped: Report = { ...report, surveys: report.surveys.map((survey) => ({ ...survey, fits: survey.fits.map((fit) => ({ ...fit, points: [] })) })) };
   return { message: { report: stripped, packed }, transfer };
@@ -62,7 +72,7 @@ export function unpackReport(message: PackedReport): Report {
   };
 }
 
-function unpackPoints({ columns, count, outliers }: PackedPoints): FitPoint[] {
+function unpackPoints({ columns, count, outliers, positions, components }: PackedPoints): FitPoint[] {
   const points: FitPoint[] = new Array(count);
   for (let i = 0; i < count; i++) {
     const sigma = columns[6 * count + i]!;
@@ -70,7 +80,9 @@ function unpackPoints({ columns, count, outliers }: PackedPoints): FitPoint[] {
       line: columns[i]!, distance: columns[count + i]!, radial: columns[2 * count + i]!, field: columns[3 * count + i]!,
       predicted: columns[4 * count + i]!, residual: columns[5 * count + i]!, standardUncertainty: Number.isNaN(sigma) ? null : sigma,
     };
-    points[i] = outliers ? { ...point, outlier: outliers[i] === 1 } : point;
+    const withOutlier = outliers ? { ...point, outlier: outliers[i] === 1 } : point;
+    const placed = positions ? { ...withOutlier, position: { x: positions[3 * i]!, y: positions[3 * i + 1]!, z: positions[3 * i + 2]! } } : withOutlier;
+    points[i] = components ? { ...placed, component: (['x', 'y', 'z'] as const)[components[i]!]! } : placed;
   }
   return points;
 }

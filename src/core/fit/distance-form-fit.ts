@@ -1,5 +1,6 @@
 import { nearFaceModels } from '../models/scan-model';
 import type { FitResult } from './fit-result';
+import { lateralDistanceForm, poseDistanceForm } from './frame-distance-form';
 
 /**
  * A fit of a scan (signed ruler positions, parameter `centre`) restated in the catalog's
@@ -33,7 +34,12 @@ export function distanceFormFit(fit: FitResult): FitResult {
   };
 }
 
-/** The fit as analyses read it: a scan fit in distance form (distanceFormFit), any other as it is. */
+/**
+ * The fit as analyses read it: a 3-D map's fit (poseDistanceForm), a transverse scan's
+ * (lateralDistanceForm) and a scan's (distanceFormFit) in distance form, any other as it is.
+ */
 export function inDistanceForm(fit: FitResult): FitResult {
-  return fit.params['centre'] === undefined ? fit : distanceFormFit(fit);
+  if (fit.params['tilt'] !== undefined) return poseDistanceForm(fit);
+  const folded = lateralDistanceForm(fit);
+  return folded.params['centre'] === undefined ? folded : distanceFormFit(folded);
 }

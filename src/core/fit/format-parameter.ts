@@ -11,5 +11,6 @@ import { formatNumber, formatQuantity } from '../units/format-quantity';
 export function formatParameter(value: number, unit: ParameterUnit, significant = 4): string {
   const kind = parameterQuantityKind(unit);
   if (kind !== null) return formatQuantity(value, kind, { significant });
+  if (unit === 'rad') return `${formatNumber((value * 180) / Math.PI, significant)}°`;
   return unit === '1' ? formatNumber(value, significant) : `${formatNumber(value, significant)} ${unit}`;
 }

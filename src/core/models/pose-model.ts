@@ -160,100 +160,120 @@ interface PoseLayout {
   readonly source: readonly number[];
 }
 
+/** Most readings the start looks at (an even subsample of a larger map). */
+const START_READINGS = 160;
+
 /**
- * Data-driven start of a pose fit. The readings are grouped by position (the components
- * of one vector reading share it); the axis n starts along the field at the strongest
- * reading (vector), or along +z tilted a little towards the strongest reading's side
- * (magnitude: |B| cannot show the axis's direction at one point); the centre is sought
- * on the line through the strongest reading along n, at offsets s = 0 and ± a log-spaced
- * 2 %…100 % of the map's extent: at each the readings are folded into the coil's
+ * Data-driven start of a pose fit, on an even subsample of at most 160 readings (the
+ * components of one vector reading share a position and stay together). Axis candidates:
+ * along the field at the strongest reading and along the sum of all field vectors (vector
+ * readings; the axis and its opposite are one coil), and the map's +z tilted a little
+ * (|B| cannot show the axis's direction at one point). For each, the centre is sought on
+ * the line through the strongest reading along that axis, at offsets s = 0 and ± a
+ * log-spaced 2 %…100 % of the map's extent: the readings are folded into the coil's
  * (|u|, ρ) as a distance survey of magnitudes, the model's own initialGuess gives its
- * parameters, and the offset whose prediction leaves the smallest squared misfit (with
- * the best amplitude factor and background solved in closed form) is kept.
+ * parameters, and the candidate whose prediction leaves the smallest squared misfit (the
+ * best amplitude factor, and for magnitudes the background, solved in closed form) is kept.
  */
 function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, layout: PoseLayout): Float64Array {
   const map = points.map!;
+  const groups: number[] = [];
+  for (let i = 0; i < points.n;) {
+    let j = i + 1;
+    while (j < points.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
+    groups.push(i, j);
+    i = j;
+  }
+  const stride = Math.max(1, Math.ceil(groups.length / 2 / START_READINGS));
+  const kept: number[] = [];
+  for (let g = 0; g < groups.length; g += 2 * stride) for (let i = groups[g]!; i < groups[g + 1]!; i++) kept.push(i);
+  const pick = (array: Float64Array) => Float64Array.from(kept, (i) => array[i]!);
+  const sample: SurveyPoints = {
+    n: kept.length, distance: pick(points.distance), radial: pick(points.radial), field: pick(points.field), kind: points.kind,
+    map: { x: pick(map.x), y: pick(map.y), z: pick(map.z), component: Int8Array.from(kept, (i) => map.component[i]!) },
+  };
   const positions: number[] = [];
   const magnitudes: number[] = [];
   const vectors: number[] = [];
-  for (let i = 0; i < points.n;) {
-    const x = map.x[i]!;
-    const y = map.y[i]!;
-    const z = map.z[i]!;
+  const sum = [0, 0, 0];
+  for (let g = 0; g < groups.length; g += 2) {
     const v = [0, 0, 0];
     let magnitude = Number.NaN;
-    let j = i;
-    for (; j < points.n && map.x[j] === x && map.y[j] === y && map.z[j] === z; j++) {
-      const c = map.component[j]!;
-      if (c < 0) magnitude = Math.abs(points.field[j]!);
-      else v[c] = points.field[j]!;
+    for (let i = groups[g]!; i < groups[g + 1]!; i++) {
+      const c = map.component[i]!;
+      if (c < 0) magnitude = Math.abs(points.field[i]!);
+      else v[c] = points.field[i]!;
     }
-    positions.push(x, y, z);
+    const first = groups[g]!;
+    positions.push(map.x[first]!, map.y[first]!, map.z[first]!);
     vectors.push(...v);
     magnitudes.push(Number.isNaN(magnitude) ? Math.hypot(v[0]!, v[1]!, v[2]!) : magnitude);
-    i = j;
   }
   const count = magnitudes.length;
   let peak = 0;
   for (let r = 1; r < count; r++) if (magnitudes[r]! > magnitudes[peak]!) peak = r;
+  // the field vectors summed with their signs made to agree with the strongest one's
+  for (let r = 0; r < count; r++) {
+    const agree = vectors[3 * r]! * vectors[3 * peak]! + vectors[3 * r + 1]! * vectors[3 * peak + 1]! + vectors[3 * r + 2]! * vectors[3 * peak + 2]! < 0 ? -1 : 1;
+    for (let k = 0; k < 3; k++) sum[k] = sum[k]! + agree * vectors[3 * r + k]!;
+  }
   let extent = 0;
   for (let r = 0; r < count; r++) {
     extent = Math.max(extent, Math.hypot(positions[3 * r]! - positions[3 * peak]!, positions[3 * r + 1]! - positions[3 * peak]!, positions[3 * r + 2]! - positions[3 * peak]!));
   }
   if (!(extent > 0)) extent = 0.05;
-  let tilt = 0.05;
-  let azimuth = 0;
+  const directions: [number, number][] = [[0.05, 0]];
   if (layout.vector) {
-    const [vx, vy, vz] = [vectors[3 * peak]!, vectors[3 * peak + 1]!, vectors[3 * peak + 2]!];
-    const size = Math.hypot(vx, vy, vz);
-    if (size > 0) {
-      tilt = Math.acos(Math.max(-1, Math.min(1, vz / size)));
-      azimuth = Math.atan2(vy, vx);
+    for (const v of [vectors.slice(3 * peak, 3 * peak + 3), sum]) {
+      const size = Math.hypot(v[0]!, v[1]!, v[2]!);
+      if (size > 0) directions.push([Math.acos(Math.max(-1, Math.min(1, v[2]! / size))), Math.atan2(v[1]!, v[0]!)]);
     }
   }
   const axis = new Float64Array(3);
-  axisDirection(tilt, azimuth, axis);
   const frame = new Float64Array(5);
   const distance = new Float64Array(count);
   const radial = new Float64Array(count);
-  const field = Float64Array.from(magnitudes);
-  const folded: SurveyPoints = { n: count, distance, radial, field, kind: 'magnitude' };
-  const predicted = new Float64Array(points.n);
+  const folded: SurveyPoints = { n: count, distance, radial, field: Float64Array.from(magnitudes), kind: 'magnitude' };
+  const predicted = new Float64Array(sample.n);
   const offsets = [0];
-  for (let s = 0; s < 12; s++) {
-    const step = extent * 0.02 * 50 ** (s / 11);
+  for (let s = 0; s < 7; s++) {
+    const step = extent * 0.02 * 50 ** (s / 6);
     offsets.push(step, -step);
   }
   let best: Float64Array | null = null;
   let bestCost = Infinity;
   const start = new Float64Array(model.parameters.length);
-  for (const s of offsets) {
-    const centre = [positions[3 * peak]! - s * axis[0]!, positions[3 * peak + 1]! - s * axis[1]!, positions[3 * peak + 2]! - s * axis[2]!];
-    for (let r = 0; r < count; r++) {
-      coilFrame(positions[3 * r]!, positions[3 * r + 1]!, positions[3 * r + 2]!, centre, axis, frame);
-      distance[r] = Math.abs(frame[0]!);
-      radial[r] = frame[1]!;
-    }
-    const guess = base.initialGuess(folded);
-    if (!guess.every(Number.isFinite)) continue;
-    start.fill(0);
-    for (let k = 0; k < layout.source.length; k += 2) start[layout.source[k + 1]!] = guess[layout.source[k]!]!;
-    start.set(centre, layout.pose);
-    start[layout.pose + 3] = tilt;
-    start[layout.pose + 4] = azimuth;
-    model.evaluate(start, points, predicted);
-    const cost = scaledMisfit(points, predicted, layout.vector);
-    if (cost.misfit < bestCost) {
-      bestCost = cost.misfit;
-      for (const j of amplitudeIndices(model)) start[j] = start[j]! * cost.scale;
-      if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
-      best = Float64Array.from(start);
+  const amplitudes = amplitudeIndices(model);
+  for (const [tilt, azimuth] of directions) {
+    axisDirection(tilt, azimuth, axis);
+    for (const s of offsets) {
+      const centre = [positions[3 * peak]! - s * axis[0]!, positions[3 * peak + 1]! - s * axis[1]!, positions[3 * peak + 2]! - s * axis[2]!];
+      for (let r = 0; r < count; r++) {
+        coilFrame(positions[3 * r]!, positions[3 * r + 1]!, positions[3 * r + 2]!, centre, axis, frame);
+        distance[r] = Math.abs(frame[0]!);
+        radial[r] = frame[1]!;
+      }
+      const guess = base.initialGuess(folded);
+      if (!guess.every(Number.isFinite)) continue;
+      start.fill(0);
+      for (let k = 0; k < layout.source.length; k += 2) start[layout.source[k + 1]!] = guess[layout.source[k]!]!;
+      start.set(centre, layout.pose);
+      start[layout.pose + 3] = tilt;
+      start[layout.pose + 4] = azimuth;
+      model.evaluate(start, sample, predicted);
+      const cost = scaledMisfit(sample, predicted, layout.vector);
+      if (cost.misfit < bestCost) {
+        bestCost = cost.misfit;
+        for (const j of amplitudes) start[j] = start[j]! * cost.scale;
+        if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
+        best = Float64Array.from(start);
+      }
     }
   }
   if (best === null) {
     best = new Float64Array(model.parameters.length);
-    best.set([positions[3 * peak]!, positions[3 * peak + 1]!, positions[3 * peak + 2]!, tilt, azimuth], layout.pose);
-    for (const j of amplitudeIndices(model)) best[j] = 1;
+    best.set([positions[3 * peak]!, positions[3 * peak + 1]!, positions[3 * peak + 2]!, 0.05, 0], layout.pose);
+    for (const j of amplitudes) best[j] = 1;
   }
   return best;
 }

@@ -62,6 +62,7 @@ export function buildSurveyReport(survey: Survey, fits: readonly FitResult[], ex
     warnings,
     cautions: extras.cautions ?? [],
     notes: [...survey.notes, ...(extras.notes ?? [])],
-    ...(survey.axis === 'position' ? { axis: 'position' as const } : {}),
+    ...(survey.axis === 'position' || survey.axis === 'map' ? { axis: survey.axis } : {}),
+    ...(survey.lateral === 'position' ? { lateral: 'position' as const } : {}),
   };
 }

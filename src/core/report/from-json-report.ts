@@ -96,12 +96,17 @@ function pointsFromJson(columns: unknown): FitResult['points'] {
   const column = (name: string) => (Array.isArray(columns[name]) ? (columns[name] as unknown[]) : []);
   const [line, distance, radial, field, predicted, residual, sigma] = ['line', 'distance', 'radial', 'field', 'predicted', 'residual', 'standardUncertainty'].map(column) as unknown[][];
   const outlier = Array.isArray(columns['outlier']) ? (columns['outlier'] as unknown[]) : null;
+  const [x, y, z] = ['x', 'y', 'z'].map((name) => (Array.isArray(columns[name]) ? (columns[name] as unknown[]) : null));
+  const component = Array.isArray(columns['component']) ? (columns['component'] as unknown[]) : null;
   return line!.map((_, i) => {
     const point = {
       line: number(line![i]), distance: number(distance![i]), radial: number(radial![i]), field: number(field![i]),
       predicted: number(predicted![i]), residual: number(residual![i]), standardUncertainty: sigma![i] === null || sigma![i] === undefined ? null : number(sigma![i]),
     };
-    return outlier ? { ...point, outlier: outlier[i] === true } : point;
+    const withOutlier = outlier ? { ...point, outlier: outlier[i] === true } : point;
+    const placed = x && y && z ? { ...withOutlier, position: { x: number(x[i]), y: number(y[i]), z: number(z[i]) } } : withOutlier;
+    const read = component?.[i];
+    return read === 'x' || read === 'y' || read === 'z' ? { ...placed, component: read } : placed;
   });
 }
 

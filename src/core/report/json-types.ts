@@ -73,6 +73,12 @@ export interface JsonPoints {
   readonly standardUncertainty: readonly (number | null)[];
   /** Present when a robust fit flagged readings. */
   readonly outlier?: readonly boolean[];
+  /** A 3-D map's positions in the map's frame (m); `distance` is then z and `radial` √(x² + y²). */
+  readonly x?: readonly (number | null)[];
+  readonly y?: readonly (number | null)[];
+  readonly z?: readonly (number | null)[];
+  /** A vector map: the component of the map's frame each point's `field` is (three points per reading). */
+  readonly component?: readonly ('x' | 'y' | 'z')[];
 }
 
 /** A data row the import did not use (`surveys[].readings.rejected[]`). */
@@ -106,9 +112,15 @@ export interface JsonSurvey {
   /**
    * 'position' when the survey is a scan along the axis (signed positions from a ruler's
    * zero, every fit has `centre` in place of `probeOffset`, fit points' `distance` is the
-   * signed position); absent for distances from the datum.
+   * signed position); 'map' for a 3-D map (every fit places the coil by centreX, centreY,
+   * centreZ, tilt and azimuth; fit points carry x, y, z); absent for distances from the datum.
    */
-  readonly axis?: 'position';
+  readonly axis?: 'position' | 'map';
+  /**
+   * 'position' when the survey is a transverse scan (signed positions across the coil from
+   * a lateral ruler's zero in `radial`, every fit has `lateralCentre`); absent otherwise.
+   */
+  readonly lateral?: 'position';
   /** The spec checked, or why none applied; null when no spec file was given. */
   readonly spec: SpecUse | null;
   readonly verdict: Verdict | null;

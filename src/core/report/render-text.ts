@@ -108,8 +108,10 @@ function renderSurvey(survey: SurveyReport): string {
 export function formatEstimate(estimate: ParameterEstimate, units: SurveyUnitChoice = surveyUnits(null)): { value: string; interval: string } {
   const kind = parameterQuantityKind(estimate.unit);
   const reference = Math.max(Math.abs(estimate.value), Math.abs(estimate.ci95?.[0] ?? 0), Math.abs(estimate.ci95?.[1] ?? 0));
-  const unit = kind ? units.unit(kind, reference === 0 ? estimate.value : reference) : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
-  const show = (x: number) => `${formatNumber(x / unit.factor, 4)}${unit.symbol ? ' ' + unit.symbol : ''}`;
+  // angles (a 3-D map's tilt and azimuth, SI radians) are shown in degrees
+  const unit = kind ? units.unit(kind, reference === 0 ? estimate.value : reference)
+    : estimate.unit === 'rad' ? { symbol: '°', factor: Math.PI / 180 } : { symbol: estimate.unit === '1' ? '' : estimate.unit, factor: 1 };
+  const show = (x: number) => `${formatNumber(x / unit.factor, 4)}${unit.symbol === '°' ? '°' : unit.symbol ? ' ' + unit.symbol : ''}`;
   let interval: string;
   if (estimate.fixed) interval = 'fixed';
   else if (!estimate.determined) interval = 'not determined by these readings';

@@ -48,8 +48,14 @@ export interface SurveyReport {
   readonly cautions: readonly string[];
   /** Importer notes (units read, sign flipped, …). */
   readonly notes: readonly string[];
-  /** 'position' for a scan (Survey.axis): readings at signed ruler positions, the coil's `centre` fitted. Absent otherwise. */
-  readonly axis?: 'position';
+  /**
+   * 'position' for a scan (Survey.axis): readings at signed ruler positions, the coil's
+   * `centre` fitted; 'map' for a 3-D map: readings at x, y, z, the coil's pose fitted.
+   * Absent otherwise.
+   */
+  readonly axis?: 'position' | 'map';
+  /** 'position' for a transverse scan (Survey.lateral): signed positions across the coil, `lateralCentre` fitted. Absent otherwise. */
+  readonly lateral?: 'position';
 }
 
 export interface Report {

@@ -52,6 +52,7 @@ function surveyToJson(survey: SurveyReport, report: Report): JsonSurvey {
     notes: survey.notes,
     cautions: survey.cautions,
     ...(survey.axis === undefined ? {} : { axis: survey.axis }),
+    ...(survey.lateral === undefined ? {} : { lateral: survey.lateral }),
   };
 }
 
@@ -122,6 +123,11 @@ function pointsToJson(points: FitResult['points']): JsonPoints {
     residual: column((p) => p.residual),
     standardUncertainty: column((p) => p.standardUncertainty),
     ...(points.length > 0 && 'outlier' in points[0]! ? { outlier: points.map((p) => p.outlier === true) } : {}),
+    // a 3-D map's positions and, for vector readings, the component each point holds
+    ...(points.length > 0 && points[0]!.position !== undefined ? {
+      x: column((p) => p.position?.x ?? null), y: column((p) => p.position?.y ?? null), z: column((p) => p.position?.z ?? null),
+    } : {}),
+    ...(points.length > 0 && points[0]!.component !== undefined ? { component: points.map((p) => p.component ?? 'z') } : {}),
   };
 }
 

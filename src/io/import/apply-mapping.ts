@@ -2,7 +2,7 @@ import type { RingfallError } from '../../core/errors';
 import { importError, place } from './import-errors';
 import type { ColumnDetection, ColumnRole, ImportOptions } from './import-types';
 
-const roles: readonly string[] = ['distance', 'radial', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
+const roles: readonly string[] = ['distance', 'radial', 'lateral', 'y', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
 
 /**
  * Apply hand-made column assignments (the web page's column mapping) over detection.

@@ -2,7 +2,7 @@ import type { RingfallError } from '../../core/errors';
 import type { FieldKind, SurveyUnits } from '../../core/survey/survey';
 import { displaySymbol } from '../../core/units';
 import { applyMapping } from './apply-mapping';
-import { distanceColumnAxis, exampleNames } from './header-names';
+import { distanceColumnAxis, exampleNames, lateralColumnAxis } from './header-names';
 import { importError, place } from './import-errors';
 import type { ColumnDetection, ColumnRole, ImportOptions } from './import-types';
 import { shorten } from './read-number';
@@ -33,7 +33,17 @@ export interface ColumnLayout {
    * negative, 'scan' always a scan. Positions may be negative.
    */
   readonly distanceAxis: 'distance' | 'position' | 'scan';
+  /** The radial-offset column, or the lateral column (signed positions across the coil; a 3-D map's x). */
   readonly radial: NumericColumn | null;
+  /**
+   * What the radial column holds: 'offset' radial offsets from the axis (a negative value
+   * is read as its absolute value), 'position' a lateral position ("x"), a transverse scan
+   * when any value is negative, 'scan' always a transverse scan (lateralColumnAxis), 'map'
+   * the x of a 3-D map (a y column is present).
+   */
+  readonly radialAxis: 'offset' | 'position' | 'scan' | 'map';
+  /** A 3-D map's y column; null otherwise. */
+  readonly y: NumericColumn | null;
   /** The field column (plain B, |B| or a lone Bz); null when components are used. */
   readonly field: NumericColumn | null;
   readonly components: readonly [NumericColumn, NumericColumn, NumericColumn] | null;
@@ -75,9 +85,18 @@ export function detectColumns(headers: readonly string[], headerLine: number, op
   });
   const columns = applyMapping(detected, options, headerLine, problems);
   const fieldKind = chooseFieldKind(columns, notes, problems, options.source, headerLine);
-  for (const role of ['distance', 'radial', 'uncertainty', 'coil', 'date', 'reading'] as const) {
+  for (const role of ['distance', 'radial', 'lateral', 'y', 'uncertainty', 'coil', 'date', 'reading'] as const) {
     const claimed = columns.filter((c) => c.role === role);
     if (claimed.length > 1) problems.push(conflict(role, claimed, options.source, headerLine));
+  }
+  const across = columns.filter((c) => c.role === 'radial' || c.role === 'lateral');
+  if (across.length === 2 && across[0]!.role !== across[1]!.role) problems.push(conflict('radial or lateral', across, options.source, headerLine));
+  if (columns.some((c) => c.role === 'y') && !columns.some((c) => c.role === 'lateral')) {
+    problems.push(importError(
+      'IMPORT_MAP_INCOMPLETE',
+      `A y column without an x column (${place(options.source, headerLine)}): a 3-D map needs x, y and z. Add the x column (named "x"), or remove the y column.`,
+      place(options.source, headerLine),
+    ));
   }
   if (!columns.some((c) => c.role === 'distance')) {
     problems.unshift(importError(
@@ -168,7 +187,9 @@ function buildLayout(columns: readonly ColumnDetection[], factors: readonly numb
     fieldKind,
     distance: numeric('distance') as NumericColumn,
     distanceAxis: columns.find((c) => c.role === 'distance')?.axis ?? distanceColumnAxis(columns.find((c) => c.role === 'distance')?.header ?? ''),
-    radial: numeric('radial'),
+    radial: numeric('radial') ?? numeric('lateral'),
+    radialAxis: numeric('lateral') === null ? 'offset' : numeric('y') !== null ? 'map' : lateralColumnAxis(columns.find((c) => c.role === 'lateral')?.header ?? ''),
+    y: numeric('lateral') === null ? null : numeric('y'),
     field,
     components,
     uncertainty: numeric('uncertainty'),

@@ -15,7 +15,7 @@ import type { SurveyGroup } from './survey-group';
 export function finishSurvey(
   group: SurveyGroup,
   otherReadingTypes: readonly (ReadingType | null)[],
-  context: { readonly source: string; readonly fieldKind: FieldKind; readonly distanceAxis?: 'distance' | 'position' | 'scan'; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
+  context: { readonly source: string; readonly fieldKind: FieldKind; readonly distanceAxis?: 'distance' | 'position' | 'scan'; readonly radialAxis?: 'offset' | 'position' | 'scan' | 'map'; readonly meta: Readonly<Record<string, string>>; readonly fileNotes: readonly string[]; readonly units?: SurveyUnits },
 ): Survey {
   const notes: string[] = [];
   let readings: Reading[] = group.readings;
@@ -45,9 +45,17 @@ export function finishSurvey(
   if (others.length > 0) {
     notes.push(`the same coil and date also has ${others.join(', ')} readings in this file; they form a separate survey, since detector types are never mixed`);
   }
-  const scan = context.distanceAxis === 'scan' || (context.distanceAxis === 'position' && readings.some((reading) => reading.distance < 0));
+  const map = context.radialAxis === 'map';
+  const scan = !map && (context.distanceAxis === 'scan' || (context.distanceAxis === 'position' && readings.some((reading) => reading.distance < 0)));
   if (scan) {
     notes.push('distances read as signed positions along the axis from the ruler\'s zero (a scan through the coil): every reading is used and the position of the coil\'s centre on that ruler is fitted (centre)');
+  }
+  const transverse = !map && (context.radialAxis === 'scan' || (context.radialAxis === 'position' && readings.some((reading) => reading.radial < 0)));
+  if (transverse) {
+    notes.push('lateral values read as signed positions across the coil from the ruler\'s zero (a transverse scan): readings on both sides of the axis are used and the position of the coil\'s axis on that ruler is fitted (lateralCentre)');
+  }
+  if (map) {
+    notes.push(`positions read as x, y, z of a 3-D map: the coil's pose is fitted (centre centreX, centreY, centreZ; axis tilt from +z and azimuth from +x)${context.fieldKind === 'components' ? '; Bx, By, Bz are taken along the map\'s x, y, z and fitted as vectors' : context.fieldKind === 'axial' ? '; a single-axis reading is taken as the component along the map\'s z' : ''}`);
   }
   notes.push(...context.fileNotes);
   return {
@@ -62,6 +70,8 @@ export function finishSurvey(
     meta: context.meta,
     notes,
     ...(scan ? { axis: 'position' as const } : {}),
+    ...(map ? { axis: 'map' as const } : {}),
+    ...(transverse ? { lateral: 'position' as const } : {}),
     ...(context.units ? { units: context.units } : {}),
   };
 }

@@ -15,6 +15,10 @@ const namesByRole: Readonly<Record<ColumnRole, readonly string[]>> = {
     'radial offset', 'radial', 'rho', 'ρ', 'r offset', 'radial distance', 'radial position',
     'lateral offset', 'lateral', 'off axis', 'off axis distance', 'offset radial',
   ],
+  lateral: [
+    'x', 'lateral position', 'transverse position', 'across', 'cross position', 'x position', 'transverse',
+  ],
+  y: ['y', 'y position'],
   field: [
     'b', 'field', 'b field', 'bfield', 'flux density', 'magnetic field', 'magnetic flux density',
     'field strength', 'axial field', 'b axial',
@@ -54,6 +58,34 @@ const positionNames: ReadonlySet<string> = new Set(['position', 'pos', 'axial po
 /** Distance-column names that always mean a signed position on a ruler along the axis (a scan). */
 const scanNames: ReadonlySet<string> = new Set(['scan position', 'ruler position', 'signed position']);
 
+/** Lateral-column names that mean a signed position across the coil only when a value is negative (else a radial offset). */
+const lateralIfNegativeNames: ReadonlySet<string> = new Set(['x']);
+
+/**
+ * What a lateral column's header says: 'position' for "x" (a transverse scan when any
+ * value is negative, else radial offsets from the axis), 'scan' for the names that always
+ * mean a signed position across the coil ("lateral position (mm)", "transverse position",
+ * "across", "cross position", "x position", "transverse"). The unit part is dropped as
+ * for distanceColumnAxis.
+ *
+ * @example lateralColumnAxis('x (mm)') // 'position'
+ */
+export function lateralColumnAxis(header: string): 'position' | 'scan' {
+  return nameCandidates(header).some((name) => lateralIfNegativeNames.has(name)) ? 'position' : 'scan';
+}
+
+/** A header's name with the unit part dropped in each way it may be written. */
+function nameCandidates(header: string): string[] {
+  const normalized = normalizeColumnName(header);
+  const words = normalized.split(' ');
+  return [
+    normalized,
+    normalizeColumnName(header.replace(/\s*[([].*$/u, '')),
+    normalizeColumnName(header.replace(/\s*\/.*$/u, '')),
+    words.slice(0, -1).join(' '),
+  ];
+}
+
 /**
  * What a distance column's header says about its zero: 'scan' for a name that always
  * means a signed ruler position ("scan position (mm)"), 'position' for a name that means
@@ -64,14 +96,7 @@ const scanNames: ReadonlySet<string> = new Set(['scan position', 'ruler position
  * @example distanceColumnAxis('pos_mm') // 'position'
  */
 export function distanceColumnAxis(header: string): 'distance' | 'position' | 'scan' {
-  const normalized = normalizeColumnName(header);
-  const words = normalized.split(' ');
-  const candidates = [
-    normalized,
-    normalizeColumnName(header.replace(/\s*[([].*$/u, '')),
-    normalizeColumnName(header.replace(/\s*\/.*$/u, '')),
-    words.slice(0, -1).join(' '),
-  ];
+  const candidates = nameCandidates(header);
   if (candidates.some((name) => scanNames.has(name))) return 'scan';
   if (candidates.some((name) => positionNames.has(name))) return 'position';
   return 'distance';
@@ -102,6 +127,8 @@ export function unitKindOf(role: ColumnRole): 'length' | 'field' | null {
   switch (role) {
     case 'distance':
     case 'radial':
+    case 'lateral':
+    case 'y':
       return 'length';
     case 'field':
     case 'magnitude':

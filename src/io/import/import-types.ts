@@ -8,10 +8,14 @@ import type { FieldKind, RejectedRow, Survey } from '../../core/survey/survey';
 /**
  * What a column holds. `field` is a signed single-axis reading (plain `B`), `magnitude`
  * a |B| column, `bx`/`by`/`bz` components (all three → magnitude; `bz` alone → axial).
+ * `lateral` is a signed position across the coil (a transverse scan; with `y`, the x of a
+ * 3-D map whose z is the distance column), `y` a 3-D map's y.
  */
 export type ColumnRole =
   | 'distance'
   | 'radial'
+  | 'lateral'
+  | 'y'
   | 'field'
   | 'magnitude'
   | 'bx'

@@ -29,7 +29,7 @@ export function readRow(cells: readonly string[], line: number, context: RowCont
     group.rejected.push({ line, column: outcome.column, value: outcome.value, reason: outcome.reason, code: outcome.code });
     return;
   }
-  if (outcome.radial < 0) {
+  if (outcome.radial < 0 && layout.radialAxis === 'offset') {
     group.negativeRadial += 1;
     group.readings.push({ ...outcome, radial: -outcome.radial });
     return;
@@ -72,7 +72,7 @@ function decimalCommaHint(cells: readonly string[], width: number, decimalComma:
 function readNumbers(cells: readonly string[], line: number, layout: ColumnLayout, decimalComma: boolean): Reading | Problem {
   const distance = readColumn(cells, layout.distance, decimalComma);
   if (typeof distance !== 'number') return distance;
-  if (distance < 0 && layout.distanceAxis === 'distance') {
+  if (distance < 0 && layout.distanceAxis === 'distance' && layout.y === null) {
     return problem(cells, layout.distance, 'ROW_NEGATIVE_DISTANCE',
       'is negative; distances are measured outward from the coil (winding plane or near face). Put readings from the other side in their own survey with positive distances, or, for a scan through the coil, name the column "position" so that signed positions along the axis are used.');
   }
@@ -83,6 +83,14 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     if (typeof value !== 'number') return value;
     if (Math.abs(value) > maximumDistance) return problem(cells, layout.radial, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
     radial = value;
+  }
+  let position: Reading['position'];
+  if (layout.y) {
+    const y = readColumn(cells, layout.y, decimalComma);
+    if (typeof y !== 'number') return y;
+    if (Math.abs(y) > maximumDistance) return problem(cells, layout.y, 'ROW_IMPLAUSIBLE', `is more than ${maximumDistance} m; check the cell and the column's unit.`);
+    position = { x: radial, y, z: distance };
+    radial = Math.hypot(radial, y);
   }
   let field = 0;
   let components: Reading['components'];
@@ -114,6 +122,11 @@ function readNumbers(cells: readonly string[], line: number, layout: ColumnLayou
     }
     if (value > maximumField) return problem(cells, layout.uncertainty, 'ROW_IMPLAUSIBLE', `is more than ${maximumField} T; check the cell and the column's unit.`);
     standardUncertainty = value;
+  }
+  if (position) {
+    // a 3-D map's reading: distance is z and radial √(x² + y²) for views that read them
+    const reading: Reading = components ? { line, distance, radial, field, position, components } : { line, distance, radial, field, position };
+    return standardUncertainty === undefined ? reading : { ...reading, standardUncertainty };
   }
   // One object literal per shape, so readings are built without later property additions.
   if (components) return standardUncertainty === undefined ? { line, distance, radial, field, components } : { line, distance, radial, field, components, standardUncertainty };

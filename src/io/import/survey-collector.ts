@@ -21,6 +21,7 @@ export class SurveyCollector {
       readonly source: string;
       readonly fieldKind: FieldKind;
       readonly distanceAxis?: 'distance' | 'position' | 'scan';
+      readonly radialAxis?: 'offset' | 'position' | 'scan' | 'map';
       readonly meta: Readonly<Record<string, string>>;
       readonly fileNotes: readonly string[];
       readonly units?: SurveyUnits;

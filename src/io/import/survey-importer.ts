@@ -102,7 +102,7 @@ export class SurveyImporter {
       headers: layout.detection.columns.map((c) => c.header),
       used: layout.detection.columns.map((c) => c.role !== null),
       defaults: layout.defaults,
-      collector: new SurveyCollector({ source: this.options.source, fieldKind: columnLayout.fieldKind, distanceAxis: columnLayout.distanceAxis, meta: layout.meta, fileNotes: layout.detection.notes, units: columnLayout.units }),
+      collector: new SurveyCollector({ source: this.options.source, fieldKind: columnLayout.fieldKind, distanceAxis: columnLayout.distanceAxis, radialAxis: columnLayout.radialAxis, meta: layout.meta, fileNotes: layout.detection.notes, units: columnLayout.units }),
     };
     const config = { delimiter: layout.delimiter, newline: layout.preamble.newline };
     this.stepParser = new Papa.Parser({ ...config, step: (results: StepResults) => this.stepRow(results) } as Papa.ParseConfig);

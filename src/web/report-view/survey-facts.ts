@@ -63,6 +63,6 @@ function frameFit(survey: SurveyReport, lookup: ModelLookup): FitResult | null {
  * that fit's coil datum (both sides of the coil folded onto one axis).
  */
 export function chartReadings(survey: SurveyReport, lookup: ModelLookup): FitResult['points'] {
-  const fit = survey.axis === 'position' ? frameFit(survey, lookup) : null;
+  const fit = survey.axis === 'position' || survey.axis === 'map' || survey.lateral === 'position' ? frameFit(survey, lookup) : null;
   return fit ? inDistanceForm(fit).points : readingsFit(survey)?.points ?? [];
 }
