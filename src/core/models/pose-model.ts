@@ -169,11 +169,14 @@ const START_READINGS = 160;
  * along the field at the strongest reading and along the sum of all field vectors (vector
  * readings; the axis and its opposite are one coil), and the map's +z tilted a little
  * (|B| cannot show the axis's direction at one point). For each, the centre is sought on
- * the line through the strongest reading along that axis, at offsets s = 0 and ± a
+ * the lines through the strongest reading and through the |B|²-weighted centroid of the
+ * readings above half the strongest, along that axis, at offsets s = 0 and ± a
  * log-spaced 2 %…100 % of the map's extent: the readings are folded into the coil's
  * (|u|, ρ) as a distance survey of magnitudes, the model's own initialGuess gives its
  * parameters, and the candidate whose prediction leaves the smallest squared misfit (the
  * best amplitude factor, and for magnitudes the background, solved in closed form) is kept.
+ * Last, about that centre, tilts of 0.05, 0.3, 0.6 and 1 rad in four azimuths are tried
+ * (the only direction search a magnitude map gets).
  */
 function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, layout: PoseLayout): Float64Array {
   const map = points.map!;
@@ -244,10 +247,20 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
   let bestCost = Infinity;
   const start = new Float64Array(model.parameters.length);
   const amplitudes = amplitudeIndices(model);
+  // lines through the strongest reading and through the |B|²-weighted centroid of the readings above half the peak
+  const centroid = [0, 0, 0];
+  let weights = 0;
+  for (let r = 0; r < count; r++) {
+    if (!(magnitudes[r]! >= 0.5 * magnitudes[peak]!)) continue;
+    const w = magnitudes[r]! ** 2;
+    weights += w;
+    for (let k = 0; k < 3; k++) centroid[k] = centroid[k]! + w * positions[3 * r + k]!;
+  }
+  const anchors = [positions.slice(3 * peak, 3 * peak + 3), centroid.map((v) => v / weights)];
   for (const [tilt, azimuth] of directions) {
     axisDirection(tilt, azimuth, axis);
-    for (const s of offsets) {
-      const centre = [positions[3 * peak]! - s * axis[0]!, positions[3 * peak + 1]! - s * axis[1]!, positions[3 * peak + 2]! - s * axis[2]!];
+    for (const anchor of anchors) for (const s of offsets) {
+      const centre = [anchor[0]! - s * axis[0]!, anchor[1]! - s * axis[1]!, anchor[2]! - s * axis[2]!];
       for (let r = 0; r < count; r++) {
         coilFrame(positions[3 * r]!, positions[3 * r + 1]!, positions[3 * r + 2]!, centre, axis, frame);
         distance[r] = Math.abs(frame[0]!);
@@ -267,6 +280,25 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
         for (const j of amplitudes) start[j] = start[j]! * cost.scale;
         if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
         best = Float64Array.from(start);
+      }
+    }
+  }
+  if (best !== null) {
+    // then the axis's direction from the best start: tilts 0.05, 0.3, 0.6 and 1 rad in four azimuths (about the centre found)
+    const centred = Float64Array.from(best);
+    for (const tilt of [0.05, 0.3, 0.6, 1]) {
+      for (const azimuth of [0, Math.PI / 2, Math.PI, -Math.PI / 2]) {
+        start.set(centred);
+        start[layout.pose + 3] = tilt;
+        start[layout.pose + 4] = azimuth;
+        model.evaluate(start, sample, predicted);
+        const cost = scaledMisfit(sample, predicted, layout.vector);
+        if (cost.misfit < bestCost) {
+          bestCost = cost.misfit;
+          for (const j of amplitudes) start[j] = start[j]! * cost.scale;
+          if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
+          best = Float64Array.from(start);
+        }
       }
     }
   }
