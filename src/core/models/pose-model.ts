@@ -257,6 +257,17 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
     for (let k = 0; k < 3; k++) centroid[k] = centroid[k]! + w * positions[3 * r + k]!;
   }
   const anchors = [positions.slice(3 * peak, 3 * peak + 3), centroid.map((v) => v / weights)];
+  // keep `start` (amplitude scaled, background set) when it fits the sample better than the best so far
+  const consider = (): void => {
+    model.evaluate(start, sample, predicted);
+    const cost = scaledMisfit(sample, predicted, layout.vector);
+    if (cost.misfit < bestCost) {
+      bestCost = cost.misfit;
+      for (const j of amplitudes) start[j] = start[j]! * cost.scale;
+      if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
+      best = Float64Array.from(start);
+    }
+  };
   for (const [tilt, azimuth] of directions) {
     axisDirection(tilt, azimuth, axis);
     for (const anchor of anchors) for (const s of offsets) {
@@ -273,14 +284,7 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
       start.set(centre, layout.pose);
       start[layout.pose + 3] = tilt;
       start[layout.pose + 4] = azimuth;
-      model.evaluate(start, sample, predicted);
-      const cost = scaledMisfit(sample, predicted, layout.vector);
-      if (cost.misfit < bestCost) {
-        bestCost = cost.misfit;
-        for (const j of amplitudes) start[j] = start[j]! * cost.scale;
-        if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
-        best = Float64Array.from(start);
-      }
+      consider();
     }
   }
   if (best !== null) {
@@ -291,14 +295,7 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
         start.set(centred);
         start[layout.pose + 3] = tilt;
         start[layout.pose + 4] = azimuth;
-        model.evaluate(start, sample, predicted);
-        const cost = scaledMisfit(sample, predicted, layout.vector);
-        if (cost.misfit < bestCost) {
-          bestCost = cost.misfit;
-          for (const j of amplitudes) start[j] = start[j]! * cost.scale;
-          if (layout.backgrounds >= 0 && !layout.vector) start[layout.backgrounds] = cost.offset;
-          best = Float64Array.from(start);
-        }
+        consider();
       }
     }
   }
