@@ -49,11 +49,17 @@ describe('recognizeHeader()', () => {
   });
 
   it('recognizeHeader() reports a name it does not know and guesses nothing', () => {
-    for (const header of ['temperature (C)', 'r (mm)', 'offset', 'x', 'probe_T2']) {
+    // "x" is known since transverse scans and 3-D maps (a lateral position); "w" is not
+    for (const header of ['temperature (C)', 'r (mm)', 'offset', 'w', 'probe_T2']) {
       const reading = recognizeHeader(header);
       expect(reading.role, header).toBeNull();
       expect(reading.reason).toContain('not a column name ringfall knows');
     }
+  });
+
+  it('recognizeHeader() reads "x", "lateral position" and "across" as a lateral position and "y" as a map\'s y', () => {
+    for (const header of ['x (mm)', 'lateral position [mm]', 'across_mm', 'transverse position (cm)']) expect(recognizeHeader(header).role, header).toBe('lateral');
+    expect(recognizeHeader('y (mm)').role).toBe('y');
   });
 
   it('recognizeHeader() does not read "radial offset" as "radial" with a unit "offset"', () => {
