@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { isRingfallError, RingfallError } from '../../core/errors';
-import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, predictField } from '../../core/models';
+import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, poseModel, poseModelIds, predictField, predictFieldAtPoint } from '../../core/models';
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { JsonPrediction } from '../../core/report/json-types';
@@ -12,8 +12,9 @@ import { cliRunRecord, runTime } from '../run-record';
 interface PredictFlags {
   model: string;
   set: string[];
-  at: string;
-  radial: string;
+  at?: string;
+  radial?: string;
+  point?: string;
   json?: boolean;
 }
 
@@ -28,6 +29,8 @@ export interface Prediction {
   /** Axial and radial components of the source alone, T. */
   readonly axial: number;
   readonly radialComponent: number;
+  /** With --point: the point in the map's frame (m) and the field vector there (T). */
+  readonly map?: { readonly point: { readonly x: number; readonly y: number; readonly z: number }; readonly vector: { readonly x: number; readonly y: number; readonly z: number } };
 }
 
 /** Where each model's distance is measured from (DESIGN.md conventions), for people. */
@@ -44,7 +47,7 @@ const datum: Readonly<Record<ModelId, string>> = {
 };
 
 /** Parameters that default to 0 when not set: they describe the survey, not the coil. */
-const optional = new Set(['probeOffset', 'background']);
+const optional = new Set(['probeOffset', 'background', 'centreX', 'centreY', 'centreZ', 'tilt', 'azimuth']);
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
@@ -59,8 +62,9 @@ export function registerPredict(program: Command, _context: CommandContext): voi
     .description('forward field of a coil at a point')
     .requiredOption('--model <id>', 'coil model (catalog id, e.g. loop)')
     .option('--set <name=qty>', 'a parameter value, e.g. radius=50mm (repeatable)', collect, [])
-    .requiredOption('--at <distance>', 'distance along the axis from the model\'s datum, e.g. 10mm')
-    .option('--radial <offset>', 'radial offset from the axis, e.g. 20mm', '0mm')
+    .option('--at <distance>', 'distance along the axis from the model\'s datum, e.g. 10mm')
+    .option('--radial <offset>', 'radial offset from the axis, e.g. 20mm (default 0mm)')
+    .option('--point <x,y,z>', 'a point of a 3-D map instead, e.g. 10mm,0mm,40mm; place the coil with --set centreX=… centreY=… centreZ=… tilt=…deg azimuth=…deg')
     .option('--json', 'print JSON (SI units) instead of text')
     .action((flags: PredictFlags) => {
       const time = runTime();
@@ -76,6 +80,12 @@ export function registerPredict(program: Command, _context: CommandContext): voi
  *   (a required parameter not set), `PREDICT_TWICE`, `PREDICT_SINGULAR` (on the winding)
  */
 export function predictFromFlags(flags: PredictFlags): Prediction {
+  if (flags.point !== undefined) return predictAtPoint(flags);
+  if (flags.at === undefined) {
+    throw new RingfallError('OPTION_VALUE', 'predict: no point given. Give --at with the distance along the axis (e.g. --at 10mm), or --point with x,y,z of a 3-D map (e.g. --point 10mm,0mm,40mm).', { where: '--at' });
+  }
+  const at = flags.at;
+  const radialText = flags.radial ?? '0mm';
   const model = getModel(flags.model, '--model');
   const params = new Float64Array(model.parameters.length);
   const given = new Set<string>();
@@ -96,8 +106,8 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
       { value: missing.map((p) => p.name), where: '--set' },
     );
   }
-  const distance = parseQuantity(flags.at, 'length', '--at').value;
-  const radial = parseQuantity(flags.radial, 'length', '--radial').value;
+  const distance = parseQuantity(at, 'length', '--at').value;
+  const radial = parseQuantity(radialText, 'length', '--radial').value;
   const assigned = Object.fromEntries(model.parameters.map((p, j) => [p.name, params[j]!]));
   let prediction;
   try {
@@ -106,12 +116,58 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
     if (!isRingfallError(error, 'PREDICT_SINGULAR')) throw error;
     throw new RingfallError(
       'PREDICT_SINGULAR',
-      `Point: the ${model.id} field is undefined at ${flags.at} along the axis, ${flags.radial} off it (on the winding, or at the source itself). Move the point off the winding.`,
+      `Point: the ${model.id} field is undefined at ${at} along the axis, ${radialText} off it (on the winding, or at the source itself). Move the point off the winding.`,
       { value: [distance, radial], where: '--at', cause: error },
     );
   }
   const { field, axial, radial: radialComponent } = prediction;
   return { model, params, distance, radial, field, axial, radialComponent };
+}
+
+/**
+ * `--point x,y,z`: the coil placed in a map's frame by its pose parameters (each 0 when not
+ * set: centre at the origin, axis along +z), the field there as a vector of the map's frame.
+ * @throws RingfallError as predictFromFlags, `OPTION_VALUE` for --point with --at or --radial,
+ *   or a point that is not three lengths, `PREDICT_POINT` for a model without an axis
+ */
+function predictAtPoint(flags: PredictFlags): Prediction {
+  if (flags.at !== undefined || flags.radial !== undefined) {
+    throw new RingfallError('OPTION_VALUE', 'predict: --point gives the whole point; leave out --at and --radial (or give those and not --point).', { where: '--point' });
+  }
+  const base = getModel(flags.model, '--model');
+  if (!poseModelIds.includes(base.id)) {
+    throw new RingfallError('PREDICT_POINT', `--point: the ${base.id} model has no axis to place in a map's x, y, z. Use one of ${poseModelIds.join(', ')}, or --at with the distance along the axis.`, { value: base.id, where: '--model' });
+  }
+  const model = poseModel(base, false);
+  const parts = flags.point!.split(',');
+  if (parts.length !== 3) {
+    throw new RingfallError('OPTION_VALUE', `--point: "${flags.point}" is not x,y,z. Give three lengths separated by commas, e.g. --point 10mm,0mm,40mm.`, { value: flags.point, where: '--point' });
+  }
+  const [x, y, z] = parts.map((part, i) => parseQuantity(part.trim(), 'length', `--point ${'xyz'[i]}`).value) as [number, number, number];
+  const params = new Float64Array(model.parameters.length);
+  const given = new Set<string>();
+  for (const text of flags.set) {
+    const { index, name, value } = parseParameterAssignment(model, text, '--set');
+    if (given.has(name)) throw new RingfallError('PREDICT_TWICE', `--set: ${name} is set twice. Give each parameter once.`, { value: text, where: '--set' });
+    given.add(name);
+    params[index] = value;
+  }
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !optional.has(p.name));
+  if (missing.length > 0) {
+    throw new RingfallError('PREDICT_MISSING', `--set: the ${model.id} model needs ${missing.map((p) => p.name).join(', ')}. Pass ${missing.map((p, i) => `--set ${p.name}=${i === 0 ? exampleValue(p.unit) : '…'}`).join(' ')}.`, { value: missing.map((p) => p.name), where: '--set' });
+  }
+  const assigned = Object.fromEntries(model.parameters.map((p, j) => [p.name, params[j]!]));
+  let prediction;
+  try {
+    prediction = predictFieldAtPoint(model.id, assigned, { x, y, z });
+  } catch (error) {
+    if (!isRingfallError(error, 'PREDICT_SINGULAR')) throw error;
+    throw new RingfallError('PREDICT_SINGULAR', `Point: the ${model.id} field is undefined at ${flags.point} (on the winding, or at the source itself). Move the point off the winding.`, { value: [x, y, z], where: '--point', cause: error });
+  }
+  return {
+    model, params, distance: prediction.distance, radial: prediction.radialOffset, field: prediction.field, axial: prediction.axial, radialComponent: prediction.radial,
+    map: { point: { x, y, z }, vector: prediction.vector },
+  };
 }
 
 const si = <Unit extends string>(value: number, unit: Unit) => ({ value, unit });
@@ -123,6 +179,7 @@ function predictionRun(prediction: Prediction, time: string): RunRecord {
     parameters: Object.fromEntries(prediction.model.parameters.map((p, j) => [p.name, si(prediction.params[j]!, p.unit)])),
     distance: si(prediction.distance, 'm'),
     radialOffset: si(prediction.radial, 'm'),
+    ...(prediction.map === undefined ? {} : { point: { x: si(prediction.map.point.x, 'm'), y: si(prediction.map.point.y, 'm'), z: si(prediction.map.point.z, 'm') } }),
   });
 }
 
@@ -132,7 +189,11 @@ export function predictionToJson(prediction: Prediction): JsonPrediction {
     field: si(prediction.field, 'T'),
     components: { axial: si(prediction.axial, 'T'), radial: si(prediction.radialComponent, 'T') },
     model: prediction.model.id,
-    point: { distance: si(prediction.distance, 'm'), radial: si(prediction.radial, 'm') },
+    point: {
+      distance: si(prediction.distance, 'm'), radial: si(prediction.radial, 'm'),
+      ...(prediction.map === undefined ? {} : { x: si(prediction.map.point.x, 'm'), y: si(prediction.map.point.y, 'm'), z: si(prediction.map.point.z, 'm') }),
+    },
+    ...(prediction.map === undefined ? {} : { vector: { x: si(prediction.map.vector.x, 'T'), y: si(prediction.map.vector.y, 'T'), z: si(prediction.map.vector.z, 'T') } }),
     params: Object.fromEntries(prediction.model.parameters.map((p, j) => [p.name, si(prediction.params[j]!, p.unit)])),
   };
 }
@@ -144,6 +205,7 @@ export function renderPrediction(prediction: Prediction): string {
     const kind = parameterQuantityKind(p.unit);
     const value = params[j]!;
     if (kind !== null && value !== 0) return `${p.name} ${formatQuantity(value, kind)}`;
+    if (p.unit === 'rad') return `${p.name} ${formatNumber((value * 180) / Math.PI, 4)}°`;
     return `${p.name} ${formatNumber(value, 4)}${p.unit === '1' ? '' : ` ${kind === 'length' ? 'mm' : p.unit}`}`;
   }).join(', ');
   const gauss = (value: number) => formatQuantity(value, 'field', { unit: Math.abs(value) >= 1e-4 ? { symbol: 'G', factor: 1e-4 } : { symbol: 'mG', factor: 1e-7 } });
@@ -152,9 +214,11 @@ export function renderPrediction(prediction: Prediction): string {
   return (
     `${model.id}: ${model.label}\n` +
     `  ${parameterText}\n` +
+    (prediction.map === undefined ? '' : `Point: x ${lengthText(prediction.map.point.x)}, y ${lengthText(prediction.map.point.y)}, z ${lengthText(prediction.map.point.z)} in the map's frame, that is\n`) +
     `Point: ${lengthText(prediction.distance)} along the axis ${datum[model.id]}, ` +
     `${lengthText(prediction.radial)} off the axis\n` +
     line(background === 0 ? 'field |B|' : 'field |B| + background', prediction.field) +
+    (prediction.map === undefined ? '' : line('component Bx (map)', prediction.map.vector.x) + line('component By (map)', prediction.map.vector.y) + line('component Bz (map)', prediction.map.vector.z)) +
     (model.physical
       ? line('axial component B_z', prediction.axial) + line('radial component B_ρ', prediction.radialComponent)
       : `  (a power law has no direction; its value ${formatQuantity(prediction.axial, 'field')} is reported as the axial component)\n`)

@@ -55,4 +55,7 @@ export function getModel(id: ModelId | string, where = '--model'): FieldModel {
 
 export { coilPairModel, dipoleModel, inverseCubeModel, inverseSquareModel, loopModel, powerLawModel, rectangleModel, solenoidModel, thickCoilModel };
 export { predictField, type FieldPrediction } from './predict-field';
+export { predictFieldAtPoint, type PosedFieldPrediction } from './predict-map-field';
+export { poseModel, poseModelIds } from './pose-model';
+export { lateralModel } from './lateral-model';
 export { centreParameter, nearFaceModels, peakCentre, scanModel } from './scan-model';

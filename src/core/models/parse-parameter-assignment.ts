@@ -26,8 +26,21 @@ export function exampleValue(unit: ParameterUnit): string {
     case 'T': return '0T';
     case 'A·m²': return '0.5A·m²';
     case '1': return '2.5';
+    case 'rad': return '20deg';
     default: return '2e-6';
   }
+}
+
+/**
+ * An angle in radians from "20deg", "20°", "20 degrees", "0.35rad" or a plain number (rad);
+ * NaN when it is none of these.
+ * @example parseAngle('90deg') // π/2
+ */
+export function parseAngle(text: string): number {
+  const match = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)\s*(deg|degrees?|°|rad|radians?)?$/iu.exec(text.trim());
+  if (!match) return Number.NaN;
+  const value = Number(match[1]);
+  return match[2] !== undefined && !/^rad/iu.test(match[2]) ? (value * Math.PI) / 180 : value;
 }
 
 /**
@@ -82,7 +95,12 @@ export function parseParameterAssignment(
   const what = `${option} ${name}`;
   const kind = parameterQuantityKind(parameter.unit);
   let value: number;
-  if (kind === null) {
+  if (parameter.unit === 'rad') {
+    value = parseAngle(match[2]!);
+    if (!Number.isFinite(value)) {
+      throw new RingfallError('PARAMETER_VALUE', `${what}: "${printable(match[2], 60)}" is not an angle. Give degrees or radians, e.g. ${name}=20deg or ${name}=0.35rad.`, { value: text, where: option });
+    }
+  } else if (kind === null) {
     value = match[2] === '' ? NaN : Number(match[2]);
     if (!Number.isFinite(value)) {
       throw new RingfallError('PARAMETER_VALUE', `${what}: "${printable(match[2], 60)}" is not a number. Give a plain number in ${parameter.unit}, e.g. ${name}=${exampleValue(parameter.unit)}.`, { value: text, where: option });

@@ -160,7 +160,10 @@ export interface JsonPrediction {
   readonly field: JsonQuantity<'T'>;
   readonly components: { readonly axial: JsonQuantity<'T'>; readonly radial: JsonQuantity<'T'> };
   readonly model: ModelId;
-  readonly point: { readonly distance: JsonQuantity<'m'>; readonly radial: JsonQuantity<'m'> };
+  /** With `--point`: also x, y, z of the map's frame; distance and radial are then the point's in the coil's own frame. */
+  readonly point: { readonly distance: JsonQuantity<'m'>; readonly radial: JsonQuantity<'m'>; readonly x?: JsonQuantity<'m'>; readonly y?: JsonQuantity<'m'>; readonly z?: JsonQuantity<'m'> };
+  /** With `--point`: the field vector of the source in the map's frame. */
+  readonly vector?: { readonly x: JsonQuantity<'T'>; readonly y: JsonQuantity<'T'>; readonly z: JsonQuantity<'T'> };
   readonly params: Readonly<Record<string, JsonQuantity>>;
 }
 
