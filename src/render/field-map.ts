@@ -1,9 +1,9 @@
 import { simplifyPolyline, type Point } from './simplify-path';
 import { contours } from 'd3-contour';
-import type { FitResult } from '../../core/fit/fit-result';
-import { fieldMapGrid, probeOffset } from '../../core/report/curves';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import type { FitResult } from '../core/fit/fit-result';
+import { fieldMapGrid, probeOffset } from '../core/report/curves';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import { distanceUnitFor, fieldUnitFor } from './chart-spec';
 import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';

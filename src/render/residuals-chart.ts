@@ -1,7 +1,7 @@
 import type { ChartDataset } from 'chart.js';
-import type { FitResult } from '../../core/fit/fit-result';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import type { FitResult } from '../core/fit/fit-result';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
 import { oneTwoFiveLabels } from './figure';
 import { niceCeiling, niceLogBound } from './nice-ticks';

@@ -1,17 +1,17 @@
 import type { ChartDataset } from 'chart.js';
-import type { ParameterEstimate } from '../../core/fit/fit-result';
-import { formatEstimate } from '../../core/report/render-text';
-import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../../core/report/report';
-import { formatNumber, formatQuantity } from '../../core/units';
+import type { ParameterEstimate } from '../core/fit/fit-result';
+import { formatEstimate } from '../core/report/render-text';
+import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../core/report/report';
+import { formatNumber, formatQuantity } from '../core/units';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
 import { largest, smallest } from './extent';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
-import { reportSummaryFit, summaryBasisWords } from '../../core/analysis/summary-fit';
-import { getModel } from '../../core/models';
-import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
+import { reportSummaryFit, summaryBasisWords } from '../core/analysis/summary-fit';
+import { getModel } from '../core/models';
+import { historyHeadline } from '../core/analysis/fleet/trend-reading';
 
 /** Colours for coils in the history chart, cycled; our own. */
 const seriesColours = ['#b23a48', '#2e6f95', '#3b8a5a', '#8c6d1f', '#7b4f9e', '#1f8a8a', '#a05a8c', '#707c3a'];

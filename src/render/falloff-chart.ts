@@ -1,7 +1,7 @@
 import type { ChartDataset } from 'chart.js';
-import { confidenceBand, fittedCurve, logSpacedDistances } from '../../core/report/curves';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import { confidenceBand, fittedCurve, logSpacedDistances } from '../core/report/curves';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import {
   baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
