@@ -1,4 +1,5 @@
 import type { ChartDataset } from 'chart.js';
+import { extent } from 'd3-array';
 import type { ParameterEstimate } from '../core/fit/fit-result';
 import { formatEstimate } from '../core/report/render-text';
 import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../core/report/report';
@@ -6,7 +7,6 @@ import { formatNumber, formatQuantity } from '../core/units';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
-import { largest, smallest } from './extent';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
 import { reportSummaryFit, summaryBasisWords } from '../core/analysis/summary-fit';
@@ -115,9 +115,8 @@ function historyChart(report: Report): ChartSpec | null {
     datasets.push({ label: `${coil} 95% interval`, data: points.flatMap((p) => (p.low === null || p.high === null ? [] : [{ x: p.x, y: p.low }, { x: p.x, y: p.high }, { x: p.x, y: null }])), showLine: true, spanGaps: false, pointRadius: 0, borderColor: withAlpha(colour, 0.6), borderWidth: 1.5 });
     legend.push({ label: coil, colour, shape: 'line' });
   });
-  const xs = series.flatMap(([, points]) => points.map((p) => p.x));
-  const first = smallest(xs);
-  const last = largest(xs);
+  // every series holds two points or more, so the extent is two numbers
+  const [first, last] = extent(series.flatMap(([, points]) => points.map((p) => p.x))) as [number, number];
   const ticks = niceTicks(first - 0.05, last + 0.05, 6);
   const step = ticks.length > 1 ? ticks[1]! - ticks[0]! : 0.25;
   const options = baseOptions();
