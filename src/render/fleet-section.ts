@@ -4,6 +4,7 @@ import type { ParameterEstimate } from '../core/fit/fit-result';
 import { formatEstimate } from '../core/report/render-text';
 import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../core/report/report';
 import { formatNumber, formatQuantity } from '../core/units';
+import { julianEpoch } from '../core/units/julian-year';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
@@ -25,17 +26,6 @@ export function ampereTurnsOf(report: Report, survey: SurveyReport): { model: st
   const summary = reportSummaryFit(report, survey, getModel);
   const estimate = summary?.fit.params['ampereTurns'];
   return summary && estimate ? { model: summary.fit.model, basis: summaryBasisWords[summary.basis], estimate } : null;
-}
-
-/** Decimal year of an ISO date (2026-07-02 → 2026.5), or null. */
-export function decimalYear(date: string | null): number | null {
-  const match = date ? /^(\d{4})-(\d{2})-(\d{2})/.exec(date) : null;
-  if (!match) return null;
-  const year = Number(match[1]);
-  const start = Date.UTC(year, 0, 1);
-  const length = Date.UTC(year + 1, 0, 1) - start;
-  const day = Date.UTC(year, Number(match[2]) - 1, Number(match[3]));
-  return Number.isFinite(day) ? year + (day - start + 43_200_000) / length : null;
 }
 
 const amperes = (value: number) => formatQuantity(value, 'current', { significant: 4 });
@@ -86,7 +76,8 @@ interface HistoryPoint { readonly x: number; readonly value: number; readonly lo
 function historySeries(report: Report): [string, HistoryPoint[]][] {
   const byCoil = new Map<string, HistoryPoint[]>();
   const add = (coil: string, date: string | null, value: number, ci95: readonly [number, number] | null) => {
-    const x = decimalYear(date);
+    // in Julian years, the year of the printed trend (A/yr)
+    const x = julianEpoch(date);
     if (x === null || !Number.isFinite(value)) return;
     const list = byCoil.get(coil) ?? [];
     list.push({ x, value, low: ci95?.[0] ?? null, high: ci95?.[1] ?? null });
