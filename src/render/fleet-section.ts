@@ -10,7 +10,7 @@ import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
-import { reportSummaryFit, summaryBasisWords } from '../core/analysis/summary-fit';
+import { reportSummaryFit, summaryBasisWords } from '../core/report/summary-fit';
 import { getModel } from '../core/models';
 import { historyHeadline } from '../core/analysis/fleet/trend-reading';
 

@@ -20,7 +20,7 @@ import { skipListName, type SkippedFiles } from '../skip-list';
 import { readSurveyBytes } from '../read-survey-bytes';
 import { stoppedStatus, watchStopSignals, yieldToEvents, type StopSignals } from '../stop-signals';
 import { writeFileAtomic } from '../write-file-atomic';
-import type { CommandContext } from '../main';
+import type { CommandContext } from './command-context';
 import { checksStatus } from '../checks-status';
 import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
 import { fitRunSettings, type RunInput } from '../../core/report/run-record';

@@ -1,10 +1,10 @@
-import { formatNumber, formatQuantity } from '../../units';
-import { parameterQuantityKind } from '../../models';
-import { describeValue } from '../describe-value';
-import type { JsonPlan, JsonPlanIntervals } from '../../report/json-types';
-import type { DesignProblem } from './design-problem';
-import type { ExpectedIntervals } from './expected-intervals';
-import type { MeasurementPlan } from './plan-measurements';
+import { formatNumber, formatQuantity } from '../units';
+import { parameterQuantityKind } from '../models';
+import { describeValue } from '../analysis/describe-value';
+import type { JsonPlan, JsonPlanIntervals } from './json-types';
+import type { DesignProblem } from '../analysis/plan/design-problem';
+import type { ExpectedIntervals } from '../analysis/plan/expected-intervals';
+import type { MeasurementPlan } from '../analysis/plan/plan-measurements';
 
 /** Schema tag of `ringfall plan --json`. */
 export const planSchema = 'ringfall-plan/1';
