@@ -3,6 +3,7 @@ import { getModel } from '../../models';
 import type { ModelId } from '../../models/field-model';
 import { studentTQuantile } from '../../stats';
 import type { RelativePlusAbsolute } from '../../units';
+import { yearsBetween } from '../../units/julian-year';
 import { bestPhysicalFit, convergedFit } from '../best-fit';
 import type { CheckStatus } from '../decide-conformity';
 import { describeValue } from '../describe-value';
@@ -55,13 +56,12 @@ export interface FleetCoil {
 }
 
 const normal975 = 1.959963984540054;
-const msPerYear = 365.25 * 86_400_000;
 
 /**
  * One coil's history: surveys in date order (undated last), the fitted ampere-turns of the
  * trended model (the spec's, else the most common best physical model) against the spec's
  * label or the first survey, and a weighted straight-line trend of ampere-turns against
- * time in years (weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
+ * time in Julian years (units/julian-year.ts; weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
  * Flags: **degrading** when the latest dated survey's decline from the reference is
  * significant and beyond tolerance — the upper end of its 95 % interval (against a first
  * survey: of the difference, t with the smaller degrees of freedom) lies below the
@@ -104,7 +104,7 @@ export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs
   if (model === null) explanations.push('No physical model converged on any survey, so there is nothing to trend.');
   let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null, status: 'undetermined', steadyBand: null, moreSurveys: null };
   const flags: string[] = [];
-  const times = dated.map((d) => (Date.parse(d.survey.date!) - Date.parse(dated[0]!.survey.date!)) / msPerYear);
+  const times = dated.map((d) => yearsBetween(dated[0]!.survey.date!, d.survey.date!));
   let trendSentence: string | null = null;
   if (dated.length >= 2 && new Set(times).size >= 2) {
     const line = weightedLine(times, dated.map((d) => d.estimate.value), dated.map((d) => d.estimate.stderr));
