@@ -8,8 +8,10 @@ import { buildSpecFiles } from './build-spec-files';
 import { gaussianSource, noisyReading, display, type NoiseModel } from './noisy-reading';
 import {
   applicatorDistancesMm, applicatorProbeOffset, benchBackground, benchName, calibrationPair, calibrationPairCentre, fleetAmpereTurns,
-  fleetDates, fleetDistancesMm, fleetRadius, handheldMeter, inventedNote, labMeter, pairScanPositionsMm,
+  fleetDates, fleetDistancesMm, fleetRadius, handheldMeter, inventedNote, labMeter, pairScanPositionsMm, applicatorMapGridMm, tiltedApplicator,
 } from './scenario';
+import { predictFieldAtPoint } from '../../src/core/models';
+import { roundToDigits } from './noisy-reading';
 
 /** What TRUTH.json says about one survey: model, parameters (SI), noise and seed. */
 export interface TruthEntry {
@@ -160,10 +162,32 @@ export function buildSampleData(): { files: Map<string, string>; truth: TruthEnt
     coil: 'QH-70', date: '2026-03-05', readingType: 'dc', model: 'coil-pair', seed: 1107, noise: labMeter, params: pairParams,
   });
 
+  // 8. A tilted applicator mapped in 3-D with a triaxial probe (Bx, By, Bz along the map's x, y, z), lab meter noise per component.
+  const { backgroundX, backgroundY, backgroundZ, ...placed } = tiltedApplicator;
+  const mapGaussian = gaussianSource(1108);
+  const mapRows: string[] = [];
+  for (const zMm of applicatorMapGridMm.z) {
+    for (const yMm of applicatorMapGridMm.y) {
+      for (const xMm of applicatorMapGridMm.x) {
+        const at = (mm: number) => mm / 1000 + labMeter.positionSd * mapGaussian();
+        const b = predictFieldAtPoint('loop', placed, { x: at(xMm), y: at(yMm), z: at(zMm) }).vector;
+        const size = Math.hypot(b.x, b.y, b.z);
+        const noisy = (value: number) => roundToDigits(value + labMeter.relativeSd * size * mapGaussian() + labMeter.floorSd * mapGaussian(), labMeter.significantDigits);
+        mapRows.push([xMm, yMm, zMm, ...[b.x + backgroundX, b.y + backgroundY, b.z + backgroundZ].map((v) => display(noisy(v), 1e-6, 5))].join(','));
+      }
+    }
+  }
+  files.set('qa-512-2026-03-12-tilted-map.csv', [...metadata('QA-512', '2026-03-12', 'dc', 'lab teslameter triaxial probe on an x-y-z stage; probe axes along the stage\'s x, y, z; z = 0 at the applicator cover, the applicator sat tilted in its cradle'),
+    'x (mm),y (mm),z (mm),Bx (uT),By (uT),Bz (uT)', ...mapRows].join('\n') + '\n');
+  truth.push({
+    file: 'qa-512-2026-03-12-tilted-map.csv', story: 'applicator tilted 12° in its cradle, mapped in 3-D with a triaxial probe: vector readings, pose fitted (centre, tilt, azimuth)',
+    coil: 'QA-512', date: '2026-03-12', readingType: 'dc', model: 'loop', seed: 1108, noise: labMeter, params: tiltedApplicator,
+  });
+
   for (const [path, text] of buildSpecFiles()) files.set(path, text);
   const flawed = buildFlawedFiles(healthy, metadata('QA-107', '2025-03-11', 'dc', axialProbe));
   for (const [path, text] of flawed.files) files.set(path, text);
   truth.push(...flawed.truth);
-  files.set('TRUTH.json', `${JSON.stringify({ note: inventedNote, units: 'SI: A, m, T; probeOffset, centre and background as DESIGN.md defines them', surveys: truth }, null, 2)}\n`);
+  files.set('TRUTH.json', `${JSON.stringify({ note: inventedNote, units: 'SI: A, m, T, rad; probeOffset, centre and background as DESIGN.md defines them; a 3-D map\'s pose (centreX, centreY, centreZ, tilt, azimuth) and background vector as docs/CONTRACT.md defines them', surveys: truth }, null, 2)}\n`);
   return { files, truth };
 }

@@ -57,5 +57,19 @@ export const calibrationPair = { ampereTurns: 50, radius: 0.035, separation: 0.0
 /** Where QH-70's midpoint sits on the scan rail's ruler, m: the ruler's zero is the rail's end stop, not the midpoint. */
 export const calibrationPairCentre = 0.0231;
 
+/**
+ * QA-512, an applicator found tilted in its cradle, mapped in 3-D above its face with the
+ * bench's triaxial probe (probe axes along the map's x, y, z): label radius 45 mm, 360
+ * ampere-turns; its axis 12° from the map's +z towards azimuth 30°, its winding centre at
+ * (4.2, −3.1, −18) mm in the map's frame; the bench's background field as a vector.
+ */
+export const tiltedApplicator = {
+  ampereTurns: 360, radius: 0.045, centreX: 0.0042, centreY: -0.0031, centreZ: -0.018, tilt: (12 * Math.PI) / 180, azimuth: (30 * Math.PI) / 180,
+  backgroundX: 4e-6, backgroundY: -2e-6, backgroundZ: 2.5e-5,
+};
+
+/** The map's grid, mm: x and y every 20 mm over ±60 mm, three planes z = 0, 20, 40 mm (147 points). */
+export const applicatorMapGridMm = { x: [-60, -40, -20, 0, 20, 40, 60], y: [-60, -40, -20, 0, 20, 40, 60], z: [0, 20, 40] };
+
 /** Ruler positions of the two-sided scan through QH-70, mm: every 5 mm from −150 to +120 (55 positions). */
 export const pairScanPositionsMm = Array.from({ length: 55 }, (_, i) => -150 + 5 * i);

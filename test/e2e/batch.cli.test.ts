@@ -119,7 +119,7 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(text.stderr).toContain('ringfall batch: left out 3 files that sample-data/.ringfall-skip lists as not surveys (flawed/); --no-skip fits them too\n');
     expect(text.stdout).toMatch(/^ {2}3 files left out: sample-data\/\.ringfall-skip lists flawed\/ as not surveys/m);
     // the coils of TRUTH.json (QA-412 only in the fleet log)
-    const coils = ['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QH-70', 'QM-03', 'QT-9'];
+    const coils = ['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QA-512', 'QH-70', 'QM-03', 'QT-9'];
     for (const coil of coils) expect(text.stdout).toMatch(new RegExp(`^${coil}: \\d+ surveys?, latest `, 'm'));
     // TRUTH.json: QA-107's latest survey at 306 A and 45 mm (the estimate printing exactly 306 is a regression pin, not truth)
     // each row names the model it reads the coil with, and why (here the spec's)
@@ -128,9 +128,9 @@ describe('ringfall batch over sample-data/ (CONTRACT.md batch, fleet section, ex
     expect(attention).toMatch(/^ {2}1\. QA-107: failed its spec \(degraded[^)]*\); degrading -\d+ A\/yr/m);
     expect(attention.indexOf('QA-214')).toBeGreaterThan(0);
     expect(text.stdout).not.toContain('ringfall batch:');
-    // TRUTH.json lists the 11 survey files of sample-data/, 3 of them in flawed/; --workers 2
-    expect(text.stderr).toMatch(/^ringfall batch: 8 survey files on 2 workers$/m);
-    expect(text.stderr).toMatch(/^ringfall batch: 8 files in [\d.]+ s/m);
+    // TRUTH.json lists the 12 survey files of sample-data/, 3 of them in flawed/; --workers 2
+    expect(text.stderr).toMatch(/^ringfall batch: 9 survey files on 2 workers$/m);
+    expect(text.stderr).toMatch(/^ringfall batch: 9 files in [\d.]+ s/m);
   });
 
   it('batch --out DIR writes index.html and one self-contained report per coil, linked from the index', () => {

@@ -9,6 +9,7 @@ import { buildSampleData, type TruthEntry } from '../../scripts/sample-data/buil
 import { catalogReading } from '../../scripts/sample-data/catalog-reading';
 import { loopOffAxis, loopOnAxis, rectangleOnAxis, thickCoilOnAxis } from './closed-form-fields';
 import { expectClose } from '../support/expect-close';
+import { placedLoopByBiotSavart } from '../support/biot-savart';
 
 const folder = join(import.meta.dirname, '..', '..', 'sample-data');
 const read = (path: string) => readFileSync(join(folder, path), 'utf8');
@@ -51,7 +52,8 @@ describe('closed-form fields used to check the sample data (test/import/closed-f
 describe('sample-data generator fields (scripts/sample-data/catalog-reading.ts)', () => {
   it('catalogReading() of the model catalog equals the closed forms at every sample coil, on and off axis', () => {
     const distances = [0, 0.002, 0.01, 0.03, 0.05, 0.1, 0.2, 0.3];
-    for (const entry of truth.flatMap((t) => t.surveys ?? [t])) {
+    // a 3-D map's coil (params.tilt) is checked on its own below, against direct Biot–Savart in the map's frame
+    for (const entry of truth.flatMap((t) => t.surveys ?? [t]).filter((t) => t.params['tilt'] === undefined)) {
       const p = entry.params;
       const axial = catalogReading(entry.model as 'loop', p, 'axial');
       const magnitude = catalogReading(entry.model as 'loop', p, 'magnitude');
@@ -136,6 +138,30 @@ describe('sample-data/ files', () => {
     });
   }
 
+  it('qa-512-2026-03-12-tilted-map.csv imports as a 3-D vector map whose components agree with TRUTH.json within the stated noise', () => {
+    const file = 'qa-512-2026-03-12-tilted-map.csv';
+    const entry = truthOf(file);
+    const p = entry.params;
+    const result = importSurveys(read(file), { source: file });
+    // 7 × 7 × 3 grid (scripts/sample-data/scenario.ts applicatorMapGridMm)
+    expect(result.counts).toMatchObject({ dataRows: 147, used: 147, rejected: 0 });
+    const survey = result.surveys[0]!;
+    expect(survey.axis).toBe('map');
+    const normal: [number, number, number] = [Math.sin(p['tilt']!) * Math.cos(p['azimuth']!), Math.sin(p['tilt']!) * Math.sin(p['azimuth']!), Math.cos(p['tilt']!)];
+    const residuals = survey.readings.flatMap((reading) => {
+      const { x, y, z } = reading.position!;
+      // independent method: direct Biot–Savart around the placed loop (test/support/biot-savart.ts), plus the background vector
+      const b = placedLoopByBiotSavart(p['ampereTurns']!, p['radius']!, [p['centreX']!, p['centreY']!, p['centreZ']!], normal, [x, y, z]);
+      const size = Math.hypot(...b);
+      // placement scatter moves a reading by up to the field's gradient × positionSd: allowed as 10 % of |B| per mm (DOMAIN §3.7, near the windings)
+      const sd = Math.hypot(entry.noise.relativeSd * size, entry.noise.floorSd, 0.1 * size * entry.noise.positionSd / 1e-3);
+      const c = reading.components!;
+      return [c.x - b[0] - p['backgroundX']!, c.y - b[1] - p['backgroundY']!, c.z - b[2] - p['backgroundZ']!].map((r) => r / sd);
+    });
+    // noise is about N(0, 1) per component by construction; 5 SD allows rounding and placement scatter
+    for (const r of residuals) expect(Math.abs(r)).toBeLessThan(5);
+  });
+
   it('fleet-log-2025-2026.csv holds 15 surveys: three coils on five dates', () => {
     const result = importSurveys(read('fleet-log-2025-2026.csv'), { source: 'fleet' });
     expect(result.surveys).toHaveLength(15);
@@ -180,9 +206,9 @@ describe('sample-data/ files', () => {
     };
     const catalog = (id: string) => names[id]?.map(([name, unit]) => ({ name, unit, lower: -Infinity, upper: Infinity, description: name }));
     const specPaths = [...files.keys()].filter((p) => p.endsWith('.spec.json'));
-    // seven coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
-    expect(specPaths).toHaveLength(8);
+    // eight coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
+    expect(specPaths).toHaveLength(9);
     for (const path of specPaths) expect(parseSpecText(read(path), path, catalog, Object.keys(names)).length, path).toBeGreaterThan(0);
-    expect(parseSpecText(read('specs/all-coils.spec.json'), 'all', catalog, Object.keys(names)).flatMap((s) => s.coils ?? [])).toEqual(['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9', 'QH-70']);
+    expect(parseSpecText(read('specs/all-coils.spec.json'), 'all', catalog, Object.keys(names)).flatMap((s) => s.coils ?? [])).toEqual(['QA-107', 'QA-214', 'QA-330', 'QA-412', 'QM-03', 'QT-9', 'QH-70', 'QA-512']);
   });
 });

@@ -23,7 +23,8 @@ import { readingUncertainty } from './reading-uncertainty';
  * @returns one FitResult per model, in the order asked, Akaike weights filled in.
  * @throws RingfallError `FIT_UNKNOWN_PARAMETER` / `FIT_FIXED_OUT_OF_BOUNDS` for a bad fixed
  *   parameter, `MODEL_UNKNOWN` for an unknown model id, `FIT_POSITION_UNCERTAINTY` for a
- *   position uncertainty that is not a length ≥ 0, `FIT_POSITION_WITHOUT_READING` when a
+ *   position uncertainty that is not a length ≥ 0, `OPTION_VALUE` when no asked model can
+ *   be fitted to a 3-D map (rectangle, power laws only), `FIT_POSITION_WITHOUT_READING` when a
  *   position uncertainty comes without any reading uncertainty, `FIT_UNCERTAINTY_ZERO`;
  *   RangeError when `options.models` is empty.
  * @example fitSurvey(survey, { models: ['loop'], instrumentUncertainty: { relative: 0.01, absolute: 1e-6 } })[0].params.radius.ci95
@@ -34,7 +35,9 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
   // A scan (signed positions along the axis) fits the coil centre's position in place of the
   // probe offset, a transverse scan the axis's lateral position, a 3-D map the coil's pose.
   const { survey: fitted, points, models } = surveyProblem(survey, ids);
-  if (models.length === 0) throw new RangeError(`fitSurvey: none of the models ${ids.join(', ')} can be fitted to a 3-D map; ask for loop, thick-coil, solenoid, coil-pair or dipole`);
+  if (models.length === 0) {
+    throw new RingfallError('OPTION_VALUE', `Models: ${ids.join(', ')} cannot be fitted to the 3-D map ${survey.source} (no axis to place in space). Ask for loop, thick-coil, solenoid, coil-pair or dipole (--model loop).`, { value: ids, where: '--model' });
+  }
   checkFixedParameters(models, options.fixed ?? {});
   const uncertainty = readingUncertainty(fitted, options.instrumentUncertainty);
   const position = options.positionUncertainty ?? 0;
