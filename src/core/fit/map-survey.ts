@@ -1,10 +1,12 @@
 import type { FieldModel, ModelId, SurveyPoints } from '../models/field-model';
 import { getModel } from '../models';
 import { lateralModel } from '../models/lateral-model';
-import { poseModel, poseModelIds } from '../models/pose-model';
+import { mapSample, poseModel, poseModelIds } from '../models/pose-model';
 import { scanModel } from '../models/scan-model';
 import type { Reading, Survey } from '../survey/survey';
+import { fieldModelProblem } from './field-model-problem';
 import type { FitResult } from './fit-result';
+import { fitLeastSquares } from './least-squares';
 import { surveyPoints } from './survey-points';
 
 const componentNames = ['x', 'y', 'z'] as const;
@@ -64,7 +66,36 @@ export function surveyProblem(survey: Survey, ids: readonly ModelId[]): {
   for (let i = 0; i < n; i++) distance[i] = Math.hypot(x[i]! - cx, y[i]! - cy, z[i]! - cz);
   const points: SurveyPoints = { n, distance, radial: new Float64Array(n), field, kind: survey.fieldKind === 'axial' ? 'axial' : 'magnitude', map: { x, y, z, component } };
   const kept = ids.filter((id) => poseModelIds.includes(id));
-  return { survey: expanded, points, models: kept.map((id) => poseModel(getModel(id), vector)), omitted: ids.filter((id) => !poseModelIds.includes(id)) };
+  return { survey: expanded, points, models: kept.map((id) => stagedStart(poseModel(getModel(id), vector))), omitted: ids.filter((id) => !poseModelIds.includes(id)) };
+}
+
+/** Readings of the sub-fit that starts a large map's fit. */
+const STAGE_READINGS = 160;
+
+const staged = new WeakMap<FieldModel, FieldModel>();
+
+/**
+ * A pose model whose start, on a map of more than 160 readings, is first fitted to an even
+ * subsample of 160 (mapSample): the pose start is rough, and on the subsample the search
+ * from it costs a fraction of what it costs on every reading; the full fit then starts
+ * near its minimum. Smaller maps start from the pose start itself. The same object for
+ * the same model.
+ */
+function stagedStart(model: FieldModel): FieldModel {
+  const cached = staged.get(model);
+  if (cached !== undefined) return cached;
+  const wrapped: FieldModel = {
+    ...model,
+    initialGuess(points: SurveyPoints): Float64Array {
+      const start = model.initialGuess(points);
+      const sample = mapSample(points, STAGE_READINGS);
+      if (sample === points) return start;
+      const solution = fitLeastSquares(fieldModelProblem(model, sample), { initial: start, lower: model.parameters.map((p) => p.lower), upper: model.parameters.map((p) => p.upper) });
+      return solution.params.every(Number.isFinite) ? Float64Array.from(solution.params) : start;
+    },
+  };
+  staged.set(model, wrapped);
+  return wrapped;
 }
 
 /** A vector reading as three, one per component (field = that component, T). */

@@ -1,5 +1,6 @@
 import { axisDirection, canonicalAxis, coilFrame } from '../physics/coil-pose';
 import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-model';
+import { locateDipole } from './locate-dipole';
 import { fieldReading } from './model-reading';
 import { nearFaceModels } from './scan-model';
 
@@ -166,8 +167,9 @@ const START_READINGS = 160;
 /**
  * Data-driven start of a pose fit, on an even subsample of at most 160 readings (the
  * components of one vector reading share a position and stay together). Axis candidates:
- * along the field at the strongest reading and along the sum of all field vectors (vector
- * readings; the axis and its opposite are one coil), and the map's +z tilted a little
+ * along the moment of the best point dipole (locate-dipole.ts, whose position is also a
+ * candidate centre), along the field at the strongest reading and along the sum of all
+ * field vectors (vector readings; the axis and its opposite are one coil), and the map's +z tilted a little
  * (|B| cannot show the axis's direction at one point). For each, the centre is sought on
  * the lines through the strongest reading and through the |B|²-weighted centroid of the
  * readings above half the strongest, along that axis, at offsets s = 0 and ± a
@@ -179,22 +181,15 @@ const START_READINGS = 160;
  * (the only direction search a magnitude map gets).
  */
 function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, layout: PoseLayout): Float64Array {
-  const map = points.map!;
+  const sample = mapSample(points, START_READINGS);
+  const map = sample.map!;
   const groups: number[] = [];
-  for (let i = 0; i < points.n;) {
+  for (let i = 0; i < sample.n;) {
     let j = i + 1;
-    while (j < points.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
+    while (j < sample.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
     groups.push(i, j);
     i = j;
   }
-  const stride = Math.max(1, Math.ceil(groups.length / 2 / START_READINGS));
-  const kept: number[] = [];
-  for (let g = 0; g < groups.length; g += 2 * stride) for (let i = groups[g]!; i < groups[g + 1]!; i++) kept.push(i);
-  const pick = (array: Float64Array) => Float64Array.from(kept, (i) => array[i]!);
-  const sample: SurveyPoints = {
-    n: kept.length, distance: pick(points.distance), radial: pick(points.radial), field: pick(points.field), kind: points.kind,
-    map: { x: pick(map.x), y: pick(map.y), z: pick(map.z), component: Int8Array.from(kept, (i) => map.component[i]!) },
-  };
   const positions: number[] = [];
   const magnitudes: number[] = [];
   const vectors: number[] = [];
@@ -204,8 +199,8 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
     let magnitude = Number.NaN;
     for (let i = groups[g]!; i < groups[g + 1]!; i++) {
       const c = map.component[i]!;
-      if (c < 0) magnitude = Math.abs(points.field[i]!);
-      else v[c] = points.field[i]!;
+      if (c < 0) magnitude = Math.abs(sample.field[i]!);
+      else v[c] = sample.field[i]!;
     }
     const first = groups[g]!;
     positions.push(map.x[first]!, map.y[first]!, map.z[first]!);
@@ -226,7 +221,16 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
   }
   if (!(extent > 0)) extent = 0.05;
   const directions: [number, number][] = [[0.05, 0]];
+  const anchors = [positions.slice(3 * peak, 3 * peak + 3)];
   if (layout.vector) {
+    // the best point dipole (centre and moment, linear in the moment): the centre and axis of the coil, roughly
+    const dipole = locateDipole(positions, vectors);
+    if (dipole !== null) {
+      anchors.push(dipole.centre);
+      const [mx, my, mz] = dipole.moment;
+      const size = Math.hypot(mx, my, mz);
+      if (size > 0) directions.unshift([Math.acos(Math.max(-1, Math.min(1, mz / size))), Math.atan2(my, mx)]);
+    }
     for (const v of [vectors.slice(3 * peak, 3 * peak + 3), sum]) {
       const size = Math.hypot(v[0]!, v[1]!, v[2]!);
       if (size > 0) directions.push([Math.acos(Math.max(-1, Math.min(1, v[2]! / size))), Math.atan2(v[1]!, v[0]!)]);
@@ -256,7 +260,7 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
     weights += w;
     for (let k = 0; k < 3; k++) centroid[k] = centroid[k]! + w * positions[3 * r + k]!;
   }
-  const anchors = [positions.slice(3 * peak, 3 * peak + 3), centroid.map((v) => v / weights)];
+  anchors.push(centroid.map((v) => v / weights));
   // keep `start` (amplitude scaled, background set) when it fits the sample better than the best so far
   const consider = (): void => {
     model.evaluate(start, sample, predicted);
@@ -305,6 +309,32 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
     for (const j of amplitudes) best[j] = 1;
   }
   return best;
+}
+
+/**
+ * An even subsample of a map's points: every k-th reading (the points of one vector
+ * reading share a position and stay together), at most `readings` readings; the points
+ * themselves when they have no more.
+ */
+export function mapSample(points: SurveyPoints, readings: number): SurveyPoints {
+  const map = points.map;
+  if (map === undefined) return points;
+  const groups: number[] = [];
+  for (let i = 0; i < points.n;) {
+    let j = i + 1;
+    while (j < points.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
+    groups.push(i, j);
+    i = j;
+  }
+  const stride = Math.ceil(groups.length / 2 / readings);
+  if (stride <= 1) return points;
+  const kept: number[] = [];
+  for (let g = 0; g < groups.length; g += 2 * stride) for (let i = groups[g]!; i < groups[g + 1]!; i++) kept.push(i);
+  const pick = (array: Float64Array) => Float64Array.from(kept, (i) => array[i]!);
+  return {
+    n: kept.length, distance: pick(points.distance), radial: pick(points.radial), field: pick(points.field), kind: points.kind,
+    map: { x: pick(map.x), y: pick(map.y), z: pick(map.z), component: Int8Array.from(kept, (i) => map.component[i]!) },
+  };
 }
 
 function amplitudeIndices(model: FieldModel): number[] {
