@@ -183,13 +183,7 @@ const START_READINGS = 160;
 function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, layout: PoseLayout): Float64Array {
   const sample = mapSample(points, START_READINGS);
   const map = sample.map!;
-  const groups: number[] = [];
-  for (let i = 0; i < sample.n;) {
-    let j = i + 1;
-    while (j < sample.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
-    groups.push(i, j);
-    i = j;
-  }
+  const groups = readingGroups(sample);
   const positions: number[] = [];
   const magnitudes: number[] = [];
   const vectors: number[] = [];
@@ -319,13 +313,7 @@ function poseStart(model: FieldModel, base: FieldModel, points: SurveyPoints, la
 export function mapSample(points: SurveyPoints, readings: number): SurveyPoints {
   const map = points.map;
   if (map === undefined) return points;
-  const groups: number[] = [];
-  for (let i = 0; i < points.n;) {
-    let j = i + 1;
-    while (j < points.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
-    groups.push(i, j);
-    i = j;
-  }
+  const groups = readingGroups(points);
   const stride = Math.ceil(groups.length / 2 / readings);
   if (stride <= 1) return points;
   const kept: number[] = [];
@@ -335,6 +323,19 @@ export function mapSample(points: SurveyPoints, readings: number): SurveyPoints 
     n: kept.length, distance: pick(points.distance), radial: pick(points.radial), field: pick(points.field), kind: points.kind,
     map: { x: pick(map.x), y: pick(map.y), z: pick(map.z), component: Int8Array.from(kept, (i) => map.component[i]!) },
   };
+}
+
+/** [first, end) point index pairs of each reading of a map (consecutive points at one position). */
+function readingGroups(points: SurveyPoints): number[] {
+  const map = points.map!;
+  const groups: number[] = [];
+  for (let i = 0; i < points.n;) {
+    let j = i + 1;
+    while (j < points.n && map.x[j] === map.x[i] && map.y[j] === map.y[i] && map.z[j] === map.z[i]) j++;
+    groups.push(i, j);
+    i = j;
+  }
+  return groups;
 }
 
 function amplitudeIndices(model: FieldModel): number[] {
