@@ -18,7 +18,16 @@ const roles: Readonly<Record<string, ParameterRole>> = {
   height: 'geometry',
   probeOffset: 'offset',
   centre: 'offset',
+  lateralCentre: 'offset',
+  centreX: 'offset',
+  centreY: 'offset',
+  centreZ: 'offset',
+  tilt: 'offset',
+  azimuth: 'offset',
   background: 'background',
+  backgroundX: 'background',
+  backgroundY: 'background',
+  backgroundZ: 'background',
   exponent: 'exponent',
 };
 
