@@ -9,7 +9,7 @@ import { html, type SafeHtml } from './html';
 import { residualsChart } from './residuals-chart';
 import { bestFit, rankedFits, type ModelLookup } from './survey-facts';
 import { specNotMadeSection, thresholdSection, verdictSection } from './verdict-section';
-import { centreParameter } from '../core/models/scan-model';
+import { frameParameters } from '../core/models/placement';
 
 /** How many set-aside rows are listed in the page; the JSON export has every one. */
 const rejectedListed = 200;
@@ -58,7 +58,7 @@ ${survey.cautions.length > 0 ? html`<section class="rf-block rf-cautions"><h3>Ca
 /** Parameter table of one fit: value, 95 % interval, and what the parameter means. */
 export function parameterBlock(fit: FitResult, lookup: ModelLookup, title: string, units: SurveyUnitChoice = surveyUnits(null)): SafeHtml {
   const model = lookup(fit.model);
-  const describe = (name: string) => (name === centreParameter.name ? centreParameter : model?.parameters.find((p) => p.name === name))?.description ?? '';
+  const describe = (name: string) => (frameParameters.find((p) => p.name === name) ?? model?.parameters.find((p) => p.name === name))?.description ?? '';
   const weight = fit.stats.akaikeWeight;
   return html`<section class="rf-block rf-params" data-model="${fit.model}"><h3>${title}: ${model?.label ?? fit.model}</h3>
 <p class="rf-sub">${fit.converged ? 'converged' : 'did not converge'} (${fit.stopReason}) after ${fit.iterations} iterations${weight === null ? '' : `; Akaike weight ${formatNumber(weight, 3)}`}.

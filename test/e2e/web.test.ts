@@ -119,6 +119,32 @@ describe('web page', () => {
     await section.locator('.rf-map').screenshot({ path: join(artifactsDir, 'web-field-map.png') });
   });
 
+  it('fits a 3-D map (the tilted applicator sample) and a transverse scan without breaking: pose and lateral centre in the parameter table, charts drawn', async () => {
+    await removeAllFiles();
+    // μ0, CODATA 2018 recommended value
+    const mu0 = 1.25663706212e-6;
+    // a small loop (300 ampere-turns, radius 40 mm) read across it 30 mm away, the lateral ruler's zero 13.7 mm off its axis
+    const across = scratchFile('across.csv', ['lateral position (mm),distance (mm),|B| (mT)', ...Array.from({ length: 25 }, (_, i) => {
+      const x = -60 + 5 * i;
+      const rho = Math.abs(x - 13.7) / 1000;
+      // far-field dipole |B| = μ0 m/(4π r³)·√(1 + 3cos²θ) (Jackson, Classical Electrodynamics, 3rd ed., eq. 5.56), m = N I π a²
+      const r = Math.hypot(0.03, rho);
+      const b = (mu0 * 300 * Math.PI * 0.04 ** 2) / (4 * Math.PI * r ** 3) * Math.sqrt(1 + 3 * (0.03 / r) ** 2);
+      return `${x},30,${(b * 1e3).toFixed(6)}`;
+    })].join('\n') + '\n');
+    await upload([join(repoRoot, 'sample-data', 'qa-512-2026-03-12-tilted-map.csv')]);
+    const map = page.locator('.rf-survey', { hasText: 'QA-512' });
+    for (const name of ['centreX', 'centreY', 'centreZ', 'tilt', 'azimuth']) expect(await map.locator(`.rf-params tr[data-param=${name}]`).count(), name).toBeGreaterThan(0);
+    // sample-data/TRUTH.json: tilt 12°
+    expect(Number(await map.locator('.rf-params tr[data-param=tilt]').first().getAttribute('data-value'))).toBeCloseTo((12 * Math.PI) / 180, 2);
+    expect(await map.locator('canvas').count()).toBeGreaterThanOrEqual(2);
+    await removeAllFiles();
+    await upload([across]);
+    const transverse = page.locator('.rf-survey', { hasText: 'across.csv' });
+    expect(await transverse.locator('.rf-params tr[data-param=lateralCentre]').count()).toBeGreaterThan(0);
+    expect(dialogs).toEqual([]);
+  });
+
   it('shows a broken file’s message next to its name and keeps the other file working', async () => {
     await removeAllFiles();
     const broken = scratchFile('no-field-unit.csv', 'distance (mm),B\n1,2\n3,4\n5,6\n');

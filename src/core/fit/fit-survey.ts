@@ -66,6 +66,8 @@ export function fitSurveyNotes(survey: Survey, options: FitSurveyOptions = {}): 
   const notes = [...uncertainty.notes, ...omittedModelNote(surveyProblem(survey, options.models ?? defaultModels).omitted)];
   if (uncertainty.standardUncertainty === null) {
     notes.push('No uncertainty was given for the readings: every reading weighs the same and the intervals are scaled by the scatter of the residuals. Give the meter\'s accuracy (--uncertainty 1.5%+2µT) to weight readings and test the scatter against it.');
+  } else if ((options.positionUncertainty ?? 0) > 0 && survey.axis === 'map') {
+    notes.push('The position uncertainty is not carried into a 3-D map\'s weights (only the readings\' own uncertainty is); if the scatter is larger than stated, placement is a likely cause.');
   } else if ((options.positionUncertainty ?? 0) > 0) {
     notes.push(`Each reading's uncertainty includes the position uncertainty carried through the local slope of each model (effective variance).`);
   }

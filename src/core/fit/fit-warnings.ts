@@ -75,7 +75,8 @@ export function fitWarnings(input: FitWarningInput): string[] {
   }
   if (model.physical) warnings.push(...plausibilityWarnings(input));
   if (search.outliers !== null) {
-    const lines = input.survey.readings.filter((_, i) => search.outliers![i] === true).map((r) => r.line);
+    // a vector map's three points of one reading share its line: each line once
+    const lines = [...new Set(input.survey.readings.filter((_, i) => search.outliers![i] === true).map((r) => r.line))];
     if (lines.length > 0) {
       warnings.push(`${lines.length} reading${lines.length === 1 ? '' : 's'} flagged as outlier${lines.length === 1 ? '' : 's'} by the ${options.robust} loss (line${lines.length === 1 ? '' : 's'} ${lines.join(', ')}): kept with reduced weight; check them.`);
     }

@@ -1,3 +1,8 @@
+import type { ParameterSpec } from './field-model';
+import { lateralCentreParameter } from './lateral-model';
+import { poseParameters, vectorBackgroundParameters } from './pose-model';
+import { centreParameter } from './scan-model';
+
 /**
  * Parameters that place a coil relative to the readings rather than describe the coil:
  * the probe offset, a scan's centre, a transverse scan's lateral centre and a 3-D map's
@@ -15,3 +20,6 @@ export function isPlacementParameter(name: string): boolean {
 export function isBackgroundParameter(name: string): boolean {
   return name === 'background' || name === 'backgroundX' || name === 'backgroundY' || name === 'backgroundZ';
 }
+
+/** The parameters a survey's frame puts in a catalog model (scan, transverse scan, 3-D map), for their descriptions. */
+export const frameParameters: readonly ParameterSpec[] = [centreParameter, lateralCentreParameter, ...poseParameters, ...vectorBackgroundParameters];
