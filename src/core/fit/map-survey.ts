@@ -104,10 +104,27 @@ function componentReadings(reading: Reading): Reading[] {
   return [c.x, c.y, c.z].map((value) => ({ ...reading, field: value }));
 }
 
-/** A map fit's points with each reading's position and (vector map) component added. */
+/**
+ * A map fit's points with each reading's position and (vector map) component added, and
+ * the pose read near its singularity: when the tilt's 95 % interval reaches 0 the axis
+ * cannot be told from the map's z, so the azimuth (the direction of a tilt that may be
+ * none) is reported as not determined, with a warning, and the tilt's interval starts at 0
+ * (tilt ≥ 0 by definition).
+ */
 export function withMapPoints(fit: FitResult, fitted: Survey, vector: boolean): FitResult {
+  const tilt = fit.params['tilt'];
+  const azimuth = fit.params['azimuth'];
+  const upright = tilt !== undefined && azimuth !== undefined && !azimuth.fixed && tilt.ci95 !== null && tilt.ci95[0] <= 0;
   return {
     ...fit,
+    ...(upright ? {
+      params: {
+        ...fit.params,
+        tilt: { ...tilt, ci95: [0, tilt.ci95![1]] as const },
+        azimuth: { ...azimuth, stderr: null, ci95: null, determined: false },
+      },
+      warnings: [...fit.warnings, `The coil's axis cannot be told from the map's z axis (tilt ${(tilt.value * 180 / Math.PI).toPrecision(2)}°, its interval reaching 0°), so azimuth, the direction of the tilt, is not determined and has no interval; read the axis as along z within the tilt's interval.`],
+    } : {}),
     points: fit.points.map((point, i) => {
       const position = fitted.readings[i]?.position;
       return { ...point, ...(position === undefined ? {} : { position }), ...(vector ? { component: componentNames[i % 3]! } : {}) };
