@@ -82,6 +82,16 @@ describe('ringfall fit on a 3-D map and on a transverse scan', () => {
     expect(readFileSync(join(folder, 'map.html'), 'utf8')).toContain('data-param="tilt"');
   });
 
+  it('--csv of a vector map: three rows per reading with x_m, y_m, z_m and the component', () => {
+    const csv = join(folder, 'map-points.csv');
+    expect(ringfall('fit', mapFile, '--model', 'loop', '--csv', csv).status).toBe(0);
+    const rows = readFileSync(csv, 'utf8').split('\r\n').filter((line) => line !== '' && !line.startsWith('#'));
+    expect(rows[0]!.endsWith(',outlier,x_m,y_m,z_m,component')).toBe(true);
+    // 108 readings (6 × 6 × 3 above) × 3 components, one model
+    expect(rows).toHaveLength(1 + 3 * 108);
+    expect(rows.slice(1, 4).map((row) => row.split(',').slice(-4))).toEqual(['x', 'y', 'z'].map((c) => ['-0.045', '-0.045', '-0.005', c]));
+  });
+
   it('a transverse scan: the lateral centre with an interval, marked "lateral": "position" in JSON', () => {
     const run = ringfall('fit', lateralFile, '--model', 'loop', '--json');
     expect(run.status).toBe(0);

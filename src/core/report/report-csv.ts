@@ -27,10 +27,14 @@ function numberCell(value: number | null | undefined): string {
  * position, value, the model's prediction, the residual and the uncertainty used. SI
  * units, stated in the header names. When the report carries its run record, the file
  * opens with it as `# label: text` lines above the header (the form ringfall's own survey
- * files use for metadata; read with a comment character of "#").
+ * files use for metadata; read with a comment character of "#"). When a survey is a 3-D
+ * map, four columns follow: the reading's x_m, y_m, z_m and, for vector readings, the
+ * component of the map's frame its `field_T` is (empty for other surveys).
  */
 export function reportCsv(report: Report): string {
-  const header = ['source', 'coil', 'date', 'reading_type', 'model', 'best', 'line', 'distance_m', 'radial_m', 'field_T', 'predicted_T', 'residual_T', 'standard_uncertainty_T', 'outlier'];
+  const map = report.surveys.some((survey) => survey.axis === 'map');
+  const header = ['source', 'coil', 'date', 'reading_type', 'model', 'best', 'line', 'distance_m', 'radial_m', 'field_T', 'predicted_T', 'residual_T', 'standard_uncertainty_T', 'outlier',
+    ...(map ? ['x_m', 'y_m', 'z_m', 'component'] : [])];
   const lines = report.run === undefined ? [] : describeRun(report.run).map((line) => `# ${line.label}: ${line.text.replace(/[\r\n]+/g, ' ')}`);
   lines.push(header.join(','));
   for (const survey of report.surveys) {
@@ -40,6 +44,7 @@ export function reportCsv(report: Report): string {
           textCell(survey.source), textCell(survey.coil), textCell(survey.date), textCell(survey.readingType), fit.model,
           fit.model === survey.best ? 'yes' : 'no', String(p.line), numberCell(p.distance), numberCell(p.radial), numberCell(p.field),
           numberCell(p.predicted), numberCell(p.residual), numberCell(p.standardUncertainty), p.outlier ? 'yes' : 'no',
+          ...(map ? [numberCell(p.position?.x), numberCell(p.position?.y), numberCell(p.position?.z), p.component ?? ''] : []),
         ].join(','));
       }
     }
