@@ -1,9 +1,9 @@
-import { choleskyFactorize } from './cholesky-factorize';
+import { choleskyFactorize } from '../linalg/cholesky';
 import { dampingParameter } from './damping-parameter';
 import { finishLeastSquares } from './finish-least-squares';
 import { internalDerivatives, paramsFromInternal } from './free-parameters';
 import { evaluateCost, prepareLeastSquares } from './prepare-least-squares';
-import { applyQTransposeAndFinishR, qrFactorize } from './qr-factorize';
+import { applyQTransposeAndFinishR, qrFactorize } from '../linalg/householder-qr';
 import { weightedJacobian } from './weighted-jacobian';
 import type { AbortFlag, LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution, StopCode } from './least-squares-types';
 import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';

@@ -3,7 +3,7 @@ import { studentTQuantile } from '../../stats/student-t-quantile';
 import { formatNumber } from '../../units';
 import { momentEstimate } from '../../fit/far-field-moment';
 import { parameterRole } from '../parameter-roles';
-import { choleskyFactor, choleskyInverse } from '../symmetric-matrix';
+import { choleskyFactor, choleskyInverse } from '../../linalg/cholesky';
 import { informationMatrix, sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
 
 /** Expected 95 % half-width of one free parameter under a design. */

@@ -1,7 +1,7 @@
 import { mulberry32, normalRandom } from '../../random';
 import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { deltaVariance, type FittedModel } from '../fitted-model';
-import { choleskyFactor } from '../symmetric-matrix';
+import { choleskyFactor } from '../../linalg/cholesky';
 import { fallDistance } from './fall-distance';
 
 /** A threshold distance of the coil's own field with its 95 % interval. */

@@ -4,7 +4,11 @@
  * `qrfac` (Moré, Garbow & Hillstrom, Argonne ANL-80-74, 1980): on return the upper
  * triangle of the first n rows holds R except its diagonal (in `rdiag`), the lower
  * trapezoid holds the Householder vectors, and column j of R belongs to original
- * column `pivot[j]`, so that A·P = Q·R with |R₀₀| ≥ |R₁₁| ≥ ….
+ * column `pivot[j]`, so that A·P = Q·R with |R₀₀| ≥ |R₁₁| ≥ …. With `pivoting` false (qrfac's
+ * `pivot = .false.`) the columns keep their order and `pivot` is the identity.
+ *
+ * The one Householder QR of the project: the least-squares engine uses it pivoted, and
+ * {@link triangularFactor} unpivoted for the covariance.
  *
  * @param rdiag output, length n: diagonal of R.
  * @param columnNorms output, length n: Euclidean norms of the columns of A before
@@ -19,6 +23,7 @@ export function qrFactorize(
   rdiag: Float64Array,
   columnNorms: Float64Array,
   work: Float64Array,
+  pivoting = true,
 ): void {
   for (let j = 0; j < n; j++) {
     const norm = columnNorm(a, j * m, j * m + m);
@@ -31,7 +36,7 @@ export function qrFactorize(
   for (let j = 0; j < steps; j++) {
     // Bring the column of largest remaining norm into the pivot position.
     let kmax = j;
-    for (let k = j; k < n; k++) if (rdiag[k]! > rdiag[kmax]!) kmax = k;
+    if (pivoting) for (let k = j; k < n; k++) if (rdiag[k]! > rdiag[kmax]!) kmax = k;
     if (kmax !== j) {
       for (let i = 0; i < m; i++) {
         const t = a[i + j * m]!;
@@ -56,7 +61,7 @@ export function qrFactorize(
         for (let i = j; i < m; i++) sum += a[i + j * m]! * a[i + k * m]!;
         const temp = sum / a[jj]!;
         for (let i = j; i < m; i++) a[i + k * m]! -= temp * a[i + j * m]!;
-        if (rdiag[k] !== 0) {
+        if (pivoting && rdiag[k] !== 0) {
           const ratio = a[j + k * m]! / rdiag[k]!;
           rdiag[k]! *= Math.sqrt(Math.max(0, 1 - ratio * ratio));
           const relative = rdiag[k]! / work[k]!;
@@ -95,6 +100,33 @@ export function applyQTransposeAndFinishR(
     a[jj] = rdiag[j]!;
     qtv[j] = vector[j]!;
   }
+}
+
+/**
+ * The k×k upper-triangular R of A = Q·R for a row-major n×k matrix A (n ≥ k), by
+ * {@link qrFactorize} without pivoting. A and R have the same singular values and right
+ * singular vectors, so a Jacobi SVD of the small R replaces one of the tall A (Demmel &
+ * Veselić 1992 recommend this preconditioning); Q is not formed. R's diagonal has the
+ * sign opposite to the column's leading entry (Golub & Van Loan, "Matrix Computations",
+ * 4th ed., Alg. 5.2.1, uses the same convention).
+ *
+ * @param a row-major n×k (not modified).
+ * @returns R row-major k×k (zeros below the diagonal), as a plain array.
+ * @example
+ * triangularFactor([3, 4], 2, 1); // [-5] (|R₀₀| = ‖column‖ = 5)
+ */
+export function triangularFactor(a: ArrayLike<number>, n: number, k: number): number[] {
+  // Column-major working copy: reflections run down columns.
+  const w = new Float64Array(n * k);
+  for (let i = 0; i < n; i++) for (let j = 0; j < k; j++) w[j * n + i] = a[i * k + j]!;
+  const rdiag = new Float64Array(k);
+  qrFactorize(n, k, w, new Int32Array(k), rdiag, new Float64Array(k), new Float64Array(k), false);
+  const r = new Array<number>(k * k).fill(0);
+  for (let j = 0; j < k; j++) {
+    r[j * k + j] = rdiag[j]!;
+    for (let c = j + 1; c < k; c++) r[j * k + c] = w[c * n + j]!;
+  }
+  return r;
 }
 
 const EPSILON = 2.220446049250313e-16;

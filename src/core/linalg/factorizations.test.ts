@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../../test/support/expect-close';
-import { choleskyFactorize } from './cholesky-factorize';
-import { applyQTransposeAndFinishR, qrFactorize } from './qr-factorize';
+import { choleskyFactorize } from './cholesky';
+import { applyQTransposeAndFinishR, qrFactorize } from './householder-qr';
 
 const m = 7;
 const k = 3;

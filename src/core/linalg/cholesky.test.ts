@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { choleskyFactor, choleskyInverse, choleskyLogDeterminant } from './symmetric-matrix';
+import { choleskyFactor, choleskyInverse, choleskyLogDeterminant } from './cholesky';
 import { expectClose } from '../../../test/support/expect-close';
 
 describe('choleskyFactor()', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../../test/support/expect-close';
-import { triangularFactor } from './triangular-factor';
+import { triangularFactor } from './householder-qr';
 
 describe('triangularFactor(a, n, k)', () => {
   it('triangularFactor(): RᵀR equals AᵀA for a row-major 7×3 matrix', () => {
