@@ -1,5 +1,5 @@
 import type { FieldModel, ModelId, SurveyPoints } from '../models/field-model';
-import { logLogLine } from '../models/initial-guess';
+import { logLogLine } from '../numeric/log-log-line';
 import { formatNumber } from '../units/format-quantity';
 import { surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../units/survey-units';
 import type { FitResult } from './fit-result';

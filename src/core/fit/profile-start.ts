@@ -1,5 +1,6 @@
 import type { FieldModel, SurveyPoints } from '../models/field-model';
-import { brentMinimum, radialDistance } from '../models/initial-guess';
+import { radialDistance } from '../models/initial-guess';
+import { brentMinimum } from '../numeric/brent-minimum';
 import { scratchArray } from './scratch-array';
 
 /** Units of a source strength: every catalog model's reading is linear in it (Biot–Savart is linear in the current). */

@@ -1,6 +1,7 @@
 import { fitLeastSquares } from './least-squares';
 import type { LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution } from './least-squares-types';
 import type { LeastSquaresWorkspace } from './least-squares-workspace';
+import { medianOf } from '../numeric/order-statistics';
 
 /** Robust loss of a standardised residual u: 'huber' or 'soft-l1' (the losses of scipy's least_squares). */
 export type RobustLoss = 'huber' | 'soft-l1';
@@ -88,9 +89,7 @@ function standardize(residuals: ArrayLike<number>, sigma: Float64Array, stated: 
   for (let i = 0; i < out.length; i++) out[i] = residuals[i]! / sigma[i]!;
   let scale = 1;
   if (!stated) {
-    const sorted = Array.from(out, Math.abs).sort((a, b) => a - b);
-    const middle = sorted.length >> 1;
-    const median = sorted.length % 2 === 1 ? sorted[middle]! : 0.5 * (sorted[middle - 1]! + sorted[middle]!);
+    const median = medianOf(Array.from(out, Math.abs));
     // 1.4826 = 1/Φ⁻¹(3/4) makes the MAD consistent for σ at the normal (common practice).
     scale = 1.4826 * median;
     if (!(scale > 0)) scale = Number.MIN_VALUE;

@@ -1,7 +1,8 @@
 import { dipoleField, dipoleFieldGradient } from '../physics/dipole-field';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
 import type { FieldModel, SurveyPoints } from './field-model';
-import { medianOf, radialDistance, readingSign } from './initial-guess';
+import { medianOf } from '../numeric/order-statistics';
+import { radialDistance, readingSign } from './initial-guess';
 import { backgroundParameter, evaluateFromComponents, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
 const field = new Float64Array(4);

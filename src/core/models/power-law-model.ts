@@ -1,5 +1,7 @@
 import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-model';
-import { logLogLine, medianOf, readingSign } from './initial-guess';
+import { logLogLine } from '../numeric/log-log-line';
+import { medianOf } from '../numeric/order-statistics';
+import { readingSign } from './initial-guess';
 import { backgroundParameter, probeOffsetParameter } from './model-reading';
 
 const amplitudeParameter: ParameterSpec = {
