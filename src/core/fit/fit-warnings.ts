@@ -1,31 +1,9 @@
-import type { FieldModel, SurveyPoints } from '../models/field-model';
 import { chiSquareSurvival } from '../stats/chi-square-survival';
-import type { Survey } from '../survey/survey';
 import { formatNumber } from '../units/format-quantity';
-import type { MomentEstimate } from './far-field-moment';
-import type { ParameterEstimate } from './fit-result';
-import type { FitSurveyOptions } from './fit-survey-options';
+import type { FitWarningInput } from './fit-warning-input';
 import { formatParameter } from './format-parameter';
 import { identifiabilityWarnings } from './identifiability-warnings';
-import type { LeastSquaresSolution } from './least-squares-types';
-import type { ParameterUncertainty } from './parameter-uncertainty';
 import { plausibilityWarnings } from './plausibility-warnings';
-import type { ModelSearch } from './search-model-fit';
-
-/** Everything the warnings of one fit are read from. */
-export interface FitWarningInput {
-  readonly model: FieldModel;
-  readonly survey: Survey;
-  readonly points: SurveyPoints;
-  readonly solution: LeastSquaresSolution;
-  readonly uncertainty: ParameterUncertainty;
-  readonly params: Readonly<Record<string, ParameterEstimate>>;
-  readonly moment: MomentEstimate | null;
-  readonly search: ModelSearch;
-  /** Σ (r/σ)² with the σ used (T²/T²), or RSS when none were stated. */
-  readonly chiSquare: number;
-  readonly options: FitSurveyOptions;
-}
 
 /**
  * Plain-language warnings of one fit, in the order a reader needs them: did the search

@@ -1,6 +1,6 @@
 import type { ModelId } from '../models/field-model';
 import { formatNumber } from '../units/format-quantity';
-import type { FitWarningInput } from './fit-warnings';
+import type { FitWarningInput } from './fit-warning-input';
 import { formatParameter } from './format-parameter';
 
 /** The moment in the model's own symbols, for the far-field sentence. */

@@ -1,5 +1,5 @@
 import { surveyUnits } from '../units/survey-units';
-import type { FitWarningInput } from './fit-warnings';
+import type { FitWarningInput } from './fit-warning-input';
 
 /** Probe offsets outside this range (m) are questioned: recess plus housing is a few mm (common practice). */
 const offsetRange = [-0.002, 0.02] as const;

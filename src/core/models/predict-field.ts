@@ -1,6 +1,6 @@
 import { RingfallError } from '../errors';
 import type { ModelId } from './field-model';
-import { getModel } from './index';
+import { getModel } from './catalog';
 import { acceptedRange, acceptsValue } from './parse-parameter-assignment';
 
 /** The forward field of a model at one point, SI. */
