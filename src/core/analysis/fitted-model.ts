@@ -1,4 +1,4 @@
-import { distanceFormFit } from '../fit/distance-form-fit';
+import { distanceFormFit } from '../fit/strategy/distance-form-fit';
 import type { FitResult } from '../fit/fit-result';
 import { deltaMethodVariance } from '../stats';
 import type { FieldModel } from '../models/field-model';

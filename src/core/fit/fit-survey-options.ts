@@ -1,8 +1,8 @@
 import { RingfallError } from '../errors';
 import type { FieldModel, ModelId } from '../models/field-model';
 import type { RelativePlusAbsolute } from '../units/tolerance';
-import type { AbortFlag } from './least-squares-types';
-import type { RobustLoss } from './robust-fit';
+import type { AbortFlag } from './engine/least-squares-types';
+import type { RobustLoss } from './strategy/robust-fit';
 
 /** The models fitted when none are named (CONTRACT.md `--model` default). */
 export const defaultModels: readonly ModelId[] = ['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube'];

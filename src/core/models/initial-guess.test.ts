@@ -3,8 +3,8 @@ import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
 import { radialDistance } from './initial-guess';
-import { fitLeastSquares } from '../fit/least-squares';
-import { fieldModelProblem } from '../fit/field-model-problem';
+import { fitLeastSquares } from '../fit/engine/least-squares';
+import { fieldModelProblem } from '../fit/strategy/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
 
 /** A survey whose readings are the model's own predictions (noise-free). */

@@ -1,7 +1,7 @@
 import type { ParameterUnit } from '../../models/field-model';
 import { studentTQuantile } from '../../stats/student-t-quantile';
 import { formatNumber } from '../../units';
-import { momentEstimate } from '../../fit/far-field-moment';
+import { momentEstimate } from '../../fit/diagnostics/far-field-moment';
 import { parameterRole } from '../parameter-roles';
 import { choleskyFactor, choleskyInverse } from '../../linalg/cholesky';
 import { informationMatrix, sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
