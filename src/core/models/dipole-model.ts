@@ -29,7 +29,7 @@ export const dipoleModel: FieldModel = {
   label: 'magnetic dipole (far field)',
   physical: true,
   parameters: [
-    { name: 'moment', unit: 'A·m²', lower: -Infinity, upper: Infinity, description: 'magnetic moment m = N·I·area' },
+    { name: 'moment', unit: 'A·m²', role: 'amplitude', lower: -Infinity, upper: Infinity, description: 'magnetic moment m = N·I·area' },
     probeOffsetParameter,
     backgroundParameter,
   ],

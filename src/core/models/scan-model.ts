@@ -6,7 +6,7 @@ import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-m
  * origin of a power law. Unbounded: the ruler's zero may be anywhere.
  */
 export const centreParameter: ParameterSpec = {
-  name: 'centre', unit: 'm', lower: -Infinity, upper: Infinity,
+  name: 'centre', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity,
   description: 'position of the coil\'s centre on the survey\'s ruler (winding plane, midpoint of a pair, mid-length of a solenoid)',
 };
 

@@ -112,7 +112,7 @@ function side(residuals: readonly number[], where: string): string {
 /** A fit's predicted on-axis reading at one stated distance with the background left out (T). */
 function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distance: number): number {
   const model = modelOf(fit.model);
-  const values = Float64Array.from(model.parameters, (p) => (p.name === 'background' ? 0 : fit.params[p.name]?.value ?? NaN));
+  const values = Float64Array.from(model.parameters, (p) => (p.role === 'background' ? 0 : fit.params[p.name]?.value ?? NaN));
   const points: SurveyPoints = { n: 1, distance: Float64Array.of(distance), radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' };
   const out = new Float64Array(1);
   model.evaluate(values, points, out);

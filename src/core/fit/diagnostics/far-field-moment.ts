@@ -41,9 +41,8 @@ function momentAt(model: FieldModel, params: ArrayLike<number>, scratch: MomentS
   let size = 0;
   for (let j = 0; j < coil.length; j++) {
     const spec = model.parameters[j]!;
-    const placement = spec.name === 'probeOffset' || spec.name === 'centre';
-    coil[j] = placement || spec.name === 'background' ? 0 : params[j]!;
-    if (spec.unit === 'm' && !placement) size = Math.max(size, Math.abs(coil[j]!));
+    coil[j] = spec.role === 'offset' || spec.role === 'centre' || spec.role === 'background' ? 0 : params[j]!;
+    if (spec.role === 'geometry') size = Math.max(size, Math.abs(coil[j]!));
   }
   if (!(size > 0) || !Number.isFinite(size)) size = 1e-3;
   distance[0] = 100 * size;

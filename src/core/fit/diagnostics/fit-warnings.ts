@@ -17,7 +17,7 @@ export function fitWarnings(input: FitWarningInput): string[] {
   const { model, solution, uncertainty, search, options } = input;
   const warnings: string[] = [];
   if (solution.stopCode === 'non-finite-start') {
-    const scan = model.parameters.some((p) => p.name === 'centre');
+    const scan = model.parameters.some((p) => p.role === 'centre');
     const hint = scan ? ' (a dipole or power law is infinite at its centre: leave centre free or fix it between readings)'
       : model.physical ? '' : ' (a power law needs the sensing point beyond distance 0: leave probeOffset free or drop --fix probeOffset)';
     warnings.push(`Not fitted: the model cannot be evaluated at every reading from its start${hint}.`);

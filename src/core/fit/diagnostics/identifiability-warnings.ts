@@ -34,7 +34,10 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
   const warnings: string[] = [];
   const freeNames = solution.freeIndices.map((j) => model.parameters[j]!.name);
   const undetermined = freeNames.filter((name) => params[name]?.determined === false);
-  const isCoil = (name: string) => model.physical && name !== 'probeOffset' && name !== 'centre' && name !== 'background';
+  const isCoil = (name: string) => {
+    const role = model.parameters.find((p) => p.name === name)?.role;
+    return model.physical && role !== 'offset' && role !== 'centre' && role !== 'background';
+  };
   const coil = undetermined.filter(isCoil);
   const k = freeNames.length;
   const correlationOf = (a: string, b: string): number | null => {
@@ -103,7 +106,7 @@ export function identifiabilityWarnings(input: FitWarningInput): string[] {
 function largestLength(input: FitWarningInput): { name: string; value: number } | null {
   let best: { name: string; value: number } | null = null;
   input.model.parameters.forEach((spec, j) => {
-    if (spec.unit !== 'm' || spec.name === 'probeOffset' || spec.name === 'centre') return;
+    if (spec.role !== 'geometry') return;
     const value = Math.abs(input.solution.params[j]!);
     if (best === null || value > best.value) best = { name: spec.name, value };
   });

@@ -14,8 +14,8 @@ const axialLoop: FieldModel = {
   label: 'test loop on axis',
   physical: true,
   parameters: [
-    { name: 'ampereTurns', unit: 'A', lower: 0, upper: Infinity, description: 'N·I' },
-    { name: 'radius', unit: 'm', lower: 0, upper: Infinity, description: 'radius' },
+    { name: 'ampereTurns', unit: 'A', role: 'amplitude', lower: 0, upper: Infinity, description: 'N·I' },
+    { name: 'radius', unit: 'm', role: 'geometry', lower: 0, upper: Infinity, description: 'radius' },
   ],
   evaluate(params, points, out) {
     for (let i = 0; i < points.n; i++) {

@@ -3,8 +3,6 @@ import { radialDistance } from '../../models/initial-guess';
 import { brentMinimum } from '../../numeric/brent-minimum';
 import { scratchArray } from './scratch-array';
 
-/** Units of a source strength: every catalog model's reading is linear in it (Biot–Savart is linear in the current). */
-const amplitudeUnits: ReadonlySet<string> = new Set(['A', 'A·m²', 'T·m^n']);
 /** Offsets tried: nearest sensing point at this many log-spaced distances from the datum. */
 const GRID = 10;
 /** Most evaluations refining the best grid offset between its neighbours (Brent's method to 0.1 % of d + δ). */
@@ -62,10 +60,11 @@ export function profileStart(
   sigma: ArrayLike<number> | null,
 ): ProfileStart {
   const specs = model.parameters;
-  const amplitude = specs.findIndex((p) => amplitudeUnits.has(p.unit));
-  const background = specs.findIndex((p) => p.name === 'background');
-  const offset = specs.findIndex((p) => p.name === 'probeOffset');
-  const exponent = specs.findIndex((p) => p.name === 'exponent');
+  // Every catalog model's reading is linear in its amplitude (Biot–Savart is linear in the current).
+  const amplitude = specs.findIndex((p) => p.role === 'amplitude');
+  const background = specs.findIndex((p) => p.role === 'background');
+  const offset = specs.findIndex((p) => p.role === 'offset');
+  const exponent = specs.findIndex((p) => p.role === 'exponent');
   const n = points.n;
   const shape = scratchArray(n, 0);
   const trial = Float64Array.from(start);

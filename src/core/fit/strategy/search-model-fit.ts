@@ -63,7 +63,7 @@ export function searchModelFit(
   specs.forEach((p, j) => {
     if (fixed[j]) initial[j] = fixedValues[p.name]!;
   });
-  const offsetIndex = specs.findIndex((p) => p.name === 'probeOffset');
+  const offsetIndex = specs.findIndex((p) => p.role === 'offset');
   if (!evaluatesEverywhere(model, initial, points) && offsetIndex >= 0 && !fixed[offsetIndex]) {
     // A power law cannot be evaluated at distance 0: start with the sensing point a little out.
     let nearest = Infinity;
@@ -144,8 +144,8 @@ export function leastSquaresOptions(
   let largest = 0;
   for (let i = 0; i < points.n; i++) largest = Math.max(largest, Math.abs(points.field[i]!));
   const typicalSize = model.parameters.map((p, j) => {
-    if (p.unit === 'm') return 0.02 * reach;
-    if (p.unit === 'T') return 0.01 * (largest > 0 ? largest : 1e-6);
+    if (p.role === 'geometry' || p.role === 'offset' || p.role === 'centre') return 0.02 * reach;
+    if (p.role === 'background') return 0.01 * (largest > 0 ? largest : 1e-6);
     return Math.abs(initial[j]!) > 0 ? Math.abs(initial[j]!) : 1;
   });
   // A power law with a free offset can drift to the exponential limit (δ, n → ∞ with n/δ
@@ -159,11 +159,11 @@ export function leastSquaresOptions(
   let nearest = Infinity;
   for (let i = 0; i < points.n; i++) nearest = Math.min(nearest, points.distance[i]!);
   const upper = model.parameters.map((p) => {
-    if (p.name === 'probeOffset') return Math.min(p.upper, reach);
-    if (!model.physical && p.name === 'exponent') return Math.min(p.upper, 12);
+    if (p.role === 'offset') return Math.min(p.upper, reach);
+    if (!model.physical && p.role === 'exponent') return Math.min(p.upper, 12);
     return p.upper;
   });
-  const lower = model.parameters.map((p) => (p.name === 'probeOffset' && Number.isFinite(nearest) ? Math.max(p.lower, -nearest - 0.05 * reach) : p.lower));
+  const lower = model.parameters.map((p) => (p.role === 'offset' && Number.isFinite(nearest) ? Math.max(p.lower, -nearest - 0.05 * reach) : p.lower));
   return {
     initial,
     fixed,

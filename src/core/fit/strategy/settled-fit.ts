@@ -35,7 +35,7 @@ export function settledFit(
   const k = fit.freeIndices.length;
   const n = fit.residuals.length;
   if (fit.jacobian.length !== n * k) return false;
-  const background = model.parameters.findIndex((p) => p.name === 'background');
+  const background = model.parameters.findIndex((p) => p.role === 'background');
   const level = background >= 0 ? fit.params[background]! : 0;
   let largest = 0;
   let source = 0;
@@ -48,7 +48,7 @@ export function settledFit(
   for (const j of fit.freeIndices) {
     const spec = model.parameters[j]!;
     const size = Math.abs(fit.params[j]!);
-    if (spec.unit === 'm' && spec.name !== 'probeOffset' && spec.name !== 'centre' && !(size >= 1e-3 * reach && size <= 100 * reach)) return false;
+    if (spec.role === 'geometry' && !(size >= 1e-3 * reach && size <= 100 * reach)) return false;
   }
   const norm = Math.sqrt(fit.chiSquare);
   for (let c = 0; c < k; c++) {
