@@ -17,5 +17,5 @@ export { parseParameterAssignment, parameterQuantityKind, exampleValue } from '.
 
 export { getModel, isModelId, modelIds } from './catalog';
 export { coilPairModel, dipoleModel, inverseCubeModel, inverseSquareModel, loopModel, powerLawModel, rectangleModel, solenoidModel, thickCoilModel };
-export { predictField, type FieldPrediction } from './predict-field';
+export { isSurveyParameter, predictField, type FieldPrediction } from './predict-field';
 export { centreParameter, nearFaceModels, peakCentre, scanModel } from './scan-model';

@@ -40,7 +40,7 @@ const cache = new WeakMap<FieldModel, FieldModel>();
 export function scanModel(base: FieldModel): FieldModel {
   const cached = cache.get(base);
   if (cached !== undefined) return cached;
-  const offsetIndex = base.parameters.findIndex((p) => p.name === 'probeOffset');
+  const offsetIndex = base.parameters.findIndex((p) => p.role === 'offset');
   if (offsetIndex < 0) return base;
   const lengthIndex = nearFaceModels.has(base.id) ? base.parameters.findIndex((p) => p.name === 'length') : -1;
   const k = base.parameters.length;
