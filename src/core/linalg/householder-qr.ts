@@ -102,6 +102,9 @@ export function applyQTransposeAndFinishR(
   }
 }
 
+/** Reused working arrays of {@link triangularFactor}, grown as needed. */
+let scratch = { w: new Float64Array(0), pivot: new Int32Array(0), rdiag: new Float64Array(0), norms: new Float64Array(0), work: new Float64Array(0) };
+
 /**
  * The k×k upper-triangular R of A = Q·R for a row-major n×k matrix A (n ≥ k), by
  * {@link qrFactorize} without pivoting. A and R have the same singular values and right
@@ -116,11 +119,13 @@ export function applyQTransposeAndFinishR(
  * triangularFactor([3, 4], 2, 1); // [-5] (|R₀₀| = ‖column‖ = 5)
  */
 export function triangularFactor(a: ArrayLike<number>, n: number, k: number): number[] {
-  // Column-major working copy: reflections run down columns.
-  const w = new Float64Array(n * k);
+  // Column-major working copy: reflections run down columns. Scratch is reused between
+  // calls (one per fit): allocating typed arrays costs more than this small factorisation.
+  if (scratch.w.length < n * k) scratch.w = new Float64Array(n * k);
+  if (scratch.rdiag.length < k) scratch = { w: scratch.w, pivot: new Int32Array(k), rdiag: new Float64Array(k), norms: new Float64Array(k), work: new Float64Array(k) };
+  const { w, pivot, rdiag, norms, work } = scratch;
   for (let i = 0; i < n; i++) for (let j = 0; j < k; j++) w[j * n + i] = a[i * k + j]!;
-  const rdiag = new Float64Array(k);
-  qrFactorize(n, k, w, new Int32Array(k), rdiag, new Float64Array(k), new Float64Array(k), false);
+  qrFactorize(n, k, w, pivot, rdiag, norms, work, false);
   const r = new Array<number>(k * k).fill(0);
   for (let j = 0; j < k; j++) {
     r[j * k + j] = rdiag[j]!;
