@@ -4,11 +4,7 @@
  * `qrfac` (Moré, Garbow & Hillstrom, Argonne ANL-80-74, 1980): on return the upper
  * triangle of the first n rows holds R except its diagonal (in `rdiag`), the lower
  * trapezoid holds the Householder vectors, and column j of R belongs to original
- * column `pivot[j]`, so that A·P = Q·R with |R₀₀| ≥ |R₁₁| ≥ …. With `pivoting` false (qrfac's
- * `pivot = .false.`) the columns keep their order and `pivot` is the identity.
- *
- * The one Householder QR of the project: the least-squares engine uses it pivoted, and
- * {@link triangularFactor} unpivoted for the covariance.
+ * column `pivot[j]`, so that A·P = Q·R with |R₀₀| ≥ |R₁₁| ≥ ….
  *
  * @param rdiag output, length n: diagonal of R.
  * @param columnNorms output, length n: Euclidean norms of the columns of A before
@@ -23,7 +19,6 @@ export function qrFactorize(
   rdiag: Float64Array,
   columnNorms: Float64Array,
   work: Float64Array,
-  pivoting = true,
 ): void {
   for (let j = 0; j < n; j++) {
     const norm = columnNorm(a, j * m, j * m + m);
@@ -36,7 +31,7 @@ export function qrFactorize(
   for (let j = 0; j < steps; j++) {
     // Bring the column of largest remaining norm into the pivot position.
     let kmax = j;
-    if (pivoting) for (let k = j; k < n; k++) if (rdiag[k]! > rdiag[kmax]!) kmax = k;
+    for (let k = j; k < n; k++) if (rdiag[k]! > rdiag[kmax]!) kmax = k;
     if (kmax !== j) {
       for (let i = 0; i < m; i++) {
         const t = a[i + j * m]!;
@@ -61,7 +56,7 @@ export function qrFactorize(
         for (let i = j; i < m; i++) sum += a[i + j * m]! * a[i + k * m]!;
         const temp = sum / a[jj]!;
         for (let i = j; i < m; i++) a[i + k * m]! -= temp * a[i + j * m]!;
-        if (pivoting && rdiag[k] !== 0) {
+        if (rdiag[k] !== 0) {
           const ratio = a[j + k * m]! / rdiag[k]!;
           rdiag[k]! *= Math.sqrt(Math.max(0, 1 - ratio * ratio));
           const relative = rdiag[k]! / work[k]!;
@@ -102,16 +97,18 @@ export function applyQTransposeAndFinishR(
   }
 }
 
-/** Reused working arrays of {@link triangularFactor}, grown as needed. */
-let scratch = { w: new Float64Array(0), pivot: new Int32Array(0), rdiag: new Float64Array(0), norms: new Float64Array(0), work: new Float64Array(0) };
-
 /**
  * The k×k upper-triangular R of A = Q·R for a row-major n×k matrix A (n ≥ k), by
- * {@link qrFactorize} without pivoting. A and R have the same singular values and right
- * singular vectors, so a Jacobi SVD of the small R replaces one of the tall A (Demmel &
- * Veselić 1992 recommend this preconditioning); Q is not formed. R's diagonal has the
- * sign opposite to the column's leading entry (Golub & Van Loan, "Matrix Computations",
- * 4th ed., Alg. 5.2.1, uses the same convention).
+ * Householder reflections without pivoting (Golub & Van Loan, "Matrix Computations", 4th
+ * ed., Alg. 5.2.1: v = x − α·e₁, H = I − 2·v·vᵀ/vᵀv). A and R have the same singular values
+ * and right singular vectors, so a Jacobi SVD of the small R replaces one of the tall A
+ * (Demmel & Veselić 1992 recommend this preconditioning); Q is not formed.
+ *
+ * The same reflections as {@link qrFactorize}, in Golub & Van Loan's rounding rather than
+ * MINPACK's (x/‖x‖ + e₁): the covariance, its rank decision and its flat directions are
+ * computed from this R, and on ill-conditioned fits (a far-field moment, a power law with
+ * a free offset) the small singular values follow the rounding, so swapping the two
+ * changes reported intervals. Kept apart on purpose; the engine keeps MINPACK's.
  *
  * @param a row-major n×k (not modified).
  * @returns R row-major k×k (zeros below the diagonal), as a plain array.
@@ -119,16 +116,32 @@ let scratch = { w: new Float64Array(0), pivot: new Int32Array(0), rdiag: new Flo
  * triangularFactor([3, 4], 2, 1); // [-5] (|R₀₀| = ‖column‖ = 5)
  */
 export function triangularFactor(a: ArrayLike<number>, n: number, k: number): number[] {
-  // Column-major working copy: reflections run down columns. Scratch is reused between
-  // calls (one per fit): allocating typed arrays costs more than this small factorisation.
-  if (scratch.w.length < n * k) scratch.w = new Float64Array(n * k);
-  if (scratch.rdiag.length < k) scratch = { w: scratch.w, pivot: new Int32Array(k), rdiag: new Float64Array(k), norms: new Float64Array(k), work: new Float64Array(k) };
-  const { w, pivot, rdiag, norms, work } = scratch;
+  // Column-major working copy: reflections run down columns.
+  const w = new Array<number>(n * k);
   for (let i = 0; i < n; i++) for (let j = 0; j < k; j++) w[j * n + i] = a[i * k + j]!;
-  qrFactorize(n, k, w, pivot, rdiag, norms, work, false);
   const r = new Array<number>(k * k).fill(0);
   for (let j = 0; j < k; j++) {
-    r[j * k + j] = rdiag[j]!;
+    const offset = j * n;
+    let norm = 0;
+    for (let i = j; i < n; i++) norm += w[offset + i]! ** 2;
+    norm = Math.sqrt(norm);
+    if (norm !== 0) {
+      const alpha = w[offset + j]! > 0 ? -norm : norm;
+      // v = x − α·e₁ stored in place; β = 1/(vᵀv/2).
+      w[offset + j] = w[offset + j]! - alpha;
+      let vv = 0;
+      for (let i = j; i < n; i++) vv += w[offset + i]! ** 2;
+      for (let c = j + 1; c < k; c++) {
+        const other = c * n;
+        let dot = 0;
+        for (let i = j; i < n; i++) dot += w[offset + i]! * w[other + i]!;
+        const factor = (2 * dot) / vv;
+        for (let i = j; i < n; i++) w[other + i] = w[other + i]! - factor * w[offset + i]!;
+      }
+      r[j * k + j] = alpha;
+    }
+    // A column already zero from row j down needs no reflection, but row j of R is still
+    // what the earlier reflections left in it.
     for (let c = j + 1; c < k; c++) r[j * k + c] = w[c * n + j]!;
   }
   return r;

@@ -20,4 +20,13 @@ describe('triangularFactor(a, n, k)', () => {
     expect(r[1 * k + 0]).toBe(0);
     expect(triangularFactor([3, 4], 2, 1)).toEqual([-5]);
   });
+
+  it('triangularFactor(): a column already zero from the diagonal down keeps its row of R', () => {
+    // A = [[0, 1], [0, 0]] is already upper triangular: R = A up to signs, RᵀR = AᵀA = [[0, 0], [0, 1]] (hand calculation)
+    const r = triangularFactor([0, 1, 0, 0], 2, 2);
+    expect(r[0]).toBe(0);
+    expect(Math.abs(r[1]!)).toBe(1);
+    expect(r[2]).toBe(0);
+    expect(r[3]).toBe(0);
+  });
 });
