@@ -95,7 +95,7 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
     throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number from 2 to ${mostPoints}. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
   }
   const scan = flags.scan === true;
-  const centre = scan ? values[model.parameters.findIndex((p) => p.name === 'centre')]! : 0;
+  const centre = scan ? values[model.parameters.findIndex((p) => p.role === 'centre')]! : 0;
   const farthest = size > 0 ? 4 * size : 0.2;
   const reach = flags.reach ? readReach(flags.reach, scan) : scan ? ([centre - farthest, centre + farthest] as const) : ([0, farthest] as const);
   const probeSize = flags.probeSize ? length(flags.probeSize, '--probe-size') : Math.min(0.005, (reach[1] - reach[0]) / (2 * count));

@@ -112,7 +112,7 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
 function oneSidedPlan(problem: DesignProblem, options: PlanOptions, interestNames: readonly string[]): ExpectedIntervals | null {
   const base = getModel(problem.model.id);
   const offsetIndex = base.parameters.findIndex((p) => parameterRole(p.name) === 'offset');
-  const centreIndex = problem.model.parameters.findIndex((p) => p.name === 'centre');
+  const centreIndex = problem.model.parameters.findIndex((p) => p.role === 'centre');
   if (offsetIndex < 0 || centreIndex !== offsetIndex) return null;
   const values = Float64Array.from(problem.values);
   const centre = values[centreIndex]!;
