@@ -70,6 +70,34 @@ describe('import cycles and the inner folders of core', () => {
     expect(broken).toEqual([]);
   });
 
+  it('inside core, folders import only folders below them (… models ← fit ← analysis ← report)', () => {
+    // the project's own layering (issue #14, DEVELOPERS.md "Imports point one way")
+    const rank = new Map<string, number>([
+      ['text', 0], ['error-codes.ts', 0],
+      ['errors.ts', 1], ['random', 1], ['linalg', 1], ['numeric', 1],
+      ['physics', 2], ['stats', 2], ['survey', 2],
+      ['units', 3],
+      ['models', 4],
+      ['fit', 5],
+      ['analysis', 6],
+      ['report', 7],
+    ]);
+    const folderOf = (path: string): string => path.split('/')[1]!;
+    const unplaced = new Set<string>();
+    const upward: string[] = [];
+    for (const [file, targets] of importGraph()) {
+      if (!file.startsWith('core/') || file.endsWith('.test.ts') || file.includes('/testing/')) continue;
+      for (const target of targets) {
+        if (!target.startsWith('core/')) continue;
+        const [from, to] = [folderOf(file), folderOf(target)];
+        for (const folder of [from, to]) if (!rank.has(folder) && folder !== 'index.ts') unplaced.add(folder);
+        if (from !== to && rank.has(from) && rank.has(to) && rank.get(to)! >= rank.get(from)!) upward.push(`${file} imports ${target}`);
+      }
+    }
+    expect([...unplaced]).toEqual([]);
+    expect(upward).toEqual([]);
+  });
+
   it('finds a cycle when there is one (a sanity check of the search)', () => {
     // hand-made graphs: a → b → c → a is one cycle, d → d another, e → a none
     const graph = new Map([['a', ['b']], ['b', ['c']], ['c', ['a']], ['d', ['d']], ['e', ['a']]]);
