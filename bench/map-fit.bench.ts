@@ -6,7 +6,7 @@
  * Target: the whole fit under 0.5 s (wall, one core). Median of 7 runs after a warm-up;
  * exits 1 when a figure misses it.
  */
-import { fitSurvey } from '../src/core/fit/fit-survey';
+import { fitSurvey } from '../src/core/fit/strategy/fit-survey';
 import type { FitSurveyOptions } from '../src/core/fit/fit-survey-options';
 import { predictFieldAtPoint } from '../src/core/models';
 import { mulberry32, normalRandom } from '../src/core/random';

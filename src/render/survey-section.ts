@@ -9,7 +9,7 @@ import { html, type SafeHtml } from './html';
 import { residualsChart } from './residuals-chart';
 import { bestFit, rankedFits, type ModelLookup } from './survey-facts';
 import { specNotMadeSection, thresholdSection, verdictSection } from './verdict-section';
-import { frameParameters } from '../core/models/placement';
+import { frameParameters } from '../core/models/frame-parameters';
 
 /** How many set-aside rows are listed in the page; the JSON export has every one. */
 const rejectedListed = 200;

@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { isRingfallError, RingfallError } from '../../core/errors';
-import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, poseModel, poseModelIds, predictField, predictFieldAtPoint } from '../../core/models';
+import { exampleValue, getModel, isSurveyParameter, parameterQuantityKind, parseParameterAssignment, poseModel, poseModelIds, predictField, predictFieldAtPoint } from '../../core/models';
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { JsonPrediction } from '../../core/report/json-types';
@@ -45,9 +45,6 @@ const datum: Readonly<Record<ModelId, string>> = {
   'inverse-square': 'from the datum',
   'inverse-cube': 'from the datum',
 };
-
-/** Parameters that default to 0 when not set: they describe the survey, not the coil. */
-const optional = new Set(['probeOffset', 'background', 'centreX', 'centreY', 'centreZ', 'tilt', 'azimuth']);
 
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
@@ -97,7 +94,7 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
     given.add(name);
     params[index] = value;
   }
-  const missing = model.parameters.filter((p) => !given.has(p.name) && !optional.has(p.name));
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !isSurveyParameter(p));
   if (missing.length > 0) {
     const first = missing[0]!;
     throw new RingfallError(
@@ -152,7 +149,8 @@ function predictAtPoint(flags: PredictFlags): Prediction {
     given.add(name);
     params[index] = value;
   }
-  const missing = model.parameters.filter((p) => !given.has(p.name) && !optional.has(p.name));
+  // the pose defaults to the map's origin and +z (centre 0, tilt 0, azimuth 0)
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !isSurveyParameter(p) && p.role !== 'centre' && p.role !== 'orientation');
   if (missing.length > 0) {
     throw new RingfallError('PREDICT_MISSING', `--set: the ${model.id} model needs ${missing.map((p) => p.name).join(', ')}. Pass ${missing.map((p, i) => `--set ${p.name}=${i === 0 ? exampleValue(p.unit) : '…'}`).join(' ')}.`, { value: missing.map((p) => p.name), where: '--set' });
   }
@@ -210,7 +208,7 @@ export function renderPrediction(prediction: Prediction): string {
   }).join(', ');
   const gauss = (value: number) => formatQuantity(value, 'field', { unit: Math.abs(value) >= 1e-4 ? { symbol: 'G', factor: 1e-4 } : { symbol: 'mG', factor: 1e-7 } });
   const line = (label: string, value: number) => `  ${label.padEnd(22)}${formatQuantity(value, 'field').padStart(12)}   (${gauss(value)})\n`;
-  const background = params[model.parameters.findIndex((p) => p.name === 'background')] ?? 0;
+  const background = params[model.parameters.findIndex((p) => p.role === 'background')] ?? 0;
   return (
     `${model.id}: ${model.label}\n` +
     `  ${parameterText}\n` +

@@ -1,4 +1,4 @@
-import { inDistanceForm } from '../fit/distance-form-fit';
+import { inDistanceForm } from '../fit/strategy/distance-form-fit';
 import type { FitResult } from '../fit/fit-result';
 import { deltaMethodVariance } from '../stats';
 import type { FieldModel } from '../models/field-model';

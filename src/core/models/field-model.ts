@@ -18,10 +18,28 @@ export type ModelId =
 /** Unit of a parameter in SI, as it appears in the JSON report. */
 export type ParameterUnit = 'A' | 'm' | 'T' | 'A·m²' | '1' | 'T·m^n' | 'rad';
 
+/**
+ * What a parameter does to the survey curve (DOMAIN.md §5), so that the fit and the
+ * analyses never guess it from names or units:
+ * - 'amplitude': the source strength; every reading is linear in it (ampereTurns, moment,
+ *   a power law's amplitude);
+ * - 'geometry': a length of the source that changes the curve's normalised shape (radius,
+ *   lengths, separation, sides);
+ * - 'offset': the probe offset, shifting the curve along the distance axis;
+ * - 'centre': a scan's centre, the position of the datum along a signed scan axis (also a
+ *   transverse scan's lateralCentre and a 3-D map's centreX, centreY, centreZ);
+ * - 'orientation': the direction of a posed coil's axis (a 3-D map's tilt and azimuth);
+ * - 'background': a constant added to every reading;
+ * - 'exponent': a power law's slope on log–log axes.
+ */
+export type ParameterRole = 'amplitude' | 'geometry' | 'offset' | 'centre' | 'orientation' | 'background' | 'exponent';
+
 export interface ParameterSpec {
   /** Name used in --fix, spec files and JSON (camelCase: ampereTurns, radius, probeOffset). */
   readonly name: string;
   readonly unit: ParameterUnit;
+  /** What the parameter does to the curve; code asks this, never the name or unit. */
+  readonly role: ParameterRole;
   /** Hard bounds the fit respects (SI). Use ±Infinity for none. */
   readonly lower: number;
   readonly upper: number;

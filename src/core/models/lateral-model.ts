@@ -6,7 +6,7 @@ import type { FieldModel, ParameterSpec, SurveyPoints } from './field-model';
  * ruler's zero may be anywhere across the coil.
  */
 export const lateralCentreParameter: ParameterSpec = {
-  name: 'lateralCentre', unit: 'm', lower: -Infinity, upper: Infinity,
+  name: 'lateralCentre', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity,
   description: 'position of the coil\'s axis on the survey\'s lateral ruler (a scan across the coil)',
 };
 

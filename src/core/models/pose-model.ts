@@ -9,16 +9,16 @@ export const poseModelIds: readonly ModelId[] = ['loop', 'thick-coil', 'solenoid
 
 /** The pose parameters, in the order they replace the probe offset. */
 export const poseParameters: readonly ParameterSpec[] = [
-  { name: 'centreX', unit: 'm', lower: -Infinity, upper: Infinity, description: 'x of the coil\'s centre in the map\'s frame (winding plane on the axis, midpoint of a pair, mid-length of a solenoid)' },
-  { name: 'centreY', unit: 'm', lower: -Infinity, upper: Infinity, description: 'y of the coil\'s centre in the map\'s frame' },
-  { name: 'centreZ', unit: 'm', lower: -Infinity, upper: Infinity, description: 'z of the coil\'s centre in the map\'s frame' },
-  { name: 'tilt', unit: 'rad', lower: -Infinity, upper: Infinity, description: 'angle of the coil\'s axis from the map\'s +z axis (0 to 90°: the axis and its opposite are one coil)' },
-  { name: 'azimuth', unit: 'rad', lower: -Infinity, upper: Infinity, description: 'direction of the tilt, from the map\'s +x axis towards +y (−180° to 180°)' },
+  { name: 'centreX', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity, description: 'x of the coil\'s centre in the map\'s frame (winding plane on the axis, midpoint of a pair, mid-length of a solenoid)' },
+  { name: 'centreY', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity, description: 'y of the coil\'s centre in the map\'s frame' },
+  { name: 'centreZ', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity, description: 'z of the coil\'s centre in the map\'s frame' },
+  { name: 'tilt', unit: 'rad', role: 'orientation', lower: -Infinity, upper: Infinity, description: 'angle of the coil\'s axis from the map\'s +z axis (0 to 90°: the axis and its opposite are one coil)' },
+  { name: 'azimuth', unit: 'rad', role: 'orientation', lower: -Infinity, upper: Infinity, description: 'direction of the tilt, from the map\'s +x axis towards +y (−180° to 180°)' },
 ];
 
 /** A vector map's uniform background field, one per component of the map's frame. */
 export const vectorBackgroundParameters: readonly ParameterSpec[] = ['X', 'Y', 'Z'].map((axis) => ({
-  name: `background${axis}`, unit: 'T' as const, lower: -Infinity, upper: Infinity,
+  name: `background${axis}`, unit: 'T' as const, role: 'background' as const, lower: -Infinity, upper: Infinity,
   description: `uniform background field along the map's ${axis.toLowerCase()} axis (Earth, offset of the meter's ${axis.toLowerCase()} sensor)`,
 }));
 
@@ -58,8 +58,8 @@ export function poseModel(base: FieldModel, vector: boolean): FieldModel {
   if (cached !== undefined) return cached;
   if (!poseModelIds.includes(base.id) || base.components === undefined) throw new RangeError(`poseModel: model "${base.id}" has no axis to pose`);
   const components = base.components;
-  const offsetIndex = base.parameters.findIndex((p) => p.name === 'probeOffset');
-  const backgroundIndex = base.parameters.findIndex((p) => p.name === 'background');
+  const offsetIndex = base.parameters.findIndex((p) => p.role === 'offset');
+  const backgroundIndex = base.parameters.findIndex((p) => p.role === 'background');
   const lengthIndex = nearFaceModels.has(base.id) ? base.parameters.findIndex((p) => p.name === 'length') : -1;
   // Model order: the base's parameters, with the probe offset replaced by the pose and (vector) the background by three.
   const parameters: ParameterSpec[] = [];
@@ -74,7 +74,7 @@ export function poseModel(base: FieldModel, vector: boolean): FieldModel {
   });
   const pose = parameters.findIndex((p) => p.name === 'centreX');
   const backgrounds = vector ? parameters.findIndex((p) => p.name === 'backgroundX') : parameters.findIndex((p) => p.name === 'background');
-  const amplitudes = parameters.flatMap((p, j) => (p.unit === 'A' || p.unit === 'A·m²' ? [j] : []));
+  const amplitudes = parameters.flatMap((p, j) => (p.role === 'amplitude' ? [j] : []));
   const inner = new Float64Array(base.parameters.length);
   const axis = new Float64Array(3);
   const frame = new Float64Array(5);
@@ -339,7 +339,7 @@ function readingGroups(points: SurveyPoints): number[] {
 }
 
 function amplitudeIndices(model: FieldModel): number[] {
-  return model.parameters.flatMap((p, j) => (p.unit === 'A' || p.unit === 'A·m²' ? [j] : []));
+  return model.parameters.flatMap((p, j) => (p.role === 'amplitude' ? [j] : []));
 }
 
 /** Least squares of y ≈ a·f + b (b only for magnitudes): the misfit left, a and b. */

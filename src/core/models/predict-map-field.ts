@@ -1,7 +1,7 @@
 import { RingfallError } from '../errors';
 import { axisDirection, coilFrame } from '../physics/coil-pose';
 import type { ModelId } from './field-model';
-import { getModel } from './index';
+import { getModel } from './catalog';
 import { poseModel, poseModelIds } from './pose-model';
 import { predictField, type FieldPrediction } from './predict-field';
 import { nearFaceModels } from './scan-model';
