@@ -26,6 +26,18 @@ describe('fromJsonReport()', () => {
     expect(back.surveys[0]!.readings).toEqual(analysed.readings);
   });
 
+  it('a 3-D map\'s report comes back with its marker, pose and points (x, y, z, component)', () => {
+    const text = readFileSync('sample-data/qa-512-2026-03-12-tilted-map.csv', 'utf8');
+    const survey = importSurveys(text, { source: 'map.csv' }).surveys[0]!;
+    const analysed = analyseSurvey(survey, { fit: { models: ['loop'] }, specs: [], thresholds: [] });
+    expect(analysed.axis).toBe('map');
+    // a round trip through JSON text (RFC 8259) loses nothing of a report with finite numbers
+    const back = fromJsonReport(JSON.parse(JSON.stringify(toJsonReport({ surveys: [analysed] }))), 'map.json');
+    expect(back.surveys[0]!.axis).toBe('map');
+    expect(back.surveys[0]!.fits.map((f) => f.points)).toEqual(analysed.fits.map((f) => f.points));
+    expect(back.surveys[0]!.fits[0]!.params['tilt']).toEqual(analysed.fits[0]!.params['tilt']);
+  });
+
   it('fromJsonReport() refuses what is not a ringfall report with REPORT_NOT_RINGFALL, naming the file', () => {
     for (const json of [{ schema: 'other/1', surveys: [] }, [1, 2], { surveys: [] }]) {
       let error: unknown;
