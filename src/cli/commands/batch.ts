@@ -106,13 +106,11 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
           if (flags.json === true) {
             // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
-            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }));
-            for (const survey of spool!.all()) {
-              stream.survey(survey);
-              // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
-              if (process.stdout.writableNeedDrain) await once(process.stdout, 'drain');
-            }
-            stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
+            // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
+            const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
+            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
+            for (const survey of spool!.all()) await stream.survey(survey);
+            await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
           }
