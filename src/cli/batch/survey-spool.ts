@@ -1,6 +1,12 @@
 import { closeSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
 import type { SurveyReport } from '../../core/report/report';
 
+/** Where a line of a spool is: its first byte and its length in bytes. */
+export interface SpoolPlace {
+  readonly offset: number;
+  readonly length: number;
+}
+
 /**
  * Surveys of a batch kept on disk instead of in memory until `batch --out` writes the
  * page of each coil: each survey is appended to one file as a line of JSON, and only its
@@ -11,9 +17,9 @@ import type { SurveyReport } from '../../core/report/report';
 export class SurveySpool {
   private readonly fd: number;
   private size = 0;
-  private readonly places = new Map<string, { offset: number; length: number }[]>();
+  private readonly places = new Map<string, SpoolPlace[]>();
   /** Every survey's place, in the order added (the report's order). */
-  private readonly order: { offset: number; length: number }[] = [];
+  private readonly order: SpoolPlace[] = [];
 
   constructor(private readonly path: string) {
     this.fd = openSync(path, 'wx+');
@@ -26,14 +32,20 @@ export class SurveySpool {
 
   /** Append a survey already made into a line (spoolLine, e.g. by a worker) under `key`. */
   addLine(key: string, line: string): void {
-    const bytes = Buffer.from(line, 'utf8');
-    for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
+    const place = this.append(line);
     const list = this.places.get(key) ?? [];
-    const place = { offset: this.size, length: bytes.length };
     list.push(place);
     this.places.set(key, list);
     this.order.push(place);
+  }
+
+  /** Append a line (e.g. spoolLine of any value) under no key: the caller keeps its place and reads it back with `at`. */
+  append(line: string): SpoolPlace {
+    const bytes = Buffer.from(line, 'utf8');
+    for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
+    const place = { offset: this.size, length: bytes.length };
     this.size += bytes.length;
+    return place;
   }
 
   /** The surveys added under `key`, in the order added. */
@@ -54,7 +66,8 @@ export class SurveySpool {
   /** One buffer for reading surveys back, grown as needed: reading 50,000 surveys allocates no buffer per survey. */
   private readBuffer = Buffer.alloc(1 << 16);
 
-  private at({ offset, length }: { offset: number; length: number }): SurveyReport {
+  /** The value of the spool line at `place`, as it was before spoolLine. */
+  at<T = SurveyReport>({ offset, length }: SpoolPlace): T {
     if (this.readBuffer.length < length) this.readBuffer = Buffer.alloc(Math.max(length, 2 * this.readBuffer.length));
     const bytes = this.readBuffer;
     for (let done = 0; done < length;) {
@@ -62,7 +75,7 @@ export class SurveySpool {
       if (got === 0) throw new Error(`survey spool ${this.path}: ended at byte ${offset + done}, expected ${offset + length}`);
       done += got;
     }
-    return JSON.parse(bytes.toString('utf8', 0, length), restoreNumbers) as SurveyReport;
+    return JSON.parse(bytes.toString('utf8', 0, length), restoreNumbers) as T;
   }
 
   /** Close and delete the spool file. */
@@ -76,9 +89,9 @@ export class SurveySpool {
   }
 }
 
-/** A survey as one line of a spool: JSON that keeps non-finite numbers, and a newline. */
-export function spoolLine(survey: SurveyReport): string {
-  return `${JSON.stringify(survey, keepNumbers)}\n`;
+/** A survey (or any plain data) as one line of a spool: JSON that keeps non-finite numbers, and a newline. */
+export function spoolLine(value: unknown): string {
+  return `${JSON.stringify(value, keepNumbers)}\n`;
 }
 
 /**

@@ -83,18 +83,18 @@ export function registerBatch(program: Command, context: CommandContext): void {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
         // the files' SHA-256 for the run record, read on this thread while the workers fit
         const hashing = describeFiles(files);
-        // surveys go to a spool on disk as they come (for the JSON report and the pages), and
-        // the collector keeps only what the summary and the fleet history need: memory stays
-        // flat in the number of files
-        const spoolFolder = claim === null && flags.json === true ? mkdtempSync(join(tmpdir(), 'ringfall-batch-')) : null;
-        const spool = claim !== null ? new SurveySpool(claim.scratchPath('surveys.jsonl')) : spoolFolder !== null ? new SurveySpool(join(spoolFolder, 'surveys.jsonl')) : null;
+        // surveys go to a spool on disk as they come (for the JSON report and the pages), as
+        // does what the summary and the fleet history need (the collector keeps their places):
+        // memory stays flat in the number of files
+        const spoolFolder = claim === null ? mkdtempSync(join(tmpdir(), 'ringfall-batch-')) : null;
+        const spool = new SurveySpool(claim !== null ? claim.scratchPath('surveys.jsonl') : join(spoolFolder!, 'surveys.jsonl'));
         try {
-          const collector = new FleetCollector(settings);
+          const collector = new FleetCollector(settings, spool);
           let uncoiled = 0;
           const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
             const digests = collector.add(outcome);
             reportUnappliedSpecs({ surveys: digests.map((digest) => digest.row) });
-            for (const digest of digests) spool?.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
+            if (flags.json === true || flags.out !== undefined) for (const digest of digests) spool.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
           });
           const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
           const summary = collector.report();
@@ -109,21 +109,21 @@ export function registerBatch(program: Command, context: CommandContext): void {
             // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
             const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
-            for (const survey of spool!.all()) await stream.survey(survey);
+            for (const survey of spool.all()) await stream.survey(survey);
             await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
           }
           if (flags.out !== undefined) {
             let pageUncoiled = 0;
-            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool!.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
+            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
             process.stderr.write(`ringfall batch: wrote ${written.filter((path) => path.endsWith('.html')).length} HTML pages and one copy of Chart.js to ${flags.out} (open ${written[0]})\n`);
           }
           const stoppedBy = signal ?? stop.signal;
           if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
           context.setExitCode(worseStatus(collector.checksStatus, batchStatus(report)));
         } finally {
-          spool?.dispose();
+          spool.dispose();
           if (spoolFolder !== null) rmSync(spoolFolder, { recursive: true, force: true });
         }
       } finally {
