@@ -1,4 +1,4 @@
-import type { Report, SurveyReport } from '../core/report/report';
+import type { Report } from '../core/report/report';
 import { toJsonReport } from '../core/report/to-json-report';
 import { jsonPieces } from './json-pieces';
 
@@ -39,16 +39,10 @@ export class JsonReportStream {
     return this.surveys;
   }
 
-  /** Write one survey (in report order). */
-  async survey(survey: SurveyReport): Promise<void> {
-    const json = (this.toJson({ surveys: [survey] })['surveys'] as unknown[])[0];
-    await this.surveyText(JSON.stringify(json, null, 2));
-  }
-
   /**
    * Write one survey (in report order) given as its JSON text: the text of
    * `JSON.stringify(survey, null, 2)` for the survey as toJsonReport maps it in this report
-   * (surveyJsonText in batch/survey-json.ts makes it from a worker's parts).
+   * (surveyJsonText in batch/survey-json.ts makes it from a worker's record).
    */
   async surveyText(text: string): Promise<void> {
     await this.start();

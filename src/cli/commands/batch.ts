@@ -14,7 +14,8 @@ import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatchInOrder } from '../batch/run-batch';
 import { FleetCollector } from '../batch/fleet-collector';
-import { SurveySpool } from '../batch/survey-spool';
+import { SurveySpool, type SpoolPlace } from '../batch/survey-spool';
+import { surveyJsonText } from '../batch/survey-json';
 import { JsonReportStream } from '../json-report-stream';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { claimOutFolder } from '../batch/out-folder-lock';
@@ -91,10 +92,15 @@ export function registerBatch(program: Command, context: CommandContext): void {
         try {
           const collector = new FleetCollector(settings, spool);
           let uncoiled = 0;
+          // each survey's JSON text in the spool, in report order
+          const jsonPlaces: SpoolPlace[] = [];
           const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
             const digests = collector.add(outcome);
             reportUnappliedSpecs({ surveys: digests.map((digest) => digest.row) });
-            if (flags.json === true || flags.out !== undefined) for (const digest of digests) spool.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
+            for (const digest of digests) {
+              if (digest.line !== undefined) spool.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
+              if (digest.json !== undefined) jsonPlaces.push(spool.append(digest.json));
+            }
           });
           const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
           const summary = collector.report();
@@ -105,11 +111,13 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
           if (flags.json === true) {
-            // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
+            // written survey by survey from the spool, each as the worker made its text with the
+            // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole report
             // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
             const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
-            for (const survey of spool.all()) await stream.survey(survey);
+            const withFleet = fleet ? { fleet } : {};
+            for (const place of jsonPlaces) await stream.surveyText(surveyJsonText(spool.text(place), withFleet));
             await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
@@ -146,8 +154,9 @@ async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
     specs: options.spec === null ? [] : await readSpecFile(options.spec),
     thresholds: options.thresholds,
     keepPoints: flags.out !== undefined,
-    // workers send digests: the main thread appends each survey's text to the spool and keeps a small row
-    digest: true,
+    // workers send digests: the main thread appends each survey's texts to the spool (the
+    // JSON text and the page's line only when they are written) and keeps their places
+    digest: { pages: flags.out !== undefined, json: flags.json === true },
   };
 }
 
