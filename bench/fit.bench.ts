@@ -2,7 +2,7 @@
  * Fit benchmark (issue 4): Levenberg–Marquardt fits per second of 30-point, 4-parameter
  * loop surveys (ampereTurns, radius, probeOffset, background) on one core with an
  * analytic Jacobian, next to ml-levenberg-marquardt 5.1.0 on the same data and starts.
- * Target: ≥ 100,000 fits/s. Rates are per CPU-second of this process (one core; shared
+ * Targets: ≥ 150,000 fits per CPU-second, ≥ 100,000 with covariance and intervals. Rates are per CPU-second of this process (one core; shared
  * machines inflate wall time) and per wall second. A minimal hand-written LM on the same
  * data calibrates the machine. Prints figures and ratios; exits 1 if the target is missed.
  *
@@ -19,7 +19,8 @@ import { mulberry32 } from '../src/core/random/mulberry32';
 import { normalRandom } from '../src/core/random/normal-random';
 
 const MU0 = 1.25663706212e-6; // CODATA 2018, DOMAIN.md §6
-const TARGET = 100_000;
+const TARGET = 150_000;
+const TARGET_WITH_COVARIANCE = 100_000;
 const POINTS = 30;
 const SURVEYS = 256;
 const truth = [400, 0.05, 0.004, 2e-5]; // A, m, m, T
@@ -207,5 +208,6 @@ console.log(
 );
 console.log(`load average now ${loadavg().map((v) => v.toFixed(1)).join(', ')} on ${cpus().length} cores`);
 console.log(`target ${TARGET.toLocaleString('en-US')} fits per CPU-second: ${(fitOnly / TARGET).toFixed(2)}× of target (${fitOnly >= TARGET ? 'met' : 'MISSED'})`);
+console.log(`target ${TARGET_WITH_COVARIANCE.toLocaleString('en-US')} fits per CPU-second with covariance and intervals: ${(withCovariance / TARGET_WITH_COVARIANCE).toFixed(2)}× of target (${withCovariance >= TARGET_WITH_COVARIANCE ? 'met' : 'MISSED'})`);
 console.log(`covariance and intervals cost ${((fitOnly / withCovariance - 1) * 100).toFixed(0)} % on top of the fit`);
-if (fitOnly < TARGET) process.exitCode = 1;
+if (fitOnly < TARGET || withCovariance < TARGET_WITH_COVARIANCE) process.exitCode = 1;

@@ -20,16 +20,20 @@ import { mkdirSync, readFileSync, readdirSync, renameSync, writeFileSync } from 
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build, type Plugin } from 'esbuild';
+import { chartLibraryPath, chartLibrarySpecifier } from '../src/cli/chart-library';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const outDir = resolve(process.argv[2] ?? join(root, 'site'));
 const fileName = 'ringfall.html';
 
-/** `import x from './file?raw'`: the file's text, as Vite gives it. */
+/** `import x from './file?raw'`: the file's text, as Vite gives it (the Chart.js UMD bundle by name, as vite.config.ts maps it). */
 const rawText: Plugin = {
   name: 'raw-text',
   setup(builder) {
-    builder.onResolve({ filter: /\?raw$/ }, (args) => ({ path: resolve(args.resolveDir, args.path.slice(0, -'?raw'.length)), namespace: 'raw-text' }));
+    builder.onResolve({ filter: /\?raw$/ }, (args) => {
+      const file = args.path.slice(0, -'?raw'.length);
+      return { path: file === chartLibrarySpecifier ? chartLibraryPath() : resolve(args.resolveDir, file), namespace: 'raw-text' };
+    });
     builder.onLoad({ filter: /.*/, namespace: 'raw-text' }, (args) => ({ contents: readFileSync(args.path, 'utf8'), loader: 'text' }));
   },
 };

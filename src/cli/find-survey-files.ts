@@ -2,6 +2,7 @@ import { existsSync, readdirSync, readFileSync, realpathSync, statSync, type Dir
 import { join, extname } from 'node:path';
 import { RingfallError } from '../core/errors';
 import { isSkipped, readSkipList, type SkipList, type SkippedFiles } from './skip-list';
+import type { ProblemCode } from '../core/error-codes';
 
 /** File endings taken as survey logs when a folder is given. */
 const surveyEndings = new Set(['.csv', '.tsv', '.txt']);
@@ -11,7 +12,7 @@ export interface UnusablePath {
   readonly source: string;
   readonly reason: string;
   /** INPUT_FOLDER_UNREADABLE, INPUT_NOT_REGULAR, INPUT_SYMLINK_LOOP, INPUT_LINK_BROKEN, INPUT_UNREADABLE or INPUT_SKIP_LIST_UNREADABLE. */
-  readonly code: string;
+  readonly code: Extract<ProblemCode, `INPUT_${string}`>;
 }
 
 /** Options of findSurveyFiles and surveyFilesFrom. */

@@ -67,11 +67,6 @@ export const shortUsage =
   'Usage: ringfall <command> [options]   (commands: fit, predict, batch, plan, demo)\n' +
   'Try "ringfall demo" for a sample report, or "ringfall --help" and "ringfall <command> --help" for the options.\n';
 
-/** What a command may do besides printing: raise the process exit status. */
-export interface CommandContext {
-  setExitCode(code: number): void;
-}
-
 /**
  * A usage error commander reports ("error: unknown option '--x'\n(Did you mean --y?)\n")
  * as the one line CONTRACT.md asks for: what was wrong, then the help of the command named

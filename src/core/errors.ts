@@ -1,7 +1,8 @@
+import type { ProblemCode } from './error-codes';
 import { printable } from './text/printable';
 
 /**
- * Project error: a problem the user can fix. Carries a stable `code`, the offending
+ * Project error: a problem the user can fix. Carries a stable `code` (error-codes.ts), the offending
  * value and where it was found, so callers (CLI, web page) can map it to an exit status
  * or show it next to the input. Message form: "what failed: what was found (where).
  * What to do." The message is one line: control characters that reach it from files and
@@ -12,12 +13,12 @@ import { printable } from './text/printable';
  */
 export class RingfallError extends Error {
   override readonly name = 'RingfallError';
-  readonly code: string;
+  readonly code: ProblemCode;
   readonly value: unknown;
   readonly where: string | null;
 
   constructor(
-    code: string,
+    code: ProblemCode,
     message: string,
     details: { value?: unknown; where?: string | null; cause?: unknown } = {},
   ) {
@@ -29,6 +30,6 @@ export class RingfallError extends Error {
 }
 
 /** True when `error` is a RingfallError, optionally with the given code. */
-export function isRingfallError(error: unknown, code?: string): error is RingfallError {
+export function isRingfallError(error: unknown, code?: ProblemCode): error is RingfallError {
   return error instanceof RingfallError && (code === undefined || error.code === code);
 }

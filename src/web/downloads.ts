@@ -1,5 +1,5 @@
 import type { Report } from '../core/report/report';
-import { renderReportDocument, type ModelLookup } from './report-view';
+import { renderReportDocument, type ModelLookup } from '../render';
 
 /** Offer `text` as a file download (a local blob: URL; nothing leaves the machine). */
 export function downloadText(text: string, fileName: string, type: string): void {
@@ -15,10 +15,11 @@ export function downloadText(text: string, fileName: string, type: string): void
 
 /**
  * Save the self-contained HTML report (same view as the page and `ringfall fit --html`).
- * The Chart.js bundle it inlines is loaded on first use only.
+ * The Chart.js bundle it inlines is loaded on first use only (the package's UMD file,
+ * which vite.config.ts maps by name: src/cli/chart-library.ts).
  */
 export async function downloadHtmlReport(report: Report, lookup: ModelLookup, fileName: string): Promise<void> {
-  const chartLibrary = (await import('../../node_modules/chart.js/dist/chart.umd.js?raw')).default;
+  const chartLibrary = (await import('chart.js/dist/chart.umd.js?raw')).default;
   const count = report.surveys.length;
   const html = renderReportDocument(report, {
     chartLibrary,

@@ -11,7 +11,7 @@ import { intakePanel, type FileEntry } from './intake-panel';
 import type { ColumnMapping } from '../io';
 import { pageReport, pageText } from './page-words';
 import { reportPanel } from './report-panel';
-import { reportStyles } from './report-view';
+import { reportStyles } from '../render';
 import { firstSample, fleetSpec, sampleSpecs, sampleSurveys } from './sample-files';
 import { settingsPanel } from './settings-panel';
 import { thresholdsPanel } from './thresholds-panel';

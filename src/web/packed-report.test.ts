@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Report } from '../core/report/report';
-import { fabricatedReport } from './report-view/testing-fixture';
+import { fabricatedReport } from '../render/testing-fixture';
 import { packReport, unpackReport } from './packed-report';
 
 describe('packReport() / unpackReport()', () => {

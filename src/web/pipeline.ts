@@ -1,3 +1,4 @@
+import type { ProblemCode } from '../core/error-codes';
 import { isRingfallError } from '../core/errors';
 import type { Report, SurveyReport } from '../core/report/report';
 import type { RejectedRow, Survey } from '../core/survey/survey';
@@ -18,7 +19,7 @@ export interface FileOutcome {
   readonly id: string;
   readonly name: string;
   /** The importer's file-level error (code and message), or null. */
-  readonly error: { readonly code: string; readonly message: string } | null;
+  readonly error: { readonly code: ProblemCode; readonly message: string } | null;
   /** How the file was read (also after a column error, when the header could be read). */
   readonly detection: Detection | null;
   readonly counts: ImportCounts | null;
@@ -116,7 +117,7 @@ function rowsOf(result: ImportResult): Pick<FileOutcome, 'surveys' | 'skipped' |
 }
 
 /** Which input a fit-time RingfallError belongs to. */
-function settingFieldOf(code: string): string {
+function settingFieldOf(code: ProblemCode): string {
   if (code.startsWith('FIT_POSITION')) return 'positionUncertainty';
   if (code === 'FIT_UNCERTAINTY_ZERO') return 'uncertainty';
   if (code === 'FIT_UNKNOWN_PARAMETER' || code === 'FIT_FIXED_OUT_OF_BOUNDS') return 'fixes';

@@ -3,9 +3,10 @@ import type { Report } from '../core/report/report';
 import { h, replaceChildren, uniqueId } from './dom';
 import { downloadHtmlReport, downloadText } from './downloads';
 import type { PipelineProgress } from './pipeline';
-import { drawCharts, type TickFormatters, renderFleetSection, renderSurveySection, surveyElementId, type ModelLookup } from './report-view';
+import { type TickFormatters, renderFleetSection, renderSurveySection, surveyElementId, type ModelLookup } from '../render';
+import { drawCharts } from './draw-charts';
 import { reportCsv } from '../core/report/report-csv';
-import { renderRunSection } from './report-view/run-section';
+import { renderRunSection } from '../render/run-section';
 import { toJsonReport } from '../core/report/to-json-report';
 
 Chart.register(...registerables);

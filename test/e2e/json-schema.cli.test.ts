@@ -50,6 +50,7 @@ describe('the JSON the CLI prints meets the shipped schemas', () => {
     expect(compared.plans.compared).not.toBeNull();
     expectValid('plan', compared);
     expectValid('plan', json('plan', '--model', 'power-law', '--set', 'amplitude=2e-6', '--set', 'exponent=3', '--json'));
+    expectValid('plan', json('plan', '--model', 'solenoid', '--set', 'ampereTurns=500A', '--set', 'radius=20mm', '--set', 'length=80mm', '--scan', '--reach=-150mm..120mm', '--json'));
   });
 
   it('predict --json on and off the axis (predict.schema.json)', () => {

@@ -40,7 +40,8 @@ describe('the packed tarball (npm pack → npm install)', () => {
 
   it('installs no devDependency: its dependencies are the runtime ones', () => {
     const manifest = JSON.parse(readFileSync(join(consumer, 'node_modules', 'ringfall', 'package.json'), 'utf8')) as { dependencies: Record<string, string>; devDependencies: Record<string, string> };
-    expect(Object.keys(manifest.dependencies).sort()).toEqual(['chart.js', 'commander', 'd3-contour', 'papaparse']);
+    // package.json's dependencies (d3-array: render's extents, and d3-contour's own dependency)
+    expect(Object.keys(manifest.dependencies).sort()).toEqual(['chart.js', 'commander', 'd3-array', 'd3-contour', 'papaparse']);
     for (const dev of ['tsx', 'esbuild', 'typescript', 'simple-statistics', 'vitest']) {
       expect(() => statSync(join(consumer, 'node_modules', dev)), dev).toThrow();
     }

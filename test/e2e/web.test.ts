@@ -92,7 +92,7 @@ describe('web page', () => {
   it('opens with the bundled sample survey fitted and its report drawn', async () => {
     await page.waitForSelector('#report-body[data-state=ready]', { timeout: 60_000 });
     expect(await page.locator('.rf-params tr[data-param=ampereTurns]').count()).toBeGreaterThan(0);
-    // a fitted survey draws a falloff and a residuals chart (report-view/survey-section.ts)
+    // a fitted survey draws a falloff and a residuals chart (render/survey-section.ts)
     expect(await page.locator('#report-body canvas').count()).toBeGreaterThanOrEqual(2);
   });
 

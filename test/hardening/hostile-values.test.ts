@@ -130,7 +130,7 @@ describe('every set-aside row in one place', () => {
   });
 
   it('summarizeSetAsideRows() says each kind of problem once, with its lines and one example', () => {
-    const row = (line: number) => ({ line, column: 'date', value: 'x', code: 'ROW_BAD_DATE', reason: 'not a date' });
+    const row = (line: number) => ({ line, column: 'date', value: 'x', code: 'ROW_BAD_DATE' as const, reason: 'not a date' });
     const summary = summarizeSetAsideRows([row(3), row(4), ...Array.from({ length: 12 }, (_, i) => row(10 + i))]);
     expect(summary).toEqual(['14 rows belong to no survey and were not used (lines 3, 4, 10, 11, 12, 13, 14, 15, 16, 17 and 4 more; every one is listed in the JSON report\'s "rejected"). Line 3: not a date']);
   });

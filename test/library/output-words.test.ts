@@ -18,7 +18,7 @@ import type { Report, SurveyReport } from '../../src/core/report/report';
 import { importSurveys } from '../../src/io';
 import { parseSpecs } from '../../src/io/spec/parse-specs';
 import { renderFleetSummary } from '../../src/cli/batch/render-fleet-summary';
-import { renderReportDocument } from '../../src/web/report-view';
+import { renderReportDocument } from '../../src/render';
 import { pageReport, pageText } from '../../src/web/page-words';
 
 const root = join(import.meta.dirname, '..', '..');

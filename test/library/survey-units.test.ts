@@ -14,7 +14,7 @@ import type { Survey } from '../../src/core/survey/survey';
 import { importSurveys, type ImportOptions } from '../../src/io';
 import { parseSpecs } from '../../src/io/spec/parse-specs';
 import { parseThresholdLevel } from '../../src/core/analysis/thresholds/threshold-level';
-import { catalogLookup, renderSurveySection } from '../../src/web/report-view';
+import { catalogLookup, renderSurveySection } from '../../src/render';
 import { expectClose } from '../support/expect-close';
 import { schemaErrors } from '../support/json-schemas';
 

@@ -4,6 +4,7 @@
  */
 import type { SurveyReport } from '../../core/report/report';
 import type { SurveyDigest } from './survey-digest';
+import type { ProblemCode } from '../../core/error-codes';
 
 /** One survey file to fit: its place in the sorted file list and its path as found. */
 export interface FileTask {
@@ -15,8 +16,8 @@ export interface FileTask {
 export interface UnreadableEntry {
   readonly source: string;
   readonly reason: string;
-  /** Stable code for programs: the RingfallError code (IMPORT_…, FIT_…), or a BATCH_… / SURVEY_… code of the batch. */
-  readonly code: string;
+  /** Stable code for programs (error-codes.ts): the RingfallError code (IMPORT_…, FIT_…), a ROW_… code, or a BATCH_… / SURVEY_… code of the batch. */
+  readonly code: ProblemCode;
 }
 
 /** What became of one file: its survey reports in file order, and everything that could not be used. */

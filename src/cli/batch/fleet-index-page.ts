@@ -1,9 +1,9 @@
 import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
 import { describeValue } from '../../core/analysis/describe-value';
 import type { Report } from '../../core/report/report';
-import { documentHead } from '../../web/report-view/document-head';
-import { html, type SafeHtml } from '../../web/report-view/html';
-import { renderRunSection } from '../../web/report-view/run-section';
+import { documentHead } from '../../render/document-head';
+import { html, type SafeHtml } from '../../render/html';
+import { renderRunSection } from '../../render/run-section';
 import { attentionList } from './attention-list';
 import { coilFigures, fleetRows } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';

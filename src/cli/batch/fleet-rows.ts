@@ -1,4 +1,4 @@
-import { summaryBasisWords, summaryFit } from '../../core/analysis/summary-fit';
+import { summaryBasisWords, summaryFit } from '../../core/report/summary-fit';
 import { parameterWords, valueWords, type ValueWords } from '../../core/analysis/describe-value';
 import { surveyUnits } from '../../core/units';
 import { parameterRole } from '../../core/analysis/parameter-roles';

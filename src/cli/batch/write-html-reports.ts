@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import type { Report, SurveyReport } from '../../core/report/report';
-import { chartLibrarySource } from '../../web/report-view/chart-library-node';
-import { renderReportDocument } from '../../web/report-view/index';
+import { chartLibrarySource } from '../chart-library';
+import { renderReportDocument } from '../../render/index';
 import { renderFleetIndexPage } from './fleet-index-page';
 import { fleetRows, type FleetRow } from './fleet-rows';
 import type { BatchCoverage } from './render-fleet-summary';

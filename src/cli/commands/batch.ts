@@ -27,7 +27,7 @@ import { skippedLines, surveyFilesFrom, type UnusablePath } from '../find-survey
 import { skipListName, type SkippedFiles } from '../skip-list';
 import { exitStatus, worseStatus } from '../exit-codes';
 import { reportUnappliedSpecs } from './fit';
-import type { CommandContext } from '../main';
+import type { CommandContext } from './command-context';
 import { cliRunRecord, describeFiles, describeSpecFile, runTime } from '../run-record';
 
 /** Flags of `batch` besides the fitting options it shares with `fit`. */

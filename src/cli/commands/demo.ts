@@ -11,7 +11,7 @@ import { readSpecFile } from '../../io/spec';
 import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatch } from '../batch/run-batch';
-import type { CommandContext } from '../main';
+import type { CommandContext } from './command-context';
 import { packageRoot } from '../package-files';
 import { cliRunRecord, describeFiles, describeSpecFile, runTime } from '../run-record';
 

@@ -70,4 +70,30 @@ describe('ringfall plan', () => {
     expect(both.stderr).toContain('--fix: radius is given twice');
     expect(both.stdout).toBe('');
   });
+
+  it('ringfall plan --scan plans signed ruler positions on both sides of the coil, beside one side only', async () => {
+    const result = await run('--model', 'coil-pair', '--set', 'ampereTurns=100A', '--set', 'radius=35mm', '--set', 'separation=35mm', '--set', 'centre=40mm', '--scan', '--reach', '-110mm..190mm', '--json');
+    expect(result.code).toBe(0);
+    const json = JSON.parse(result.stdout);
+    expect(json.axis).toBe('position');
+    expect(json.parameters.centre).toEqual({ value: 0.04, unit: 'm', free: true });
+    expect(json.parameters.probeOffset).toBeUndefined();
+    const positions = json.plans.recommended.points.map((p: { distance: { value: number } }) => p.distance.value);
+    // the ruler's zero is not the coil's centre here: both sides means both sides of 40 mm
+    expect(positions.some((p: number) => p < 0.04 - 0.02)).toBe(true);
+    expect(positions.some((p: number) => p > 0.04 + 0.02)).toBe(true);
+    for (const p of positions) expect(p >= -0.110 - 1e-12 && p <= 0.190 + 1e-12).toBe(true);
+    // one side of a pair leaves ampere-turns trading off against the probe offset (the reason to scan through it)
+    expect(json.plans.oneSided.expected.ampereTurns.halfWidth95).toBeGreaterThan(3 * json.plans.recommended.expected.ampereTurns.halfWidth95);
+    const text = await run('--model', 'coil-pair', '--set', 'ampereTurns=100A', '--set', 'radius=35mm', '--set', 'separation=35mm', '--scan', '--reach', '-150mm..150mm');
+    expect(text.stdout).toContain('recommended (12 positions on the ruler)');
+    expect(text.stdout).toContain('one side only (12 positions)');
+    expect(text.stdout).toContain('so negative positions are on the far side');
+  });
+
+  it('ringfall plan without --scan refuses a negative reach and points to --scan', async () => {
+    const result = await run('--model', 'loop', '--set', 'ampereTurns=120A', '--set', 'radius=45mm', '--reach', '-5mm..200mm');
+    expect(result.code).toBe(2);
+    expect(result.stderr).toBe('ringfall: --reach: "-5mm" is negative. Give a distance ≥ 0, or add --scan to plan signed positions of a scan through the coil.\n');
+  });
 });

@@ -2,12 +2,12 @@ import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
 import { printable } from '../../core/text/printable';
 import { planMeasurements } from '../../core/analysis/plan/plan-measurements';
-import { planToJson, renderPlanText } from '../../core/analysis/plan/render-plan';
+import { planToJson, renderPlanText } from '../../core/report/render-plan';
 import type { DesignPoint, DesignProblem } from '../../core/analysis/plan/design-problem';
 import { parameterRole } from '../../core/analysis/parameter-roles';
-import { exampleValue, getModel, parseParameterAssignment } from '../../core/models';
+import { exampleValue, getModel, parseParameterAssignment, scanModel } from '../../core/models';
 import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
-import type { CommandContext } from '../main';
+import type { CommandContext } from './command-context';
 import { renderRunText } from '../../core/report/render-text';
 import type { RunRecord, RunValue } from '../../core/report/run-record';
 import { cliRunRecord, runTime } from '../run-record';
@@ -24,6 +24,7 @@ interface PlanFlags {
   positionUncertainty: string;
   offAxis?: string;
   interest?: string;
+  scan?: boolean;
   json?: boolean;
 }
 
@@ -35,9 +36,10 @@ const mostPoints = 1000;
 /**
  * `ringfall plan --model ID --set NAME=QTY... [--fix NAME=QTY] [--points N]
  * [--reach 5mm..200mm] [--probe-size 5mm] [--compare 10mm,20mm,…] [--uncertainty 2%+1µT]
- * [--position-uncertainty 0.5mm] [--off-axis 60mm] [--interest NAME,…] [--json]`:
+ * [--position-uncertainty 0.5mm] [--off-axis 60mm] [--interest NAME,…] [--scan] [--json]`:
  * where to put the probe so that the parameters that matter are determined
- * (planMeasurements), with the expected 95 % intervals of the recommended plan, an evenly
+ * (planMeasurements) — with `--scan`, signed positions of a scan through the coil on a
+ * ruler whose zero is the coil's centre (or `--set centre=…`), with the expected 95 % intervals of the recommended plan, an evenly
  * spaced plan of the same size and the user's own plan (CONTRACT.md).
  */
 export function registerPlan(program: Command, _context: CommandContext): void {
@@ -55,6 +57,7 @@ export function registerPlan(program: Command, _context: CommandContext): void {
     .option('--position-uncertainty <qty>', 'standard uncertainty of each distance', '0.5mm')
     .option('--off-axis <qty>', 'also consider off-axis positions up to this radial offset')
     .option('--interest <names>', 'parameters that matter, comma-separated (default amplitude and geometry)')
+    .option('--scan', 'plan a scan through the coil: signed positions on a ruler whose zero is the coil centre, readings on both sides (default reach ±4× the coil size)')
     .option('--json', 'print the plan as JSON')
     .action((flags: PlanFlags) => {
       const time = runTime();
@@ -67,7 +70,7 @@ export function registerPlan(program: Command, _context: CommandContext): void {
 
 /** Turn the command-line flags into a design problem and plan options. Exported for tests. */
 export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; options: Parameters<typeof planMeasurements>[1] } {
-  const model = getModel(flags.model, '--model');
+  const model = flags.scan ? scanModel(getModel(flags.model, '--model')) : getModel(flags.model, '--model');
   const values = new Float64Array(model.parameters.length);
   const given = new Set<string>();
   const fixed = new Set<string>();
@@ -91,7 +94,10 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
   if (!Number.isInteger(count) || count < 2 || count > mostPoints) {
     throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number from 2 to ${mostPoints}. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
   }
-  const reach = flags.reach ? readReach(flags.reach) : ([0, size > 0 ? 4 * size : 0.2] as const);
+  const scan = flags.scan === true;
+  const centre = scan ? values[model.parameters.findIndex((p) => p.name === 'centre')]! : 0;
+  const farthest = size > 0 ? 4 * size : 0.2;
+  const reach = flags.reach ? readReach(flags.reach, scan) : scan ? ([centre - farthest, centre + farthest] as const) : ([0, farthest] as const);
   const probeSize = flags.probeSize ? length(flags.probeSize, '--probe-size') : Math.min(0.005, (reach[1] - reach[0]) / (2 * count));
   const uncertainty = parseRelativePlusAbsolute(flags.uncertainty, 'field', '--uncertainty');
   const problem: DesignProblem = {
@@ -100,13 +106,14 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
     free: model.parameters.flatMap((p, j) => (fixed.has(p.name) ? [] : [j])),
     noise: { relative: uncertainty.relative, absolute: uncertainty.absolute, position: length(flags.positionUncertainty, '--position-uncertainty') },
   };
-  const compare = flags.compare ? readDistances(flags.compare) : undefined;
+  const compare = flags.compare ? readDistances(flags.compare, scan) : undefined;
   return {
     problem,
     options: {
       count,
       reach,
       probeSize,
+      ...(scan ? { signed: true } : {}),
       ...(flags.offAxis ? { maxRadial: length(flags.offAxis, '--off-axis') } : {}),
       ...(flags.interest ? { interest: flags.interest.split(',').map((s) => s.trim()).filter((s) => s !== '') } : {}),
       ...(compare ? { compare } : {}),
@@ -121,6 +128,7 @@ function planRun(problem: DesignProblem, options: Parameters<typeof planMeasurem
     model: problem.model.id,
     parameters: Object.fromEntries(problem.model.parameters.map((p, j) => [p.name, { value: problem.values[j]!, unit: p.unit }])),
     fixed: problem.model.parameters.filter((_, j) => !problem.free.includes(j)).map((p) => p.name),
+    scan: options.signed === true,
     points: options.count,
     reach: [m(options.reach[0]), m(options.reach[1])],
     probeSize: m(options.probeSize),
@@ -132,16 +140,19 @@ function planRun(problem: DesignProblem, options: Parameters<typeof planMeasurem
   });
 }
 
-function readReach(text: string): readonly [number, number] {
+/** `near..far`; with `signed` (a scan) either end may be negative: -150mm..150mm. */
+function readReach(text: string, signed: boolean): readonly [number, number] {
   const parts = text.split('..');
-  if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${printable(text, 60)}" is not a range. Write it like 5mm..200mm.`, { value: text });
-  return [length(parts[0]!, '--reach'), length(parts[1]!, '--reach')];
+  if (parts.length !== 2) throw new RingfallError('USAGE_REACH', `--reach: "${printable(text, 60)}" is not a range. Write it like ${signed ? '-150mm..150mm' : '5mm..200mm'}.`, { value: text });
+  const read = signed ? position : length;
+  return [read(parts[0]!, '--reach'), read(parts[1]!, '--reach')];
 }
 
-function readDistances(text: string): DesignPoint[] {
+function readDistances(text: string, signed: boolean): DesignPoint[] {
   const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
   const unit = trailingUnit(items[items.length - 1] ?? '');
-  return items.map((item) => ({ distance: length(trailingUnit(item) !== '' ? item : `${item}${unit}`, '--compare'), radial: 0 }));
+  const read = signed ? position : length;
+  return items.map((item) => ({ distance: read(trailingUnit(item) !== '' ? item : `${item}${unit}`, '--compare'), radial: 0 }));
 }
 
 /** The unit letters at the end of a trimmed item ("mm" of "20mm"), by a scan from the end (linear, where an unanchored pattern was not). */
@@ -153,6 +164,14 @@ function trailingUnit(item: string): string {
 
 function length(text: string, what: string): number {
   const value = parseQuantity(text, 'length', what).value;
-  if (value < 0) throw new RingfallError('USAGE_LENGTH', `${what}: "${printable(text, 60)}" is negative. Give a distance ≥ 0.`, { value: text });
+  if (value < 0) {
+    const scan = what === '--reach' || what === '--compare' ? ', or add --scan to plan signed positions of a scan through the coil' : '';
+    throw new RingfallError('USAGE_LENGTH', `${what}: "${printable(text, 60)}" is negative. Give a distance ≥ 0${scan}.`, { value: text });
+  }
   return value;
+}
+
+/** A signed position on a scan's ruler, m. */
+function position(text: string, what: string): number {
+  return parseQuantity(text, 'length', what).value;
 }

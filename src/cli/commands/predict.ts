@@ -4,7 +4,7 @@ import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { JsonPrediction } from '../../core/report/json-types';
-import type { CommandContext } from '../main';
+import type { CommandContext } from './command-context';
 import { renderRunText } from '../../core/report/render-text';
 import type { RunRecord } from '../../core/report/run-record';
 import { cliRunRecord, runTime } from '../run-record';

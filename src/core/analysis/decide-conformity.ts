@@ -1,5 +1,6 @@
-import type { CheckStatus } from '../report/report';
 import type { RelativePlusAbsolute } from '../units';
+
+export type CheckStatus = 'pass' | 'fail' | 'inconclusive';
 
 /** The outcome of comparing a 95 % interval with a tolerance zone around a nominal value. */
 export interface ConformityDecision {

@@ -15,8 +15,7 @@ export { weightedLine, type WeightedLine } from './fleet/weighted-line';
 export { planMeasurements, type PlanOptions, type MeasurementPlan } from './plan/plan-measurements';
 export { expectedIntervals, type ExpectedIntervals, type ExpectedParameter } from './plan/expected-intervals';
 export type { DesignProblem, DesignPoint, NoiseModel } from './plan/design-problem';
-export { planToJson, renderPlanText, planSchema } from './plan/render-plan';
 export { fittedModel, deltaVariance, type FittedModel } from './fitted-model';
 export { parameterRole, type ParameterRole } from './parameter-roles';
 export { bestPhysicalFit } from './best-fit';
-export { reportSummaryFit, summaryBasisWords, summaryFit, summaryModelWords, type SummaryFit } from './summary-fit';
+

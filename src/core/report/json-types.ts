@@ -169,6 +169,14 @@ export interface JsonPlan {
   readonly parameters: Readonly<Record<string, { readonly value: number; readonly unit: ParameterUnit; readonly free: boolean }>>;
   readonly interest: readonly string[];
   readonly noise: { readonly relative: number; readonly absolute: JsonQuantity<'T'>; readonly position: JsonQuantity<'m'> };
-  readonly plans: { readonly recommended: JsonPlanIntervals; readonly evenlySpaced: JsonPlanIntervals; readonly compared: JsonPlanIntervals | null };
+  /** Present for a scan through the coil (`plan --scan`): points' `distance` is a signed position on the ruler. */
+  readonly axis?: 'position';
+  readonly plans: {
+    readonly recommended: JsonPlanIntervals;
+    readonly evenlySpaced: JsonPlanIntervals;
+    readonly compared: JsonPlanIntervals | null;
+    /** Scans only: the same count on one side, from the datum with the probe offset free. */
+    readonly oneSided?: JsonPlanIntervals | null;
+  };
   readonly notes: readonly string[];
 }

@@ -1,7 +1,7 @@
 import type { FitResult } from '../fit/fit-result';
 import type { RejectedRow } from '../survey/survey';
 import type { JsonFit, JsonParameter, JsonPoints, JsonRejectedRow, JsonReport, JsonSurvey } from './json-types';
-import { reportSummaryFit } from '../analysis/summary-fit';
+import { reportSummaryFit } from './summary-fit';
 import { getModel } from '../models';
 import type { Report, SurveyReport } from './report';
 

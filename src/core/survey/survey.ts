@@ -1,3 +1,5 @@
+import type { ProblemCode } from '../error-codes';
+
 /**
  * The Survey: one coil surveyed on one date, as imported. SI inside (m, T).
  * Produced by src/io import, consumed by fitting and analyses.
@@ -39,12 +41,10 @@ export interface RejectedRow {
   /** What was wrong and what to do, in one sentence. */
   readonly reason: string;
   /**
-   * Stable code of the problem, for programs (the web page highlights by it): ROW_NOT_A_NUMBER,
-   * ROW_NOT_FINITE, ROW_EMPTY_CELL, ROW_MISSING_CELLS, ROW_EXTRA_CELLS, ROW_NEGATIVE_MAGNITUDE,
-   * ROW_NEGATIVE_DISTANCE, ROW_NEGATIVE_UNCERTAINTY, ROW_IMPLAUSIBLE, ROW_OVER_RANGE, ROW_BAD_DATE,
-   * ROW_BAD_READING_TYPE, ROW_COMMENTED, ROW_UNCLOSED_QUOTE, ROW_SURVEY_TOO_SMALL (src/io/import).
+   * Stable code of the problem, for programs (the web page highlights by it): one of the
+   * ROW_… codes of error-codes.ts (set by src/io/import).
    */
-  readonly code?: string;
+  readonly code?: ProblemCode;
 }
 
 /**

@@ -1,6 +1,6 @@
 import type { FieldKind, ReadingType, Reading, Survey, SurveyUnits } from '../../core/survey/survey';
 import { surveyUnits } from '../../core/units';
-import type { SurveyGroup } from './survey-collector';
+import type { SurveyGroup } from './survey-group';
 
 /**
  * Turn a group of rows into a Survey and write the notes the report must show.

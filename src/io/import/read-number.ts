@@ -1,3 +1,4 @@
+import type { ProblemCode } from '../../core/error-codes';
 import { printable } from '../../core/text/printable';
 
 /**
@@ -41,7 +42,7 @@ export function readNumber(cell: string, decimalComma: boolean): number {
  * Why a cell gave no finite number: a stable code and a reason for people.
  * @param value what readNumber returned for the cell (NaN or ±Infinity)
  */
-export function explainNumberCell(cell: string, header: string, value: number): { code: string; reason: string } {
+export function explainNumberCell(cell: string, header: string, value: number): { code: ProblemCode; reason: string } {
   const text = cell.trim();
   const column = shorten(header, 60);
   if (text === '') return { code: 'ROW_EMPTY_CELL', reason: `column "${column}" is empty. Fill in the value or delete the row.` };

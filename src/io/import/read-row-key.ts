@@ -1,10 +1,18 @@
+import type { ProblemCode } from '../../core/error-codes';
 import type { ReadingType } from '../../core/survey/survey';
 import { parseDate } from './parse-date';
 import { parseReadingType } from './parse-reading-type';
 import { shorten } from './read-number';
-import type { RowContext, RowKey } from './read-row';
+import type { RowContext } from './row-context';
 
-type WidthProblem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string } | null;
+/** The survey a row belongs to: its coil, date and reading type. */
+export interface RowKey {
+  readonly coil: string | null;
+  readonly date: string | null;
+  readonly readingType: ReadingType | null;
+}
+
+type WidthProblem = { readonly column: string | null; readonly value: string | null; readonly code: ProblemCode; readonly reason: string } | null;
 
 /**
  * Read which survey a row belongs to: its coil, date and reading-type cells, each

@@ -1,28 +1,16 @@
+import type { ProblemCode } from '../../core/error-codes';
 import type { Reading, ReadingType } from '../../core/survey/survey';
 import type { ColumnLayout, NumericColumn } from './detect-columns';
-import type { FileLayout } from './read-layout';
 import { explainNumberCell, readNumber, shorten } from './read-number';
 import { readRowKey } from './read-row-key';
-import type { SurveyCollector } from './survey-collector';
-
-/** What the row reader needs besides the row. */
-export interface RowContext {
-  readonly layout: ColumnLayout;
-  readonly decimalComma: boolean;
-  /** Header text of every column, for messages. */
-  readonly headers: readonly string[];
-  /** Which columns are used (have a role). */
-  readonly used: readonly boolean[];
-  readonly defaults: FileLayout['defaults'];
-  readonly collector: SurveyCollector;
-}
+import type { RowContext } from './row-context';
 
 /** Largest |value| taken for a reading: beyond any gaussmeter (the strongest DC magnets reach about 45 T). */
 const maximumField = 100;
 /** Largest distance taken, m: far beyond any coil survey. */
 const maximumDistance = 100;
 
-type Problem = { readonly column: string | null; readonly value: string | null; readonly code: string; readonly reason: string };
+type Problem = { readonly column: string | null; readonly value: string | null; readonly code: ProblemCode; readonly reason: string };
 
 /**
  * Read one data row into a Reading of its survey, or a RejectedRow with line, column,
@@ -50,12 +38,6 @@ export function readRow(cells: readonly string[], line: number, context: RowCont
 }
 
 /** A row's key cells: coil, date, reading type. */
-export interface RowKey {
-  readonly coil: string | null;
-  readonly date: string | null;
-  readonly readingType: ReadingType | null;
-}
-
 function checkWidth(cells: readonly string[], context: RowContext): Problem | null {
   const width = context.layout.width;
   if (cells.length === width) return null;
@@ -160,7 +142,7 @@ function readColumn(cells: readonly string[], column: NumericColumn, decimalComm
   return { column: column.header, value: shorten(cell.trim()), code, reason };
 }
 
-function problem(cells: readonly string[], column: NumericColumn, code: string, what: string): Problem {
+function problem(cells: readonly string[], column: NumericColumn, code: ProblemCode, what: string): Problem {
   const value = shorten((cells[column.index] ?? '').trim());
   return { column: column.header, value, code, reason: `column "${shorten(column.header, 60)}": "${value}" ${what}` };
 }

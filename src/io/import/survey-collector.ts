@@ -1,17 +1,9 @@
 import type { FieldKind, ReadingType, Reading, RejectedRow, Survey, SurveyUnits } from '../../core/survey/survey';
 import { finishSurvey } from './finish-survey';
 import { MIN_USABLE_READINGS, type ImportCounts, type SkippedSurvey } from './import-types';
+import type { SurveyGroup } from './survey-group';
 
-/** The rows of one coil, date and reading type, gathered in file order. */
-export interface SurveyGroup {
-  readonly coil: string | null;
-  readonly date: string | null;
-  readonly readingType: ReadingType | null;
-  readonly readings: Reading[];
-  readonly rejected: RejectedRow[];
-  /** Rows whose negative radial offset was read as its absolute value. */
-  negativeRadial: number;
-}
+export type { SurveyGroup };
 
 /**
  * Gathers rows into one group per (coil, date, reading type) in order of first

@@ -2,7 +2,8 @@ import Papa from 'papaparse';
 import { checkResult } from './check-result';
 import type { ImportOptions, ImportResult } from './import-types';
 import { readLayout, type FileLayout } from './read-layout';
-import { readRow, type RowContext } from './read-row';
+import { readRow } from './read-row';
+import type { RowContext } from './row-context';
 import { SurveyCollector } from './survey-collector';
 
 /** What papaparse's low-level Parser gives the step callback: one row in `data[0]`. */

@@ -1,20 +1,8 @@
 import { RingfallError } from '../../core/errors';
+import type { ProblemCode } from '../../core/error-codes';
 
 /** Stable codes of spec-file problems (CLI exit status 2). */
-export type SpecErrorCode =
-  | 'SPEC_READ'
-  | 'SPEC_JSON'
-  | 'SPEC_EMPTY'
-  | 'SPEC_SHAPE'
-  | 'SPEC_KEY'
-  | 'SPEC_MODEL'
-  | 'SPEC_PARAM'
-  | 'SPEC_QUANTITY'
-  | 'SPEC_TOLERANCE'
-  | 'SPEC_READING_TYPE'
-  | 'SPEC_WAVEFORM'
-  | 'SPEC_DATUM'
-  | 'SPEC_DUPLICATE';
+export type SpecErrorCode = Extract<ProblemCode, `SPEC_${string}`>;
 
 /** Where a value sits in a spec file, for messages: source, 1-based line, and JSON path. */
 export interface SpecPlace {

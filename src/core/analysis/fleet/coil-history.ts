@@ -1,27 +1,67 @@
 import type { FitResult, ParameterEstimate } from '../../fit/fit-result';
 import { getModel } from '../../models';
 import type { ModelId } from '../../models/field-model';
-import type { FleetCoil, FleetEntry } from '../../report/report';
 import { studentTQuantile } from '../../stats';
 import type { RelativePlusAbsolute } from '../../units';
+import { yearsBetween } from '../../units/julian-year';
 import { bestPhysicalFit, convergedFit } from '../best-fit';
+import type { CheckStatus } from '../decide-conformity';
 import { describeValue } from '../describe-value';
 import { parameterRole } from '../parameter-roles';
 import { selectSpec } from '../spec/select-spec';
 import type { Spec } from '../spec/spec';
-import type { FleetSurvey } from './fleet-history';
+import type { FleetSurvey } from './fleet-survey';
 import { geometryChanges } from './geometry-changes';
 import { readTrend, trendWords } from './trend-reading';
 import { weightedLine } from './weighted-line';
 
+/** One survey's place in a coil's history (fleet section). */
+export interface FleetEntry {
+  readonly source: string;
+  readonly date: string | null;
+  /** Fitted ampere-turns with 95 % interval (A), null when not fitted or not determined. */
+  readonly ampereTurns: { readonly value: number; readonly unit: 'A'; readonly ci95: readonly [number, number] | null } | null;
+  /** Fitted geometry parameters (m) with 95 % intervals. */
+  readonly geometry: Readonly<Record<string, { readonly value: number; readonly unit: 'm'; readonly ci95: readonly [number, number] | null }>>;
+  /** ampereTurns / reference, with interval, or null. */
+  readonly ratioToReference: { readonly value: number; readonly ci95: readonly [number, number] | null } | null;
+  readonly verdict: CheckStatus | null;
+}
+
+/** One coil across its surveys (CONTRACT.md fleet section; extra fields are additions). */
+export interface FleetCoil {
+  readonly coil: string;
+  readonly surveys: number;
+  /** Date of the latest dated survey, or null. */
+  readonly latest: string | null;
+  /** 'degrading', 'geometry-changed', 'failed-spec', … */
+  readonly flags: readonly string[];
+  readonly trend: {
+    readonly ampereTurnsPerYear: { readonly value: number; readonly unit: 'A/yr'; readonly ci95: readonly [number, number] } | null;
+    /** What the trend says (trend-reading.ts): declining, rising, steady (inside ±steadyBand), or undetermined. */
+    readonly status: 'declining' | 'rising' | 'steady' | 'undetermined';
+    /** The reference's tolerance per year: a trend inside ±this is steady; null without a trend. */
+    readonly steadyBand: { readonly value: number; readonly unit: 'A/yr' } | null;
+    /** For an undetermined trend, how many more surveys at the same interval and precision would decide; else null. */
+    readonly moreSurveys: number | null;
+  };
+  /** The model whose parameters are trended. */
+  readonly model: ModelId | null;
+  /** What the history is compared with: the spec's label or the first survey. */
+  readonly reference: { readonly kind: 'spec' | 'first-survey'; readonly ampereTurns: number; readonly unit: 'A' } | null;
+  /** Surveys in date order (undated last). */
+  readonly history: readonly FleetEntry[];
+  /** One sentence per flag with the numbers, and what was left out and why. */
+  readonly explanations: readonly string[];
+}
+
 const normal975 = 1.959963984540054;
-const msPerYear = 365.25 * 86_400_000;
 
 /**
  * One coil's history: surveys in date order (undated last), the fitted ampere-turns of the
  * trended model (the spec's, else the most common best physical model) against the spec's
  * label or the first survey, and a weighted straight-line trend of ampere-turns against
- * time in years (weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
+ * time in Julian years (units/julian-year.ts; weightedLine; 95 % interval with t_{n−2}, or 1.96 for two surveys).
  * Flags: **degrading** when the latest dated survey's decline from the reference is
  * significant and beyond tolerance — the upper end of its 95 % interval (against a first
  * survey: of the difference, t with the smaller degrees of freedom) lies below the
@@ -64,7 +104,7 @@ export function coilHistory(coil: string, surveys: readonly FleetSurvey[], specs
   if (model === null) explanations.push('No physical model converged on any survey, so there is nothing to trend.');
   let trend: FleetCoil['trend'] = { ampereTurnsPerYear: null, status: 'undetermined', steadyBand: null, moreSurveys: null };
   const flags: string[] = [];
-  const times = dated.map((d) => (Date.parse(d.survey.date!) - Date.parse(dated[0]!.survey.date!)) / msPerYear);
+  const times = dated.map((d) => yearsBetween(dated[0]!.survey.date!, d.survey.date!));
   let trendSentence: string | null = null;
   if (dated.length >= 2 && new Set(times).size >= 2) {
     const line = weightedLine(times, dated.map((d) => d.estimate.value), dated.map((d) => d.estimate.stderr));

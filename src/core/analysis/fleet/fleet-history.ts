@@ -1,20 +1,16 @@
-import type { FitResult } from '../../fit/fit-result';
-import type { FleetSummary, Verdict } from '../../report/report';
-import type { SurveyUnits } from '../../survey/survey';
 import type { RelativePlusAbsolute } from '../../units';
 import type { Spec } from '../spec/spec';
-import { coilHistory } from './coil-history';
+import { coilHistory, type FleetCoil } from './coil-history';
+import type { FleetSurvey } from './fleet-survey';
 
-/** One survey as the fleet history needs it. */
-export interface FleetSurvey {
-  readonly source: string;
-  readonly coil: string | null;
-  /** ISO date YYYY-MM-DD, or null. */
-  readonly date: string | null;
-  readonly fits: readonly FitResult[];
-  readonly verdict: Verdict | null;
-  /** The units the survey's file was written in, when known (SurveyReport.units). */
-  readonly units?: SurveyUnits;
+export type { FleetSurvey };
+
+/** The fleet section of a batch report (CONTRACT.md). */
+export interface FleetSummary {
+  readonly coils: readonly FleetCoil[];
+  readonly unreadable: readonly { readonly source: string; readonly reason: string }[];
+  /** Surveys without a coil id, which cannot join a history. */
+  readonly ungrouped?: readonly { readonly source: string; readonly reason: string }[];
 }
 
 /** Options of the fleet history. */

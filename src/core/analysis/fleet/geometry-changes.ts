@@ -4,7 +4,7 @@ import { surveyUnits, type RelativePlusAbsolute } from '../../units';
 import { parameterWords, valueWords } from '../describe-value';
 import { parameterRole } from '../parameter-roles';
 import type { Spec } from '../spec/spec';
-import type { FleetSurvey } from './fleet-history';
+import type { FleetSurvey } from './fleet-survey';
 
 /**
  * Sentences for every fitted geometry parameter that jumps between consecutive surveys of

@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { getModel } from '../../models';
+import { getModel, scanModel } from '../../models';
+import { studentTQuantile } from '../../stats';
 import { fitLeastSquares } from '../../fit/least-squares';
 import { parameterUncertainty } from '../../fit/parameter-uncertainty';
 import { mulberry32, normalRandom } from '../../random';
@@ -148,5 +149,50 @@ describe('planMeasurements()', () => {
     // and the estimates themselves land closer to the truth
     expect(recommended.radiusRms).toBeLessThan(even.radiusRms);
     expect(recommended.turnsRms).toBeLessThan(even.turnsRms);
+  });
+
+  it('planMeasurements() for a scan through a coil pair: the expected half-widths match the scatter of seeded scan fits', () => {
+    // Independent check of the linearised covariance by Monte Carlo (JCGM 101:2008 §7):
+    // 400 scans simulated at the recommended positions with the stated noise, each fitted.
+    const pair = scanModel(getModel('coil-pair'));
+    const at = (name: string) => pair.parameters.findIndex((p) => p.name === name);
+    const truth = new Float64Array(pair.parameters.length);
+    truth[at('ampereTurns')] = 100;
+    truth[at('radius')] = 0.035;
+    truth[at('separation')] = 0.035;
+    truth[at('centre')] = 0.012;
+    const problem: DesignProblem = { model: pair, values: truth, free: [...pair.parameters.keys()], noise: { relative: 0.01, absolute: 1e-6, position: 0 } };
+    const plan = planMeasurements(problem, { count: 14, reach: [-0.12, 0.15], probeSize: 0.005, signed: true });
+    const points = plan.recommended.points;
+    expect(points.some((p) => p.distance < 0.012) && points.some((p) => p.distance > 0.012)).toBe(true);
+    const n = points.length;
+    const survey = { n, distance: Float64Array.from(points, (p) => p.distance), radial: new Float64Array(n), field: new Float64Array(n), kind: 'magnitude' as const };
+    const exact = new Float64Array(n);
+    pair.evaluate(truth, survey, exact);
+    const sigma = Float64Array.from(exact, (b) => Math.hypot(0.01 * b, 1e-6));
+    const gaussian = normalRandom(mulberry32(11));
+    const estimates = { ampereTurns: [] as number[], centre: [] as number[] };
+    for (let s = 0; s < 400; s += 1) {
+      const observed = Float64Array.from(exact, (b, i) => b + sigma[i]! * gaussian());
+      const solution = fitLeastSquares(
+        { observed, parameterCount: truth.length, predict: (params, out) => pair.evaluate(params, survey, out), jacobian: (params, out) => pair.jacobian!(params, survey, out) },
+        { initial: truth, standardUncertainty: sigma, lower: pair.parameters.map((p) => p.lower), upper: pair.parameters.map((p) => p.upper) },
+      );
+      estimates.ampereTurns.push(solution.params[at('ampereTurns')]!);
+      estimates.centre.push(solution.params[at('centre')]!);
+    }
+    const sd = (xs: number[]) => {
+      const mean = xs.reduce((a, b) => a + b, 0) / xs.length;
+      return Math.sqrt(xs.reduce((a, b) => a + (b - mean) ** 2, 0) / (xs.length - 1));
+    };
+    const t = studentTQuantile(0.975, n - truth.length);
+    for (const name of ['ampereTurns', 'centre'] as const) {
+      const expected = plan.recommended.parameters.find((p) => p.name === name)!.halfWidth!;
+      // 400 draws estimate a standard deviation to about 3.5 % (1/√(2·399)); allow 15 %
+      expectClose(sd(estimates[name]), expected / t, { rel: 0.15 }, name);
+    }
+    // one side of the pair (probe offset in place of the centre) determines ampere-turns far worse
+    const oneSided = plan.oneSided!.parameters.find((p) => p.name === 'ampereTurns')!.halfWidth!;
+    expect(oneSided).toBeGreaterThan(3 * plan.recommended.parameters.find((p) => p.name === 'ampereTurns')!.halfWidth!);
   });
 });

@@ -1,4 +1,5 @@
-import { RingfallError } from '../../errors';
+import { isRingfallError, RingfallError } from '../../errors';
+import { getModel, nearFaceModels } from '../../models';
 import { formatQuantity } from '../../units';
 import { parameterRole } from '../parameter-roles';
 import { sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
@@ -9,8 +10,13 @@ import { optimalDesign } from './optimal-design';
 export interface PlanOptions {
   /** Number of positions. */
   readonly count: number;
-  /** Nearest and farthest distance the probe can be placed at, m. */
+  /** Nearest and farthest distance the probe can be placed at, m (with `signed`, the ends of the ruler range). */
   readonly reach: readonly [number, number];
+  /**
+   * A scan through the coil (the problem's model is a scanModel): positions are signed,
+   * on a ruler along the axis, and the reach may cross the coil's centre.
+   */
+  readonly signed?: boolean;
   /** Probe size: least separation between two positions, m. */
   readonly probeSize: number;
   /** Largest radial offset for off-axis positions, m; 0 or omitted: on axis only. */
@@ -26,6 +32,14 @@ export interface MeasurementPlan {
   readonly recommended: ExpectedIntervals;
   readonly evenlySpaced: ExpectedIntervals;
   readonly compared: ExpectedIntervals | null;
+  /**
+   * For a scan (PlanOptions.signed): the recommended plan of the same size on one side only,
+   * outward from the coil's datum with the probe offset free, to show what the second side
+   * buys. Null otherwise, or when one side cannot hold the positions.
+   */
+  readonly oneSided: ExpectedIntervals | null;
+  /** True for a scan through the coil (PlanOptions.signed): positions are signed ruler positions. */
+  readonly scan: boolean;
   /** Names of the parameters the plan was optimised for. */
   readonly interest: readonly string[];
   readonly notes: readonly string[];
@@ -49,8 +63,8 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
   const [near, far] = options.reach;
   const k = problem.free.length;
   const freeNames = problem.free.map((j) => problem.model.parameters[j]!.name);
-  if (!(near >= 0 && far > near)) {
-    throw new RingfallError('PLAN_REACH', `Plan reach: ${formatQuantity(near, 'length')} to ${formatQuantity(far, 'length')} is not a range. Give the nearest and farthest probe distance, e.g. --reach 5mm..200mm.`, { value: options.reach });
+  if (!((options.signed === true || near >= 0) && far > near)) {
+    throw new RingfallError('PLAN_REACH', `Plan reach: ${formatQuantity(near, 'length')} to ${formatQuantity(far, 'length')} is not a range. Give the ${options.signed === true ? 'two ends of the scan on the ruler, e.g. --reach -150mm..150mm' : 'nearest and farthest probe distance, e.g. --reach 5mm..200mm'}.`, { value: options.reach });
   }
   if (!Number.isInteger(options.count) || options.count <= k) {
     throw new RingfallError('PLAN_COUNT', `Plan points: ${options.count} positions for ${k} free parameters (${freeNames.join(', ')}). Plan at least ${k + 1}, better ${2 * k + 2}, or fix parameters.`, { value: options.count });
@@ -65,8 +79,7 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
     return index;
   });
 
-  const candidates = candidateGrid(problem, options);
-  const rows = sensitivityRows(problem, candidates);
+  const { candidates, rows } = usableCandidates(problem, candidateGrid(problem, options));
   const chosen = optimalDesign({
     rows,
     k,
@@ -79,17 +92,71 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
   const mm = { symbol: 'mm', factor: 1e-3 };
   const notes = [`Noise model per reading: ${formatNumber100(problem.noise.relative)} % of the reading + ${formatQuantity(problem.noise.absolute, 'field', { significant: 3 })}, and ${formatQuantity(problem.noise.position, 'length', { significant: 3, unit: mm })} position uncertainty (standard uncertainties).`];
   if (chosen.length < options.count) notes.push(`Only ${chosen.length} positions fit the reach at this probe size.`);
+  if (options.signed === true) notes.push('Positions are on a ruler along the axis, through the coil: zero is where the coil\'s centre sits on it (the winding plane, the midpoint of a pair, the mid-length of a solenoid), so negative positions are on the far side.');
   return {
     recommended: expectedIntervals(problem, chosen.map((c) => candidates[c]!)),
     evenlySpaced: expectedIntervals(problem, even),
     compared: options.compare ? expectedIntervals(problem, options.compare) : null,
+    oneSided: options.signed === true ? oneSidedPlan(problem, options, interestNames) : null,
+    scan: options.signed === true,
     interest: interest.length > 0 ? interestNames : freeNames,
     notes,
   };
 }
 
+/**
+ * The scan's catalog model planned on one side: distances from its datum out to the
+ * farther end of the scan's reach (less half the length for a near-face model), the
+ * probe offset in place of the centre, the same count, spacing and interest.
+ */
+function oneSidedPlan(problem: DesignProblem, options: PlanOptions, interestNames: readonly string[]): ExpectedIntervals | null {
+  const base = getModel(problem.model.id);
+  const offsetIndex = base.parameters.findIndex((p) => parameterRole(p.name) === 'offset');
+  const centreIndex = problem.model.parameters.findIndex((p) => p.name === 'centre');
+  if (offsetIndex < 0 || centreIndex !== offsetIndex) return null;
+  const values = Float64Array.from(problem.values);
+  const centre = values[centreIndex]!;
+  values[offsetIndex] = 0;
+  const lengthIndex = base.parameters.findIndex((p) => p.name === 'length');
+  const datumShift = nearFaceModels.has(base.id) && lengthIndex >= 0 ? 0.5 * values[lengthIndex]! : 0;
+  const side = Math.max(Math.abs(options.reach[0] - centre), Math.abs(options.reach[1] - centre)) - datumShift;
+  try {
+    const plan = planMeasurements({ ...problem, model: base, values }, {
+      count: options.count,
+      reach: [0, side],
+      probeSize: options.probeSize,
+      interest: interestNames.map((name) => (name === 'centre' ? base.parameters[offsetIndex]!.name : name)),
+      ...(options.maxRadial === undefined ? {} : { maxRadial: options.maxRadial }),
+    });
+    return plan.recommended;
+  } catch (error) {
+    if (isRingfallError(error)) return null;
+    throw error;
+  }
+}
+
 function formatNumber100(fraction: number): string {
   return String(Math.round(fraction * 1e6) / 1e4);
+}
+
+/**
+ * The candidates where the model's reading and its sensitivities are finite: a dipole or a
+ * power law diverges at its centre, which a scan's reach may cross.
+ */
+function usableCandidates(problem: DesignProblem, grid: readonly DesignPoint[]): { candidates: DesignPoint[]; rows: Float64Array } {
+  const all = sensitivityRows(problem, grid);
+  const k = problem.free.length;
+  const keep = grid.map((_, i) => all.subarray(i * k, (i + 1) * k).every(Number.isFinite));
+  if (keep.every(Boolean)) return { candidates: [...grid], rows: all };
+  const candidates = grid.filter((_, i) => keep[i]);
+  const rows = new Float64Array(candidates.length * k);
+  let at = 0;
+  grid.forEach((_, i) => {
+    if (!keep[i]) return;
+    rows.set(all.subarray(i * k, (i + 1) * k), at * k);
+    at += 1;
+  });
+  return { candidates, rows };
 }
 
 /** Axial grid (at most 160 points, finer than half a probe size where possible) and, if asked, off-axis rows at fractions of the coil's size. */

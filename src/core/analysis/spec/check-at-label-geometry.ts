@@ -1,6 +1,6 @@
 import type { FitResult } from '../../fit/fit-result';
 import { parameterQuantityKind } from '../../models';
-import type { SpecCheck } from '../../report/report';
+import type { SpecCheck } from './spec-check';
 import { decideConformity } from '../decide-conformity';
 import { parameterWords, valueWords, type ValueWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';

@@ -1,5 +1,5 @@
 import type { ModelId } from '../../models/field-model';
-import type { SpecCheck } from '../../report/report';
+import type { SpecCheck } from './spec-check';
 import { formatNumber } from '../../units';
 import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { decideConformity } from '../decide-conformity';

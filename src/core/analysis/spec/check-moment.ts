@@ -1,4 +1,4 @@
-import type { SpecCheck } from '../../report/report';
+import type { SpecCheck } from './spec-check';
 import { decideConformity } from '../decide-conformity';
 import { describeValue, parameterWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';

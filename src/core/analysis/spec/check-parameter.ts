@@ -1,5 +1,5 @@
 import type { ModelId } from '../../models/field-model';
-import type { SpecCheck } from '../../report/report';
+import type { SpecCheck } from './spec-check';
 import { decideConformity } from '../decide-conformity';
 import { parameterQuantityKind } from '../../models';
 import { parameterWords, valueWords, type ValueWords } from '../describe-value';

@@ -1,5 +1,19 @@
-import type { SpecUse } from '../../report/report';
+import type { ModelId } from '../../models/field-model';
 import type { Spec } from './spec';
+
+/** The spec a survey was checked against (CONTRACT.md "Spec file"). */
+export interface SpecUse {
+  /** False when specs were given but none applies to this survey's coil. */
+  readonly applied: boolean;
+  /** The spec that applied ("specs.json" or "specs.json, spec 2"), or the file(s) given when none applied. */
+  readonly source: string;
+  /** Coil ids the applied spec names (null: it names none, so it applies to every coil); when none applied, every id the file names. */
+  readonly coils: readonly string[] | null;
+  /** The applied spec's model, or null. */
+  readonly model: ModelId | null;
+  /** Why no spec applied, in one sentence with what to do; null when one applied. */
+  readonly reason: string | null;
+}
 
 /**
  * What the report says about the specs for one survey: which one applied (selectSpec's

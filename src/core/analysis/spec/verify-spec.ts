@@ -1,9 +1,9 @@
 import type { FitResult } from '../../fit/fit-result';
 import { getModel } from '../../models';
-import type { CheckStatus, Verdict } from '../../report/report';
+import type { ModelId } from '../../models/field-model';
 import type { ReadingType } from '../../survey/survey';
 import { convergedFit } from '../best-fit';
-import { decisionRule } from '../decide-conformity';
+import { decisionRule, type CheckStatus } from '../decide-conformity';
 import { coilOnlyValues } from '../coil-only-values';
 import { valueWords, type ValueWords } from '../describe-value';
 import { fittedModel, type FittedModel } from '../fitted-model';
@@ -14,7 +14,20 @@ import { checkMoment } from './check-moment';
 import { checkParameter, type CheckOutcome } from './check-parameter';
 import { readingRelation } from './reading-relation';
 import type { Spec } from './spec';
+import type { SpecCheck } from './spec-check';
 import { specFindings } from './spec-findings';
+
+export interface Verdict {
+  readonly status: CheckStatus;
+  /** The decision rule in words (decide-conformity.ts decisionRule), naming ISO 14253-1 and JCGM 106. */
+  readonly rule?: string;
+  /** The model the checks were made with: the spec's. */
+  readonly model?: ModelId;
+  readonly findings: readonly string[];
+  readonly checks: readonly SpecCheck[];
+  /** Sentences explaining findings (degraded vs mislabeled), and what would decide an inconclusive check. */
+  readonly explanations: readonly string[];
+}
 
 /**
  * Check a spec against one survey's fits: every label parameter and claim, interval-aware

@@ -1,6 +1,6 @@
 import type { FitResult } from '../../fit/fit-result';
 import { getModel, nearFaceModels } from '../../models';
-import type { ThresholdResult } from '../../report/report';
+import type { ModelId } from '../../models/field-model';
 import type { ReadingType, SurveyUnits } from '../../survey/survey';
 import { surveyUnits } from '../../units';
 import { bestPhysicalFit, convergedFit } from '../best-fit';
@@ -10,6 +10,35 @@ import { fallDistance } from './fall-distance';
 import { thresholdCautions } from './threshold-cautions';
 import { thresholdInterval, type ThresholdIntervalOptions } from './threshold-interval';
 import type { ThresholdLevel } from './threshold-level';
+
+export interface ThresholdResult {
+  readonly level: { readonly value: number; readonly unit: 'T'; readonly label?: string; readonly flag?: string };
+  readonly model: ModelId;
+  readonly distance: { readonly value: number; readonly unit: 'm'; readonly ci95: readonly [number, number] | null } | null;
+  readonly extrapolated: boolean;
+  readonly naive: {
+    readonly model: ModelId;
+    readonly distance: { readonly value: number; readonly unit: 'm' } | null;
+    /** naive distance / physical-model distance. */
+    readonly ratio?: number | null;
+    readonly extrapolated?: boolean;
+  } | null;
+  readonly notes: readonly string[];
+  /** The fitted power law's distance (descriptive baseline) and its ratio to the physical model's. */
+  readonly powerLaw?: {
+    readonly model: ModelId;
+    readonly exponent: number;
+    readonly distance: { readonly value: number; readonly unit: 'm' } | null;
+    readonly ratio: number | null;
+    readonly extrapolated: boolean;
+  } | null;
+  /** How the 95 % interval was obtained: delta method, or Monte Carlo when the curve is strongly nonlinear. */
+  readonly intervalMethod?: 'delta' | 'monte-carlo' | null;
+  /** Surveyed distances as field-point distances from the datum, m. */
+  readonly surveyedRange?: readonly [number, number] | null;
+  /** DOMAIN.md §4.5 cautions that go with every threshold distance. */
+  readonly cautions?: readonly string[];
+}
 
 /** What the threshold analysis needs besides the fits. */
 export interface ThresholdContext extends ThresholdIntervalOptions {

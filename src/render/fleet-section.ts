@@ -1,17 +1,18 @@
 import type { ChartDataset } from 'chart.js';
-import type { ParameterEstimate } from '../../core/fit/fit-result';
-import { formatEstimate } from '../../core/report/render-text';
-import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../../core/report/report';
-import { formatNumber, formatQuantity } from '../../core/units';
+import { extent } from 'd3-array';
+import type { ParameterEstimate } from '../core/fit/fit-result';
+import { formatEstimate } from '../core/report/render-text';
+import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../core/report/report';
+import { formatNumber, formatQuantity } from '../core/units';
+import { julianEpoch } from '../core/units/julian-year';
 import { baseOptions, type ChartSpec, type LegendItem } from './chart-spec';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
-import { largest, smallest } from './extent';
 import { niceTicks } from './nice-ticks';
 import { palette, withAlpha } from './palette';
-import { reportSummaryFit, summaryBasisWords } from '../../core/analysis/summary-fit';
-import { getModel } from '../../core/models';
-import { historyHeadline } from '../../core/analysis/fleet/trend-reading';
+import { reportSummaryFit, summaryBasisWords } from '../core/report/summary-fit';
+import { getModel } from '../core/models';
+import { historyHeadline } from '../core/analysis/fleet/trend-reading';
 
 /** Colours for coils in the history chart, cycled; our own. */
 const seriesColours = ['#b23a48', '#2e6f95', '#3b8a5a', '#8c6d1f', '#7b4f9e', '#1f8a8a', '#a05a8c', '#707c3a'];
@@ -25,17 +26,6 @@ export function ampereTurnsOf(report: Report, survey: SurveyReport): { model: st
   const summary = reportSummaryFit(report, survey, getModel);
   const estimate = summary?.fit.params['ampereTurns'];
   return summary && estimate ? { model: summary.fit.model, basis: summaryBasisWords[summary.basis], estimate } : null;
-}
-
-/** Decimal year of an ISO date (2026-07-02 → 2026.5), or null. */
-export function decimalYear(date: string | null): number | null {
-  const match = date ? /^(\d{4})-(\d{2})-(\d{2})/.exec(date) : null;
-  if (!match) return null;
-  const year = Number(match[1]);
-  const start = Date.UTC(year, 0, 1);
-  const length = Date.UTC(year + 1, 0, 1) - start;
-  const day = Date.UTC(year, Number(match[2]) - 1, Number(match[3]));
-  return Number.isFinite(day) ? year + (day - start + 43_200_000) / length : null;
 }
 
 const amperes = (value: number) => formatQuantity(value, 'current', { significant: 4 });
@@ -86,7 +76,8 @@ interface HistoryPoint { readonly x: number; readonly value: number; readonly lo
 function historySeries(report: Report): [string, HistoryPoint[]][] {
   const byCoil = new Map<string, HistoryPoint[]>();
   const add = (coil: string, date: string | null, value: number, ci95: readonly [number, number] | null) => {
-    const x = decimalYear(date);
+    // in Julian years, the year of the printed trend (A/yr)
+    const x = julianEpoch(date);
     if (x === null || !Number.isFinite(value)) return;
     const list = byCoil.get(coil) ?? [];
     list.push({ x, value, low: ci95?.[0] ?? null, high: ci95?.[1] ?? null });
@@ -115,9 +106,8 @@ function historyChart(report: Report): ChartSpec | null {
     datasets.push({ label: `${coil} 95% interval`, data: points.flatMap((p) => (p.low === null || p.high === null ? [] : [{ x: p.x, y: p.low }, { x: p.x, y: p.high }, { x: p.x, y: null }])), showLine: true, spanGaps: false, pointRadius: 0, borderColor: withAlpha(colour, 0.6), borderWidth: 1.5 });
     legend.push({ label: coil, colour, shape: 'line' });
   });
-  const xs = series.flatMap(([, points]) => points.map((p) => p.x));
-  const first = smallest(xs);
-  const last = largest(xs);
+  // every series holds two points or more, so the extent is two numbers
+  const [first, last] = extent(series.flatMap(([, points]) => points.map((p) => p.x))) as [number, number];
   const ticks = niceTicks(first - 0.05, last + 0.05, 6);
   const step = ticks.length > 1 ? ticks[1]! - ticks[0]! : 0.25;
   const options = baseOptions();

@@ -1,5 +1,5 @@
 import type { ChartConfiguration } from 'chart.js';
-import { surveyUnits, type SurveyUnitChoice } from '../../core/units';
+import { surveyUnits, type SurveyUnitChoice } from '../core/units';
 
 /**
  * A chart as plain data: a Chart.js configuration that is pure JSON (no callbacks, so

@@ -52,22 +52,7 @@ export function installTickLabels(config: unknown, ticks: TickFormatters): void 
   }
 }
 
-/**
- * Draw every `canvas[data-rf-chart]` under `root` with the Chart constructor given (and
- * its `Ticks`, for installTickLabels). The exported report runs `drawChartsSource`
- * instead, the same steps as plain script.
- */
-export function drawCharts(root: ParentNode, ChartConstructor: new (canvas: HTMLCanvasElement, config: unknown) => unknown, ticks: TickFormatters): void {
-  root.querySelectorAll<HTMLCanvasElement>('canvas[data-rf-chart]').forEach((canvas) => {
-    const source = root.querySelector(`#${CSS.escape(canvas.dataset['rfChart'] ?? '')}`);
-    if (!source?.textContent) return;
-    const config: unknown = JSON.parse(source.textContent);
-    installTickLabels(config, ticks);
-    new ChartConstructor(canvas, config);
-  });
-}
-
-/** `drawCharts` and `installTickLabels` as inline script for a self-contained report (expects the global `Chart`). */
+/** The page's `drawCharts` (src/web/draw-charts.ts) and `installTickLabels` as inline script for a self-contained report (expects the global `Chart`). */
 export const drawChartsSource = `document.querySelectorAll('canvas[data-rf-chart]').forEach(function (canvas) {
   var source = document.getElementById(canvas.getAttribute('data-rf-chart'));
   if (!source || !source.textContent) return;

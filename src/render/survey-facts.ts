@@ -1,8 +1,8 @@
-import { inDistanceForm } from '../../core/fit/distance-form-fit';
-import type { FitResult } from '../../core/fit/fit-result';
-import { getModel, isModelId, type FieldModel, type ModelId } from '../../core/models';
-import { probeOffset } from '../../core/report/curves';
-import type { SurveyReport } from '../../core/report/report';
+import { inDistanceForm } from '../core/fit/distance-form-fit';
+import type { FitResult } from '../core/fit/fit-result';
+import { getModel, isModelId, type FieldModel, type ModelId } from '../core/models';
+import { probeOffset } from '../core/report/curves';
+import type { SurveyReport } from '../core/report/report';
 
 /** Finds the FieldModel for a catalog id (the core catalog's getModel, or a stand-in in tests). */
 export type ModelLookup = (id: ModelId) => FieldModel | undefined;

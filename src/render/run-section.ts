@@ -1,5 +1,5 @@
-import { describeRun } from '../../core/report/describe-run';
-import type { RunRecord } from '../../core/report/run-record';
+import { describeRun } from '../core/report/describe-run';
+import type { RunRecord } from '../core/report/run-record';
 import { html, type SafeHtml } from './html';
 
 /**

@@ -1,13 +1,13 @@
 import { simplifyPolyline, type Point } from './simplify-path';
+import { max, min } from 'd3-array';
 import { contours } from 'd3-contour';
-import type { FitResult } from '../../core/fit/fit-result';
-import { fieldMapGrid, probeOffset } from '../../core/report/curves';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import type { FitResult } from '../core/fit/fit-result';
+import { fieldMapGrid, probeOffset } from '../core/report/curves';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import { distanceUnitFor, fieldUnitFor } from './chart-spec';
 import { escapeHtml, html, trusted, type SafeHtml } from './html';
 import { niceTicks } from './nice-ticks';
-import { largest, smallest } from './extent';
 import { fieldRamp, palette } from './palette';
 import { chartReadings, isAxisymmetric, rankedFits, type ModelLookup } from './survey-facts';
 
@@ -44,9 +44,9 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   // readings drawn where they were sensed: ruler distance plus this model's probe offset
   const readings = chartReadings(survey, lookup).map((p) => ({ ...p, distance: p.distance + offset }));
   const thresholdDistances = survey.thresholds.filter((t) => t.model === fit.model).map((t) => t.distance?.value ?? 0);
-  const maxReading = Math.max(0, largest(readings.map((p) => p.distance)));
+  const maxReading = Math.max(0, max(readings, (p) => p.distance) ?? 0);
   let maxDistance = Math.max(maxReading, ...thresholdDistances.filter((d) => d < maxReading * 20)) * 1.1;
-  const needRadial = Math.max(1.6 * coilRadius(fit), 1.1 * Math.max(0, largest(readings.map((p) => p.radial))));
+  const needRadial = Math.max(1.6 * coilRadius(fit), 1.1 * Math.max(0, max(readings, (p) => p.radial) ?? 0));
   let maxRadial = (innerHeight / innerWidth) * maxDistance / 2;
   if (maxRadial < needRadial) {
     maxRadial = needRadial;
@@ -65,9 +65,9 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   }
   const positiveFields = readings.map((p) => Math.abs(p.field)).filter((b) => b > 0);
   const levels = survey.thresholds.map((t) => t.level.value).filter((v) => v > 0);
-  const top = Math.log10(Math.max(largest(positiveFields), ...levels, 1e-12) * 2);
+  const top = Math.log10(Math.max(max(positiveFields) ?? Number.NEGATIVE_INFINITY, ...levels, 1e-12) * 2);
   // five decades at most, so the far field does not wash the near field out
-  const bottom = Math.max(top - 5, Math.log10(Math.min(smallest(positiveFields), ...levels, 10 ** top) / 2));
+  const bottom = Math.max(top - 5, Math.log10(Math.min(min(positiveFields) ?? Number.POSITIVE_INFINITY, ...levels, 10 ** top) / 2));
   for (let i = 0; i < logValues.length; i++) logValues[i] = Math.min(logValues[i]!, top);
   const bandLevels = Array.from({ length: bands }, (_, i) => bottom + ((top - bottom) * i) / bands);
 

@@ -1,4 +1,4 @@
-import type { ModelId } from '../../core/models/field-model';
+import type { ModelId } from '../core/models/field-model';
 
 /**
  * ringfall's own colours for charts and the field map (chosen for this project:

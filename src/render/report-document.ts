@@ -1,4 +1,4 @@
-import type { Report } from '../../core/report/report';
+import type { Report } from '../core/report/report';
 import { drawChartsSource } from './figure';
 import { renderFleetSection } from './fleet-section';
 import { documentHead } from './document-head';

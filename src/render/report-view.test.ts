@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { escapeHtml, html, inlineJson } from './html';
 import { renderReportDocument, renderSurveySection } from './index';
 import { fabricatedReport, standInLookup } from './testing-fixture';
-import { decimalYear } from './fleet-section';
 import { niceLogBound, niceTicks } from './nice-ticks';
 import { drawChartsSource, installTickLabels, oneTwoFiveLabels } from './figure';
 
@@ -52,12 +51,6 @@ describe('report view', () => {
     // two surveys × (falloff, residuals) + the fleet history chart of coil A
     expect(doc.match(/<canvas /g)?.length).toBe(5);
     expect(doc).toContain('History: ampere-turns of each coil over time');
-  });
-
-  it('decimalYear() puts 2 July 2026 at the middle of the year', () => {
-    // 2026 has 365 days; noon of day 183 (2 July) is 182.5 days in → 2026 + 182.5/365
-    expect(decimalYear('2026-07-02')).toBeCloseTo(2026.5, 12);
-    expect(decimalYear('not a date')).toBeNull();
   });
 
   it('niceTicks(0, 100, 5) gives steps of 20', () => {

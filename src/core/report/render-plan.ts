@@ -1,10 +1,10 @@
-import { formatNumber, formatQuantity } from '../../units';
-import { parameterQuantityKind } from '../../models';
-import { describeValue } from '../describe-value';
-import type { JsonPlan, JsonPlanIntervals } from '../../report/json-types';
-import type { DesignProblem } from './design-problem';
-import type { ExpectedIntervals } from './expected-intervals';
-import type { MeasurementPlan } from './plan-measurements';
+import { formatNumber, formatQuantity } from '../units';
+import { parameterQuantityKind } from '../models';
+import { describeValue } from '../analysis/describe-value';
+import type { JsonPlan, JsonPlanIntervals } from './json-types';
+import type { DesignProblem } from '../analysis/plan/design-problem';
+import type { ExpectedIntervals } from '../analysis/plan/expected-intervals';
+import type { MeasurementPlan } from '../analysis/plan/plan-measurements';
 
 /** Schema tag of `ringfall plan --json`. */
 export const planSchema = 'ringfall-plan/1';
@@ -30,7 +30,13 @@ export function planToJson(problem: DesignProblem, plan: MeasurementPlan): JsonP
     parameters,
     interest: plan.interest,
     noise: { relative: problem.noise.relative, absolute: { value: problem.noise.absolute, unit: 'T' }, position: { value: problem.noise.position, unit: 'm' } },
-    plans: { recommended: planJson(plan.recommended), evenlySpaced: planJson(plan.evenlySpaced), compared: plan.compared === null ? null : planJson(plan.compared) },
+    ...(plan.scan ? { axis: 'position' as const } : {}),
+    plans: {
+      recommended: planJson(plan.recommended),
+      evenlySpaced: planJson(plan.evenlySpaced),
+      compared: plan.compared === null ? null : planJson(plan.compared),
+      ...(plan.scan ? { oneSided: plan.oneSided === null ? null : planJson(plan.oneSided) } : {}),
+    },
     notes: plan.notes,
   };
 }
@@ -43,7 +49,8 @@ export function renderPlanText(problem: DesignProblem, plan: MeasurementPlan): s
   lines.push(`Optimised for ${plan.interest.join(', ')}; ${plan.notes.join(' ')}`, '');
   const plans: [string, ExpectedIntervals][] = [['recommended', plan.recommended], ['evenly spaced', plan.evenlySpaced]];
   if (plan.compared) plans.push(['your plan', plan.compared]);
-  for (const [name, intervals] of plans) lines.push(`${name} (${intervals.points.length} positions): ${positions(intervals)}`);
+  if (plan.oneSided) plans.push(['one side only', plan.oneSided]);
+  for (const [name, intervals] of plans) lines.push(`${name} (${intervals.points.length} ${plan.scan && intervals !== plan.oneSided ? 'positions on the ruler' : 'positions'}): ${positions(intervals)}${intervals === plan.oneSided ? ' from the datum, probe offset free' : ''}`);
   lines.push('', 'Expected 95 % half-widths');
   const header = ['', ...plans.map(([name]) => name)];
   const rows = plan.recommended.parameters.map((p, a) => [

@@ -1,5 +1,5 @@
-import type { SpecCheck, SpecUse, ThresholdResult, Verdict } from '../../core/report/report';
-import { formatNumber, formatQuantity, surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../../core/units';
+import type { SpecCheck, SpecUse, ThresholdResult, Verdict } from '../core/report/report';
+import { formatNumber, formatQuantity, surveyUnits, type DisplayUnit, type SurveyUnitChoice } from '../core/units';
 import { html, type SafeHtml } from './html';
 
 const statusWords: Readonly<Record<SpecCheck['status'], string>> = {

@@ -3,9 +3,9 @@
  * inverse square) and a fabricated SurveyReport built from stated parameters. Not used
  * by the page; the real catalog and engine replace these in the end-to-end tests.
  */
-import type { FitResult, ParameterEstimate } from '../../core/fit/fit-result';
-import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from '../../core/models/field-model';
-import type { SurveyReport } from '../../core/report/report';
+import type { FitResult, ParameterEstimate } from '../core/fit/fit-result';
+import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from '../core/models/field-model';
+import type { SurveyReport } from '../core/report/report';
 
 // CODATA 2018 μ0 (DOMAIN.md §6)
 const mu0 = 1.25663706212e-6;

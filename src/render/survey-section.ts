@@ -1,7 +1,7 @@
-import type { FitResult } from '../../core/fit/fit-result';
-import { formatEstimate } from '../../core/report/render-text';
-import type { SurveyReport } from '../../core/report/report';
-import { formatNumber, surveyUnits, type SurveyUnitChoice } from '../../core/units';
+import type { FitResult } from '../core/fit/fit-result';
+import { formatEstimate } from '../core/report/render-text';
+import type { SurveyReport } from '../core/report/report';
+import { formatNumber, surveyUnits, type SurveyUnitChoice } from '../core/units';
 import { falloffChart } from './falloff-chart';
 import { fieldMap } from './field-map';
 import { chartFigure } from './figure';
@@ -9,7 +9,7 @@ import { html, type SafeHtml } from './html';
 import { residualsChart } from './residuals-chart';
 import { bestFit, rankedFits, type ModelLookup } from './survey-facts';
 import { specNotMadeSection, thresholdSection, verdictSection } from './verdict-section';
-import { centreParameter } from '../../core/models/scan-model';
+import { centreParameter } from '../core/models/scan-model';
 
 /** How many set-aside rows are listed in the page; the JSON export has every one. */
 const rejectedListed = 200;

@@ -1,7 +1,10 @@
 /**
  * Round tick values covering [min, max]: steps of 1, 2 or 5 × 10ⁿ chosen so that about
  * `count` ticks fall in the range (the classic "nice numbers" rule; Heckbert, "Nice
- * numbers for graph labels", Graphics Gems, 1990).
+ * numbers for graph labels", Graphics Gems, 1990). Not d3-array's `ticks`: d3 moves to
+ * the next step at √2, √10 and √50 rather than 1.5, 3.5 and 7.5, so the field map of a
+ * 0–254 mm survey would get a tick every 50 mm instead of every 20 mm (issue #14 keeps
+ * every output as it was).
  * @example niceTicks(0, 100, 5) // [0, 20, 40, 60, 80, 100]
  */
 export function niceTicks(min: number, max: number, count: number): number[] {

@@ -1,14 +1,14 @@
 import type { ChartDataset } from 'chart.js';
-import { confidenceBand, fittedCurve, logSpacedDistances } from '../../core/report/curves';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import { extent } from 'd3-array';
+import { confidenceBand, fittedCurve, logSpacedDistances } from '../core/report/curves';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import {
   baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
 } from './chart-spec';
 import { oneTwoFiveLabels } from './figure';
 import { niceLogBound } from './nice-ticks';
-import { largest, smallest } from './extent';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
 import { chartFrame, chartReadings, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
@@ -32,10 +32,11 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const notes: string[] = [];
 
   const units = surveyUnits(survey);
-  const field = fieldUnitFor(largest(positive.map((p) => p.field)), units);
-  const length = distanceUnitFor(largest(positive.map(at)), units);
-  let xMin = smallest(positive.map(at));
-  let xMax = largest(positive.map(at));
+  // positive holds at least one reading, so every extent below is a number
+  const [fieldLow, fieldHigh] = extent(positive, (p) => p.field) as [number, number];
+  let [xMin, xMax] = extent(positive, at) as [number, number];
+  const field = fieldUnitFor(fieldHigh, units);
+  const length = distanceUnitFor(xMax, units);
   for (const t of survey.thresholds) {
     for (const d of [t.distance?.value, t.naive?.distance?.value]) {
       if (d !== undefined && d > 0 && d < xMax * 20) xMax = Math.max(xMax, d);
@@ -43,8 +44,8 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   }
   xMin = niceLogBound(xMin / 1.05, -1);
   xMax = niceLogBound(xMax * 1.05, 1);
-  const yMax = niceLogBound(largest(positive.map((p) => p.field)) * 1.3, 1);
-  const yMin = niceLogBound(Math.max(Math.min(smallest(positive.map((p) => p.field)), ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
+  const yMax = niceLogBound(fieldHigh * 1.3, 1);
+  const yMin = niceLogBound(Math.max(Math.min(fieldLow, ...survey.thresholds.map((t) => t.level.value)) / 1.5, yMax * 1e-6), -1);
   const X = (d: number) => d / length.factor;
   const Y = (b: number): number | null => (b > 0 && Number.isFinite(b) ? b / field.factor : null);
 

@@ -1,11 +1,11 @@
 import type { ChartDataset } from 'chart.js';
-import type { FitResult } from '../../core/fit/fit-result';
-import type { SurveyReport } from '../../core/report/report';
-import { surveyUnits } from '../../core/units';
+import { extent, max } from 'd3-array';
+import type { FitResult } from '../core/fit/fit-result';
+import type { SurveyReport } from '../core/report/report';
+import { surveyUnits } from '../core/units';
 import { baseOptions, distanceUnitFor, drawnReadingsLimit, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
 import { oneTwoFiveLabels } from './figure';
 import { niceCeiling, niceLogBound } from './nice-ticks';
-import { largest, smallest } from './extent';
 import { modelColour, palette } from './palette';
 import { bestFit, bestPowerLaw, chartFrame, type ModelLookup } from './survey-facts';
 
@@ -23,7 +23,7 @@ export function residualsChart(survey: SurveyReport, lookup: ModelLookup): Chart
   if (powerLaw && powerLaw.model !== best.model) fits.push(powerLaw);
   const notes: string[] = [];
   const offset = chartFrame(survey, lookup).offset;
-  const length = distanceUnitFor(largest(best.points.map((p) => p.distance + offset)), surveyUnits(survey));
+  const length = distanceUnitFor(max(best.points, (p) => p.distance + offset) ?? Number.NEGATIVE_INFINITY, surveyUnits(survey));
   const logAxis = best.points.every((p) => p.distance + offset > 0);
   const stated = best.points.some((p) => p.standardUncertainty !== null && p.standardUncertainty > 0);
   const datasets: ChartDataset<'scatter', { x: number; y: number }[]>[] = [];
@@ -43,9 +43,9 @@ export function residualsChart(survey: SurveyReport, lookup: ModelLookup): Chart
     datasets.push({ label: fit.model, data, backgroundColor: colour, borderColor: colour, pointRadius: 2.5, pointStyle: fit === best ? 'circle' : 'rect' });
     legend.push({ label: `${fit.model}${fit === best ? ' (best)' : ' (best power law)'}`, colour, shape: 'point' });
   }
-  const xs = datasets.flatMap((d) => d.data.map((p) => p.x));
-  const xMin = logAxis ? niceLogBound(smallest(xs) / 1.05, -1) : Math.min(0, smallest(xs));
-  const xMax = logAxis ? niceLogBound(largest(xs) * 1.05, 1) : niceCeiling(largest(xs) * 1.02);
+  const [low = Number.POSITIVE_INFINITY, high = Number.NEGATIVE_INFINITY] = extent(datasets.flatMap((d) => d.data.map((p) => p.x)));
+  const xMin = logAxis ? niceLogBound(low / 1.05, -1) : Math.min(0, low);
+  const xMax = logAxis ? niceLogBound(high * 1.05, 1) : niceCeiling(high * 1.02);
   const guide = (y: number, dash: number[]): ChartDataset<'scatter', { x: number; y: number }[]> => ({
     label: y === 0 ? 'zero' : `${y > 0 ? '+' : '−'}2`, data: [{ x: xMin, y }, { x: xMax, y }], showLine: true, pointRadius: 0,
     borderColor: palette.zero, borderWidth: 1, borderDash: dash,

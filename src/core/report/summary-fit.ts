@@ -1,7 +1,7 @@
 import type { FitResult } from '../fit/fit-result';
 import type { FieldModel, ModelId } from '../models/field-model';
-import type { Report, SurveyReport } from '../report/report';
-import { bestPhysicalFit, convergedFit } from './best-fit';
+import type { Report, SurveyReport } from './report';
+import { bestPhysicalFit, convergedFit } from '../analysis/best-fit';
 
 /** The fit a summary row, a verdict or a history reads a survey's coil from, and why that one. */
 export interface SummaryFit {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { getModel } from '../models';
 import { summaryFit, summaryModelWords } from './summary-fit';
-import { syntheticFit } from './testing/synthetic-fit';
+import { syntheticFit } from '../analysis/testing/synthetic-fit';
 
 const at = (value: number) => [{ name: 'ampereTurns', unit: 'A' as const, value, stderr: 1 }];
 const loop = syntheticFit('loop', at(300), { aicc: -10 });
