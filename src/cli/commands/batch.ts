@@ -112,8 +112,8 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
           if (flags.json === true) {
             // written survey by survey from the spool, each as the worker made its text with the
-            // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole report
-            // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
+            // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole
+            // report. A pipe takes the report as fast as its reader does: wait for it rather than buffer the report
             const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
             const withFleet = fleet ? { fleet } : {};
