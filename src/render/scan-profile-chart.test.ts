@@ -52,6 +52,7 @@ describe('scanProfileChart()', () => {
   });
 
   it('is null for a survey of distances from the datum', () => {
-    expect(scanProfileChart({ ...report, axis: undefined }, catalogLookup)).toBeNull();
+    const { axis: _scan, ...distances } = report;
+    expect(scanProfileChart(distances, catalogLookup)).toBeNull();
   });
 });

@@ -4,9 +4,10 @@ import { confidenceBand, fittedCurve } from '../core/report/curves';
 import type { SurveyReport } from '../core/report/report';
 import { nearFaceModels, scanModel } from '../core/models/scan-model';
 import { surveyUnits } from '../core/units';
-import { baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices, type ChartSpec, type LegendItem } from './chart-spec';
+import { baseOptions, distanceUnitFor, fieldUnitFor, type ChartSpec, type LegendItem } from './chart-spec';
 import { niceCeiling, niceTicks } from './nice-ticks';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
+import { readingDatasets } from './reading-datasets';
 import { rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
 type Point = { x: number; y: number | null };
@@ -45,26 +46,7 @@ export function scanProfileChart(survey: SurveyReport, lookup: ModelLookup): Cha
   const datasets: ChartDataset<'scatter', Point[]>[] = [];
   const legend: LegendItem[] = [];
 
-  const onAxis = readings.filter((p) => p.radial === 0);
-  const offAxis = readings.filter((p) => p.radial !== 0);
-  const drawn = sampleIndices(onAxis.length, drawnReadingsLimit).map((i) => onAxis[i]!);
-  if (drawn.length < onAxis.length) notes.push(`${drawn.length} of ${onAxis.length} on-axis readings are drawn (an even sample); every reading was fitted.`);
-  const bars: Point[] = [];
-  for (const p of drawn) {
-    if (p.standardUncertainty === null || !(p.standardUncertainty > 0)) continue;
-    bars.push({ x: X(p.distance), y: Y(p.field - p.standardUncertainty) }, { x: X(p.distance), y: Y(p.field + p.standardUncertainty) }, { x: X(p.distance), y: null });
-  }
-  datasets.push({ label: 'readings', data: drawn.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.readings, borderColor: palette.readings, pointRadius: 2.5, order: 0 });
-  legend.push({ label: 'readings on axis', colour: palette.readings, shape: 'point' });
-  if (bars.length > 0) {
-    datasets.push({ label: '±1σ', data: bars, showLine: true, spanGaps: false, borderColor: withAlpha(palette.readings, 0.55), borderWidth: 1, pointRadius: 0, order: 1 });
-    legend.push({ label: '±1 standard uncertainty', colour: withAlpha(palette.readings, 0.55), shape: 'line' });
-  }
-  if (offAxis.length > 0) {
-    const sample = sampleIndices(offAxis.length, drawnReadingsLimit).map((i) => offAxis[i]!);
-    datasets.push({ label: 'off-axis readings', data: sample.map((p) => ({ x: X(p.distance), y: Y(p.field) })), backgroundColor: palette.offAxis, borderColor: palette.offAxis, pointStyle: 'triangle', pointRadius: 3.5, order: 0 });
-    legend.push({ label: 'readings off axis (curves are on axis; see residuals)', colour: palette.offAxis, shape: 'triangle' });
-  }
+  readingDatasets(readings, (p) => X(p.distance), Y, (p) => p.field - (p.standardUncertainty ?? 0), datasets, legend, notes);
 
   const positions = Float64Array.from({ length: curveSamples }, (_, i) => xMin + ((xMax - xMin) * i) / (curveSamples - 1));
   const ranked = rankedFits(survey).filter((fit) => fit.converged);
