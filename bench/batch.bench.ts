@@ -18,7 +18,7 @@ import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { defaultModels } from '../src/core/fit/fit-survey-options';
-import { fitSurvey } from '../src/core/fit/fit-survey';
+import { fitSurvey } from '../src/core/fit/strategy/fit-survey';
 import { importSurveys } from '../src/io';
 import { makeFleet } from './make-fleet';
 

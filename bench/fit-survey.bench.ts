@@ -7,7 +7,7 @@
  * alone for scale against bench/fit.bench.ts (single LM fits). Rates per CPU second of
  * this process (one core) and per wall second. No target: prints figures only.
  */
-import { fitSurvey } from '../src/core/fit/fit-survey';
+import { fitSurvey } from '../src/core/fit/strategy/fit-survey';
 import type { FitSurveyOptions } from '../src/core/fit/fit-survey-options';
 import { simulatedSurvey } from '../src/core/fit/testing/simulated-survey';
 import type { Survey } from '../src/core/survey/survey';

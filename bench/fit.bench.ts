@@ -11,10 +11,10 @@
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { cpus, loadavg } from 'node:os';
-import { fitLeastSquares } from '../src/core/fit/least-squares';
-import type { LeastSquaresProblem } from '../src/core/fit/least-squares-types';
-import { createLeastSquaresWorkspace } from '../src/core/fit/least-squares-workspace';
-import { parameterUncertainty } from '../src/core/fit/parameter-uncertainty';
+import { fitLeastSquares } from '../src/core/fit/engine/least-squares';
+import type { LeastSquaresProblem } from '../src/core/fit/engine/least-squares-types';
+import { createLeastSquaresWorkspace } from '../src/core/fit/engine/least-squares-workspace';
+import { parameterUncertainty } from '../src/core/fit/engine/parameter-uncertainty';
 import { mulberry32 } from '../src/core/random/mulberry32';
 import { normalRandom } from '../src/core/random/normal-random';
 

@@ -10,7 +10,7 @@
  */
 export { importSurveys, type ImportOptions, type ImportResult } from './io/import';
 export { parseSpecText } from './io/spec/parse-spec-text';
-export { fitSurvey } from './core/fit/fit-survey';
+export { fitSurvey } from './core/fit/strategy/fit-survey';
 export type { FitSurveyOptions } from './core/fit/fit-survey-options';
 export { analyseSurvey, type SurveyAnalysisSettings } from './core/report/analyse-survey';
 export { verifySpec as checkSpec } from './core/analysis/spec/verify-spec';

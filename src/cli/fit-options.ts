@@ -2,7 +2,7 @@ import type { Command } from 'commander';
 import { parseThresholdLevel, type ThresholdLevel } from '../core/analysis/thresholds/threshold-level';
 import { RingfallError } from '../core/errors';
 import { defaultModels, type FitSurveyOptions } from '../core/fit/fit-survey-options';
-import type { RobustLoss } from '../core/fit/robust-fit';
+import type { RobustLoss } from '../core/fit/strategy/robust-fit';
 import { getModel, parseParameterAssignment, scanModel } from '../core/models';
 import type { FieldModel, ModelId } from '../core/models';
 import { lookupUnit, parseQuantity, parseRelativePlusAbsolute, unitsOfKind } from '../core/units';

@@ -1,4 +1,4 @@
-import { inDistanceForm } from '../core/fit/distance-form-fit';
+import { inDistanceForm } from '../core/fit/strategy/distance-form-fit';
 import type { FitResult } from '../core/fit/fit-result';
 import { getModel, isModelId, type FieldModel, type ModelId } from '../core/models';
 import { probeOffset } from '../core/report/curves';

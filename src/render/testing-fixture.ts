@@ -10,14 +10,14 @@ import type { SurveyReport } from '../core/report/report';
 // CODATA 2018 μ0 (DOMAIN.md §6)
 const mu0 = 1.25663706212e-6;
 
-const spec = (name: string, unit: ParameterSpec['unit'], description: string): ParameterSpec => ({ name, unit, lower: -Infinity, upper: Infinity, description });
+const spec = (name: string, unit: ParameterSpec['unit'], role: ParameterSpec['role'], description: string): ParameterSpec => ({ name, unit, role, lower: -Infinity, upper: Infinity, description });
 
 /** On-axis loop, B = μ0·NI·R²/(2(R² + (d + δ)²)^1.5) + background (DOMAIN.md §1.1); ignores ρ. */
 export const loopStandIn: FieldModel = {
   id: 'loop',
   label: 'circular loop (stand-in, on axis)',
   physical: true,
-  parameters: [spec('ampereTurns', 'A', 'ampere-turns N·I'), spec('radius', 'm', 'loop radius'), spec('probeOffset', 'm', 'sensing point beyond the stated distance'), spec('background', 'T', 'constant background')],
+  parameters: [spec('ampereTurns', 'A', 'amplitude', 'ampere-turns N·I'), spec('radius', 'm', 'geometry', 'loop radius'), spec('probeOffset', 'm', 'offset', 'sensing point beyond the stated distance'), spec('background', 'T', 'background', 'constant background')],
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const [ni, r, offset, background] = params as unknown as [number, number, number, number];
     for (let i = 0; i < points.n; i++) {
@@ -34,7 +34,7 @@ export const inverseSquareStandIn: FieldModel = {
   id: 'inverse-square',
   label: 'inverse square (stand-in)',
   physical: false,
-  parameters: [spec('amplitude', 'T·m^n', 'amplitude'), spec('probeOffset', 'm', 'probe offset'), spec('background', 'T', 'background')],
+  parameters: [spec('amplitude', 'T·m^n', 'amplitude', 'amplitude'), spec('probeOffset', 'm', 'offset', 'probe offset'), spec('background', 'T', 'background', 'background')],
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const [amplitude, offset, background] = params as unknown as [number, number, number];
     for (let i = 0; i < points.n; i++) out[i] = amplitude / (points.distance[i]! + offset) ** 2 + background;

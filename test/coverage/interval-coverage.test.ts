@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitSurvey } from '../../src/core/fit/fit-survey';
+import { fitSurvey } from '../../src/core/fit/strategy/fit-survey';
 import type { FitSurveyOptions } from '../../src/core/fit/fit-survey-options';
 import { evenlySpaced, simulatedSurvey } from '../../src/core/fit/testing/simulated-survey';
 

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { compareModels } from '../../src/core/fit/compare-models';
-import { fitSurvey } from '../../src/core/fit/fit-survey';
+import { compareModels } from '../../src/core/fit/strategy/compare-models';
+import { fitSurvey } from '../../src/core/fit/strategy/fit-survey';
 import type { FitSurveyOptions } from '../../src/core/fit/fit-survey-options';
 import { importSurveys } from '../../src/io';
 

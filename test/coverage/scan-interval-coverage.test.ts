@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitSurvey } from '../../src/core/fit/fit-survey';
+import { fitSurvey } from '../../src/core/fit/strategy/fit-survey';
 import { evenlySpaced } from '../../src/core/fit/testing/simulated-survey';
 import { mulberry32, normalRandom } from '../../src/core/random';
 import type { Reading, Survey } from '../../src/core/survey/survey';

@@ -178,7 +178,8 @@ describe('sample-data/ files', () => {
       'thick-coil': [['ampereTurns', 'A'], ['innerRadius', 'm'], ['outerRadius', 'm'], ['length', 'm'], ['probeOffset', 'm'], ['background', 'T']],
       'coil-pair': [['ampereTurns', 'A'], ['radius', 'm'], ['separation', 'm'], ['probeOffset', 'm'], ['background', 'T']],
     };
-    const catalog = (id: string) => names[id]?.map(([name, unit]) => ({ name, unit, lower: -Infinity, upper: Infinity, description: name }));
+    const role = (name: string): ParameterSpec['role'] => (name === 'ampereTurns' ? 'amplitude' : name === 'probeOffset' ? 'offset' : name === 'background' ? 'background' : 'geometry');
+    const catalog = (id: string) => names[id]?.map(([name, unit]) => ({ name, unit, role: role(name), lower: -Infinity, upper: Infinity, description: name }));
     const specPaths = [...files.keys()].filter((p) => p.endsWith('.spec.json'));
     // seven coils' specs plus all-coils.spec.json (scripts/sample-data/build-spec-files.ts)
     expect(specPaths).toHaveLength(8);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitLeastSquares } from '../../src/core/fit/least-squares';
+import { fitLeastSquares } from '../../src/core/fit/engine/least-squares';
 import { mulberry32 } from '../../src/core/random/mulberry32';
 import { expectClose } from '../support/expect-close';
 import { logRelativeError, loadStrd, STRD_NAMES, strdLeastSquares } from './support/strd-problem';

@@ -1,7 +1,8 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { relativeImports, sourceFiles } from './source-imports';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const src = join(root, 'src');
@@ -18,21 +19,6 @@ const allowed: ReadonlyMap<string, readonly string[]> = new Map([
   ['cli', ['core', 'io', 'render', 'cli']],
   ['web', ['core', 'io', 'render', 'web']],
 ]);
-
-function sourceFiles(folder: string): string[] {
-  return readdirSync(folder, { withFileTypes: true }).flatMap((entry) => {
-    const path = join(folder, entry.name);
-    if (entry.isDirectory()) return sourceFiles(path);
-    return /\.(ts|mts|mjs)$/.test(entry.name) && !entry.name.endsWith('.test.ts') ? [path] : [];
-  });
-}
-
-/** Relative module specifiers of `import … from '…'`, `export … from '…'` and `import('…')`. */
-function relativeImports(text: string): string[] {
-  const found: string[] = [];
-  for (const match of text.matchAll(/(?:\bfrom\s*|\bimport\s*\(\s*|^\s*import\s+)'(\.{1,2}\/[^']*)'/gm)) found.push(match[1]!);
-  return found;
-}
 
 function layerOf(path: string): string {
   return relative(src, path).split(/[\\/]/)[0]!;

@@ -4,7 +4,6 @@ import { printable } from '../../core/text/printable';
 import { planMeasurements } from '../../core/analysis/plan/plan-measurements';
 import { planToJson, renderPlanText } from '../../core/report/render-plan';
 import type { DesignPoint, DesignProblem } from '../../core/analysis/plan/design-problem';
-import { parameterRole } from '../../core/analysis/parameter-roles';
 import { exampleValue, getModel, parseParameterAssignment, scanModel } from '../../core/models';
 import { parseQuantity, parseRelativePlusAbsolute } from '../../core/units';
 import type { CommandContext } from './command-context';
@@ -85,17 +84,17 @@ export function readPlanFlags(flags: PlanFlags): { problem: DesignProblem; optio
       if (option === '--fix') fixed.add(name);
     }
   }
-  const missing = model.parameters.filter((p) => !given.has(p.name) && !['offset', 'background'].includes(parameterRole(p.name)));
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !['offset', 'centre', 'background'].includes(p.role));
   if (missing.length > 0) {
     throw new RingfallError('USAGE_SET', `--set: ${model.id} needs rough values for ${missing.map((p) => p.name).join(', ')}. Give them like --set ${missing[0]!.name}=${exampleValue(missing[0]!.unit)}.`, { value: missing.map((p) => p.name) });
   }
-  const size = Math.max(0, ...model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? values[j]! : 0)));
+  const size = Math.max(0, ...model.parameters.map((p, j) => (p.role === 'geometry' ? values[j]! : 0)));
   const count = Number(flags.points);
   if (!Number.isInteger(count) || count < 2 || count > mostPoints) {
     throw new RingfallError('USAGE_POINTS', `--points: "${flags.points}" is not a whole number from 2 to ${mostPoints}. Give the number of probe positions, e.g. --points 12.`, { value: flags.points });
   }
   const scan = flags.scan === true;
-  const centre = scan ? values[model.parameters.findIndex((p) => p.name === 'centre')]! : 0;
+  const centre = scan ? values[model.parameters.findIndex((p) => p.role === 'centre')]! : 0;
   const farthest = size > 0 ? 4 * size : 0.2;
   const reach = flags.reach ? readReach(flags.reach, scan) : scan ? ([centre - farthest, centre + farthest] as const) : ([0, farthest] as const);
   const probeSize = flags.probeSize ? length(flags.probeSize, '--probe-size') : Math.min(0.005, (reach[1] - reach[0]) / (2 * count));

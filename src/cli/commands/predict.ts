@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 import { isRingfallError, RingfallError } from '../../core/errors';
-import { exampleValue, getModel, parameterQuantityKind, parseParameterAssignment, predictField } from '../../core/models';
+import { exampleValue, getModel, isSurveyParameter, parameterQuantityKind, parseParameterAssignment, predictField } from '../../core/models';
 import type { FieldModel, ModelId } from '../../core/models';
 import { formatNumber, formatQuantity, parseQuantity } from '../../core/units';
 import type { JsonPrediction } from '../../core/report/json-types';
@@ -43,9 +43,6 @@ const datum: Readonly<Record<ModelId, string>> = {
   'inverse-cube': 'from the datum',
 };
 
-/** Parameters that default to 0 when not set: they describe the survey, not the coil. */
-const optional = new Set(['probeOffset', 'background']);
-
 const collect = (value: string, previous: string[]): string[] => [...previous, value];
 
 /**
@@ -87,7 +84,7 @@ export function predictFromFlags(flags: PredictFlags): Prediction {
     given.add(name);
     params[index] = value;
   }
-  const missing = model.parameters.filter((p) => !given.has(p.name) && !optional.has(p.name));
+  const missing = model.parameters.filter((p) => !given.has(p.name) && !isSurveyParameter(p));
   if (missing.length > 0) {
     const first = missing[0]!;
     throw new RingfallError(
@@ -148,7 +145,7 @@ export function renderPrediction(prediction: Prediction): string {
   }).join(', ');
   const gauss = (value: number) => formatQuantity(value, 'field', { unit: Math.abs(value) >= 1e-4 ? { symbol: 'G', factor: 1e-4 } : { symbol: 'mG', factor: 1e-7 } });
   const line = (label: string, value: number) => `  ${label.padEnd(22)}${formatQuantity(value, 'field').padStart(12)}   (${gauss(value)})\n`;
-  const background = params[model.parameters.findIndex((p) => p.name === 'background')] ?? 0;
+  const background = params[model.parameters.findIndex((p) => p.role === 'background')] ?? 0;
   return (
     `${model.id}: ${model.label}\n` +
     `  ${parameterText}\n` +

@@ -1,4 +1,4 @@
-import { distanceFormFit } from '../fit/distance-form-fit';
+import { distanceFormFit } from '../fit/strategy/distance-form-fit';
 import type { FitResult } from '../fit/fit-result';
 import { deltaMethodVariance } from '../stats';
 import type { FieldModel } from '../models/field-model';
@@ -30,7 +30,7 @@ export interface FittedModel {
  * @throws RangeError when the fit does not belong to the model
  */
 export function fittedModel(given: FitResult, model: FieldModel): FittedModel {
-  const fit = given.params['centre'] !== undefined && !model.parameters.some((p) => p.name === 'centre') ? distanceFormFit(given) : given;
+  const fit = given.params['centre'] !== undefined && !model.parameters.some((p) => p.role === 'centre') ? distanceFormFit(given) : given;
   if (fit.model !== model.id) throw new RangeError(`fittedModel: fit of "${fit.model}" given with model "${model.id}"`);
   const values = new Float64Array(model.parameters.map((p) => fit.params[p.name]?.value ?? Number.NaN));
   const freeIndex = fit.freeParameters.map((name) => model.parameters.findIndex((p) => p.name === name));

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { thresholdDistances } from './thresholds/threshold-distances';
 import { parseThresholdLevel } from './thresholds/threshold-level';
-import { fitSurvey } from '../fit/fit-survey';
+import { fitSurvey } from '../fit/strategy/fit-survey';
 import { evenlySpaced, simulatedSurvey } from '../fit/testing/simulated-survey';
 
 describe('analyses on very long surveys', () => {

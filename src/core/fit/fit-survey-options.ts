@@ -1,8 +1,8 @@
 import { RingfallError } from '../errors';
 import type { FieldModel, ModelId } from '../models/field-model';
 import type { RelativePlusAbsolute } from '../units/tolerance';
-import type { AbortFlag } from './least-squares-types';
-import type { RobustLoss } from './robust-fit';
+import type { AbortFlag } from './engine/least-squares-types';
+import type { RobustLoss } from './strategy/robust-fit';
 
 /** The models fitted when none are named (CONTRACT.md `--model` default). */
 export const defaultModels: readonly ModelId[] = ['loop', 'dipole', 'power-law', 'inverse-square', 'inverse-cube'];
@@ -58,7 +58,7 @@ export function checkFixedParameters(models: readonly FieldModel[], fixed: Reado
     }
     for (const { model, spec } of specs) {
       // A length of 0 is no coil: lengths must be more than 0, not just at least their lower bound.
-      const openAtZero = spec.lower === 0 && spec.unit === 'm';
+      const openAtZero = spec.lower === 0 && spec.role === 'geometry';
       if (!Number.isFinite(value) || value < spec.lower || value > spec.upper || (openAtZero && value === 0)) {
         const problem = Number.isFinite(value)
           ? `${name} = ${withUnit(String(value), spec.unit)} is outside what ${model.id} allows (${describeBounds(spec.lower, spec.upper, spec.unit, openAtZero)}) (--fix). Give a value inside.`

@@ -1,28 +1,42 @@
+/**
+ * core/fit: the public face of the fitting code. engine/ (least squares, no models) ←
+ * strategy/ (fitting a survey) → diagnostics/ (warnings and descriptions of a fit);
+ * fit-result.ts and fit-survey-options.ts are the types and options all three share.
+ */
 export type { FitResult, FitStats, ParameterEstimate } from './fit-result';
-export { fitLeastSquares } from './least-squares';
-export type {
-  AbortFlag,
-  LeastSquaresOptions,
-  LeastSquaresProblem,
-  LeastSquaresSolution,
-  StopCode,
-} from './least-squares-types';
-export { createLeastSquaresWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';
-export { parameterUncertainty, type ParameterUncertainty } from './parameter-uncertainty';
+export { defaultModels, checkFixedParameters, type FitSurveyOptions } from './fit-survey-options';
 export {
+  fitLeastSquares,
+  createLeastSquaresWorkspace,
+  parameterUncertainty,
+  type AbortFlag,
+  type LeastSquaresOptions,
+  type LeastSquaresProblem,
+  type LeastSquaresSolution,
+  type LeastSquaresWorkspace,
+  type ParameterUncertainty,
+  type StopCode,
+} from './engine';
+export {
+  compareModels,
+  distanceSlope,
   effectiveUncertainty,
+  fieldModelProblem,
   fitEffectiveVariance,
+  fitMultiStart,
+  fitRobust,
+  fitSurvey,
+  fitSurveyNotes,
+  readingUncertainty,
+  surveyPoints,
   type EffectiveVarianceFit,
   type EffectiveVarianceOptions,
-} from './effective-variance';
-export { fitRobust, type RobustFit, type RobustLoss, type RobustOptions } from './robust-fit';
-export { fitMultiStart, type MultiStartFit, type MultiStartOptions } from './multi-start-fit';
-export { distanceSlope, fieldModelProblem } from './field-model-problem';
-export { fitSurvey, fitSurveyNotes } from './fit-survey';
-export { defaultModels, checkFixedParameters, type FitSurveyOptions } from './fit-survey-options';
-export { compareModels, type ModelComparison } from './compare-models';
-export { describePowerLaw } from './describe-power-law';
-export { farFieldMoment, momentEstimate, type MomentEstimate } from './far-field-moment';
-export { readingUncertainty, type ReadingUncertainty } from './reading-uncertainty';
-export { runsTest, type RunsTest } from './runs-test';
-export { surveyPoints } from './survey-points';
+  type ModelComparison,
+  type MultiStartFit,
+  type MultiStartOptions,
+  type ReadingUncertainty,
+  type RobustFit,
+  type RobustLoss,
+  type RobustOptions,
+} from './strategy';
+export { describePowerLaw, farFieldMoment, momentEstimate, runsTest, type MomentEstimate, type RunsTest } from './diagnostics';

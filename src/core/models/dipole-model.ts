@@ -1,7 +1,8 @@
 import { dipoleField, dipoleFieldGradient } from '../physics/dipole-field';
 import { vacuumPermeability } from '../physics/vacuum-permeability';
 import type { FieldModel, SurveyPoints } from './field-model';
-import { medianOf, radialDistance, readingSign } from './initial-guess';
+import { medianOf } from '../numeric/order-statistics';
+import { radialDistance, readingSign } from './initial-guess';
 import { backgroundParameter, evaluateFromComponents, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
 const field = new Float64Array(4);
@@ -28,7 +29,7 @@ export const dipoleModel: FieldModel = {
   label: 'magnetic dipole (far field)',
   physical: true,
   parameters: [
-    { name: 'moment', unit: 'A·m²', lower: -Infinity, upper: Infinity, description: 'magnetic moment m = N·I·area' },
+    { name: 'moment', unit: 'A·m²', role: 'amplitude', lower: -Infinity, upper: Infinity, description: 'magnetic moment m = N·I·area' },
     probeOffsetParameter,
     backgroundParameter,
   ],

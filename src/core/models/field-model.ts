@@ -18,10 +18,26 @@ export type ModelId =
 /** Unit of a parameter in SI, as it appears in the JSON report. */
 export type ParameterUnit = 'A' | 'm' | 'T' | 'A·m²' | '1' | 'T·m^n';
 
+/**
+ * What a parameter does to the survey curve (DOMAIN.md §5), so that the fit and the
+ * analyses never guess it from names or units:
+ * - 'amplitude': the source strength; every reading is linear in it (ampereTurns, moment,
+ *   a power law's amplitude);
+ * - 'geometry': a length of the source that changes the curve's normalised shape (radius,
+ *   lengths, separation, sides);
+ * - 'offset': the probe offset, shifting the curve along the distance axis;
+ * - 'centre': a scan's centre, the position of the datum along a signed scan axis;
+ * - 'background': a constant added to every reading;
+ * - 'exponent': a power law's slope on log–log axes.
+ */
+export type ParameterRole = 'amplitude' | 'geometry' | 'offset' | 'centre' | 'background' | 'exponent';
+
 export interface ParameterSpec {
   /** Name used in --fix, spec files and JSON (camelCase: ampereTurns, radius, probeOffset). */
   readonly name: string;
   readonly unit: ParameterUnit;
+  /** What the parameter does to the curve; code asks this, never the name or unit. */
+  readonly role: ParameterRole;
   /** Hard bounds the fit respects (SI). Use ±Infinity for none. */
   readonly lower: number;
   readonly upper: number;

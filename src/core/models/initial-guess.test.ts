@@ -2,9 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
-import { brentMinimum, logLogLine, radialDistance } from './initial-guess';
-import { fitLeastSquares } from '../fit/least-squares';
-import { fieldModelProblem } from '../fit/field-model-problem';
+import { radialDistance } from './initial-guess';
+import { fitLeastSquares } from '../fit/engine/least-squares';
+import { fieldModelProblem } from '../fit/strategy/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
 
 /** A survey whose readings are the model's own predictions (noise-free). */
@@ -60,29 +60,11 @@ describe('initialGuess()', () => {
     }
   });
 
-  it('brentMinimum() finds the minimum of (x − 1)² on [0, 3] to 1e-8 (its TSDoc example), and of cos x on [2, 4] at π in few evaluations', () => {
-    // exact minima: x = 1; cos x is least at x = π (parabolic steps converge superlinearly, Brent 1973 ch. 5)
-    expectClose(brentMinimum((x) => (x - 1) ** 2, 0, 3, 1e-8, 50), 1, { abs: 1e-8 });
-    let evaluations = 0;
-    const x = brentMinimum((t) => (evaluations++, Math.cos(t)), 2, 4, 1e-7, 50);
-    expectClose(x, Math.PI, { abs: 1e-7 });
-    // golden section alone would need log(2/1e-7)/log(1.618) ≈ 35 evaluations
-    expect(evaluations).toBeLessThan(15);
-  });
-
   it('radialDistance() is √(d² + ρ²), and |d| on the axis (its TSDoc example: 3, 4 → 5)', () => {
     // Pythagoras
     expect(radialDistance(3, 4)).toBe(5);
     expect(radialDistance(-0.02, 0)).toBe(0.02);
     expectClose(radialDistance(0.1, 0.05), Math.hypot(0.1, 0.05), { rel: 1e-15 });
-  });
-
-  it('logLogLine() returns slope −2 for exact inverse-square data and null with one usable point', () => {
-    // definition of the OLS line (common practice)
-    const line = logLogLine(Float64Array.of(0.1, 0.2, 0.4), Float64Array.of(1e-4, 2.5e-5, 6.25e-6))!;
-    expectClose(line.slope, -2, { rel: 1e-14 });
-    expectClose(Math.exp(line.intercept), 1e-6, { rel: 1e-12 });
-    expect(logLogLine(Float64Array.of(0, 0.2), Float64Array.of(1, 2))).toBeNull();
   });
 
   it('inverse-square and inverse-cube initialGuess() recover the amplitude of exact power-law data', () => {

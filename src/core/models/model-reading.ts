@@ -34,13 +34,13 @@ export function fieldReadingDerivative(
  * a constant background field (DOMAIN.md §3.4), both unbounded.
  */
 export const probeOffsetParameter: ParameterSpec = {
-  name: 'probeOffset', unit: 'm', lower: -Infinity, upper: Infinity,
+  name: 'probeOffset', unit: 'm', role: 'offset', lower: -Infinity, upper: Infinity,
   description: 'probe offset: the sensing point is this far beyond the stated distance',
 };
 
 /** See probeOffsetParameter. */
 export const backgroundParameter: ParameterSpec = {
-  name: 'background', unit: 'T', lower: -Infinity, upper: Infinity,
+  name: 'background', unit: 'T', role: 'background', lower: -Infinity, upper: Infinity,
   description: 'background field added to every reading (Earth, offset of the meter)',
 };
 
@@ -50,13 +50,13 @@ export const backgroundParameter: ParameterSpec = {
  * the sign and start positive.
  */
 export const ampereTurnsParameter: ParameterSpec = {
-  name: 'ampereTurns', unit: 'A', lower: -Infinity, upper: Infinity,
+  name: 'ampereTurns', unit: 'A', role: 'amplitude', lower: -Infinity, upper: Infinity,
   description: 'ampere-turns N·I (turns times current per turn)',
 };
 
 /** A length parameter of the winding (m), strictly positive in use. */
 export function lengthParameter(name: string, description: string): ParameterSpec {
-  return { name, unit: 'm', lower: 0, upper: Infinity, description };
+  return { name, unit: 'm', role: 'geometry', lower: 0, upper: Infinity, description };
 }
 
 /** A model's field of the source alone at one survey position (FieldModel.components). */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { getModel, isModelId, modelIds } from './index';
+import { getModel, isModelId, modelIds, scanModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { RingfallError } from '../errors';
 import { expectClose } from '../../../test/support/expect-close';
@@ -53,6 +53,20 @@ describe('model catalog', () => {
       }
       expect(model.physical).toBe(!id.includes('power') && !id.startsWith('inverse'));
     }
+  });
+
+  it('each parameter says its role, and a name has the same role in every model', () => {
+    // DOMAIN.md §5 (amplitude scales the curve, geometry changes its shape) and §3.1, §3.4
+    // (probe offset, background); the exponent of DESIGN.md's power law
+    const expected = new Map<string, string>([
+      ['ampereTurns', 'amplitude'], ['moment', 'amplitude'], ['amplitude', 'amplitude'],
+      ['radius', 'geometry'], ['innerRadius', 'geometry'], ['outerRadius', 'geometry'], ['length', 'geometry'],
+      ['separation', 'geometry'], ['width', 'geometry'], ['height', 'geometry'],
+      ['probeOffset', 'offset'], ['background', 'background'], ['exponent', 'exponent'],
+    ]);
+    for (const id of modelIds) for (const p of getModel(id).parameters) expect(p.role, `${id} ${p.name}`).toBe(expected.get(p.name));
+    // a scan fits the centre of the scan in place of the probe offset (DEVELOPERS.md, scans)
+    expect(scanModel(getModel('loop')).parameters.map((p) => p.role)).toEqual(['amplitude', 'geometry', 'centre', 'background']);
   });
 
   it('getModel() rejects an unknown id with code MODEL_UNKNOWN naming the choices', () => {

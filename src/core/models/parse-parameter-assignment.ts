@@ -46,7 +46,7 @@ export function acceptedRange(parameter: ParameterSpec): string {
 }
 
 function isGeometry(parameter: ParameterSpec): boolean {
-  return parameter.unit === 'm' && parameter.lower === 0;
+  return parameter.role === 'geometry' && parameter.lower === 0;
 }
 
 /**

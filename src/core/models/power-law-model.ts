@@ -1,13 +1,15 @@
 import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-model';
-import { logLogLine, medianOf, readingSign } from './initial-guess';
+import { logLogLine } from '../numeric/log-log-line';
+import { medianOf } from '../numeric/order-statistics';
+import { readingSign } from './initial-guess';
 import { backgroundParameter, probeOffsetParameter } from './model-reading';
 
 const amplitudeParameter: ParameterSpec = {
-  name: 'amplitude', unit: 'T·m^n', lower: -Infinity, upper: Infinity,
+  name: 'amplitude', unit: 'T·m^n', role: 'amplitude', lower: -Infinity, upper: Infinity,
   description: 'amplitude A of B = A/r^n (T·m^n, n the exponent)',
 };
 const exponentParameter: ParameterSpec = {
-  name: 'exponent', unit: '1', lower: 0, upper: Infinity,
+  name: 'exponent', unit: '1', role: 'exponent', lower: 0, upper: Infinity,
   description: 'apparent exponent n over the surveyed range (not a property of the coil)',
 };
 

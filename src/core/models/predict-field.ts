@@ -1,6 +1,6 @@
 import { RingfallError } from '../errors';
-import type { ModelId } from './field-model';
-import { getModel } from './index';
+import type { ModelId, ParameterSpec } from './field-model';
+import { getModel } from './catalog';
 import { acceptedRange, acceptsValue } from './parse-parameter-assignment';
 
 /** The forward field of a model at one point, SI. */
@@ -13,8 +13,10 @@ export interface FieldPrediction {
   readonly radial: number;
 }
 
-/** Parameters that default to 0 when not given: they describe the survey, not the coil. */
-const surveyParameters = new Set(['probeOffset', 'background']);
+/** True for a parameter that defaults to 0 when not given: it describes the survey (probe offset, background), not the coil. */
+export function isSurveyParameter(spec: ParameterSpec): boolean {
+  return spec.role === 'offset' || spec.role === 'background';
+}
 
 /**
  * Field of a catalog model at (distance along the axis from the model's datum, radial
@@ -60,7 +62,7 @@ export function predictField(
       );
     }
   }
-  const missing = names.filter((name) => params[name] === undefined && !surveyParameters.has(name));
+  const missing = model.parameters.filter((p) => params[p.name] === undefined && !isSurveyParameter(p)).map((p) => p.name);
   if (missing.length > 0) {
     throw new RingfallError('PREDICT_MISSING', `Parameters: the ${model.id} model needs ${missing.join(', ')}. Give them in SI (m, A, T).`, { value: missing });
   }

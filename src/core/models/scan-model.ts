@@ -6,7 +6,7 @@ import type { FieldModel, ModelId, ParameterSpec, SurveyPoints } from './field-m
  * origin of a power law. Unbounded: the ruler's zero may be anywhere.
  */
 export const centreParameter: ParameterSpec = {
-  name: 'centre', unit: 'm', lower: -Infinity, upper: Infinity,
+  name: 'centre', unit: 'm', role: 'centre', lower: -Infinity, upper: Infinity,
   description: 'position of the coil\'s centre on the survey\'s ruler (winding plane, midpoint of a pair, mid-length of a solenoid)',
 };
 
@@ -40,7 +40,7 @@ const cache = new WeakMap<FieldModel, FieldModel>();
 export function scanModel(base: FieldModel): FieldModel {
   const cached = cache.get(base);
   if (cached !== undefined) return cached;
-  const offsetIndex = base.parameters.findIndex((p) => p.name === 'probeOffset');
+  const offsetIndex = base.parameters.findIndex((p) => p.role === 'offset');
   if (offsetIndex < 0) return base;
   const lengthIndex = nearFaceModels.has(base.id) ? base.parameters.findIndex((p) => p.name === 'length') : -1;
   const k = base.parameters.length;

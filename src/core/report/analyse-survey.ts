@@ -7,7 +7,7 @@ import { isRingfallError } from '../errors';
 import { thresholdCautions } from '../analysis/thresholds/threshold-cautions';
 import { thresholdDistances } from '../analysis/thresholds/threshold-distances';
 import type { ThresholdLevel } from '../analysis/thresholds/threshold-level';
-import { fitSurvey, fitSurveyNotes } from '../fit/fit-survey';
+import { fitSurvey, fitSurveyNotes } from '../fit/strategy/fit-survey';
 import type { FitSurveyOptions } from '../fit/fit-survey-options';
 import type { ModelId } from '../models';
 import type { Survey } from '../survey/survey';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitSurvey } from '../fit/fit-survey';
+import { fitSurvey } from '../fit/strategy/fit-survey';
 import { evenlySpaced, simulatedSurvey } from '../fit/testing/simulated-survey';
 import type { Survey } from '../survey/survey';
 import { buildSurveyReport } from './build-survey-report';

@@ -1,4 +1,4 @@
-import { compareModels } from '../fit/compare-models';
+import { compareModels } from '../fit/strategy/compare-models';
 import { getModel } from '../models';
 import { surveyUnits } from '../units';
 import type { FitResult } from '../fit/fit-result';

@@ -11,8 +11,8 @@ const mu0 = 1.25663706212e-6;
 const inverseSquare: FieldModel = {
   id: 'inverse-square', label: 'A/d²', physical: false,
   parameters: [
-    { name: 'amplitude', unit: 'T·m^n', lower: 0, upper: Infinity, description: '' },
-    { name: 'background', unit: 'T', lower: -Infinity, upper: Infinity, description: '' },
+    { name: 'amplitude', unit: 'T·m^n', role: 'amplitude', lower: 0, upper: Infinity, description: '' },
+    { name: 'background', unit: 'T', role: 'background', lower: -Infinity, upper: Infinity, description: '' },
   ],
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array) {
     for (let i = 0; i < points.n; i++) out[i] = params[0]! / points.distance[i]! ** 2 + params[1]!;
@@ -24,9 +24,9 @@ const inverseSquare: FieldModel = {
 const dipole: FieldModel = {
   id: 'dipole', label: 'dipole', physical: true,
   parameters: [
-    { name: 'moment', unit: 'A·m²', lower: 0, upper: Infinity, description: '' },
-    { name: 'probeOffset', unit: 'm', lower: -Infinity, upper: Infinity, description: '' },
-    { name: 'background', unit: 'T', lower: -Infinity, upper: Infinity, description: '' },
+    { name: 'moment', unit: 'A·m²', role: 'amplitude', lower: 0, upper: Infinity, description: '' },
+    { name: 'probeOffset', unit: 'm', role: 'offset', lower: -Infinity, upper: Infinity, description: '' },
+    { name: 'background', unit: 'T', role: 'background', lower: -Infinity, upper: Infinity, description: '' },
   ],
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array) {
     for (let i = 0; i < points.n; i++) {

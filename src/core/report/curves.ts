@@ -110,7 +110,7 @@ export function fieldMapGrid(
     }
   }
   const parameters = Float64Array.from(fitted.values);
-  const backgroundIndex = model.parameters.findIndex((spec) => spec.name === 'background');
+  const backgroundIndex = model.parameters.findIndex((spec) => spec.role === 'background');
   if (backgroundIndex >= 0) parameters[backgroundIndex] = 0;
   const values = new Float64Array(nz * nRadial);
   model.evaluate(parameters, pointsAt(pointDistance, pointRadial), values);

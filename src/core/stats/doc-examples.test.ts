@@ -5,7 +5,7 @@ import { chiSquareSurvival } from './chi-square-survival';
 import { leastSquaresCovariance } from './least-squares-covariance';
 import { parameterIntervals } from './parameter-intervals';
 import { regularizedUpperGamma } from './regularized-incomplete-gamma';
-import { singularValues } from './singular-value-decomposition';
+import { singularValues } from '../linalg/singular-value-decomposition';
 import { studentTCdf, studentTDensity } from './student-t-cdf';
 import { studentTQuantile } from './student-t-quantile';
 

@@ -7,10 +7,8 @@ export { leastSquaresCovariance, type CovarianceResult } from './least-squares-c
 export { logGamma } from './log-gamma';
 export { parameterIntervals, type ParameterIntervals } from './parameter-intervals';
 export { regularizedIncompleteBeta } from './regularized-incomplete-beta';
-export { singularValues, type SingularValues } from './singular-value-decomposition';
 export { studentTCdf, studentTDensity } from './student-t-cdf';
 export { studentTQuantile } from './student-t-quantile';
 export { chiSquareSurvival } from './chi-square-survival';
 export { normalQuantile, normalUpperTail } from './normal-quantile';
 export { regularizedUpperGamma } from './regularized-incomplete-gamma';
-export { triangularFactor } from './triangular-factor';

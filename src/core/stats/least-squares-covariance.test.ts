@@ -4,7 +4,7 @@ import { correlationMatrix } from './correlation-matrix';
 import { deltaMethodVariance } from './delta-method-variance';
 import { leastSquaresCovariance } from './least-squares-covariance';
 import { parameterIntervals } from './parameter-intervals';
-import { singularValues } from './singular-value-decomposition';
+import { singularValues } from '../linalg/singular-value-decomposition';
 
 /** Weighted Jacobian of the line f = a + b·x: rows (1, x)/σ. */
 function lineJacobian(x: readonly number[], sigma: readonly number[]): Float64Array {

@@ -1,5 +1,5 @@
-import { singularValues } from './singular-value-decomposition';
-import { triangularFactor } from './triangular-factor';
+import { singularValues } from '../linalg/singular-value-decomposition';
+import { triangularFactor } from '../linalg/householder-qr';
 
 /** What {@link leastSquaresCovariance} finds out about the linearised problem. */
 export interface CovarianceResult {

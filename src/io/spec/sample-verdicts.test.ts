@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { importSurveys } from '../import';
-import { fitSurvey } from '../../core/fit/fit-survey';
+import { fitSurvey } from '../../core/fit/strategy/fit-survey';
 import { fleetHistory, parseThresholdLevel, selectSpec, thresholdDistances, verifySpec } from '../../core/analysis';
 import type { ModelId } from '../../core/models';
 import { readSpecFile } from './read-spec-file';

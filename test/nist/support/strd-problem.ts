@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { LeastSquaresProblem } from '../../../src/core/fit/least-squares-types';
+import type { LeastSquaresProblem } from '../../../src/core/fit/engine/least-squares-types';
 import { parseStrd, type StrdProblem } from './parse-strd';
 import { STRD_MODELS } from './strd-models';
 

@@ -1,9 +1,8 @@
 import type { ParameterUnit } from '../../models/field-model';
 import { studentTQuantile } from '../../stats/student-t-quantile';
 import { formatNumber } from '../../units';
-import { momentEstimate } from '../../fit/far-field-moment';
-import { parameterRole } from '../parameter-roles';
-import { choleskyFactor, choleskyInverse } from '../symmetric-matrix';
+import { momentEstimate } from '../../fit/diagnostics/far-field-moment';
+import { choleskyFactor, choleskyInverse } from '../../linalg/cholesky';
 import { informationMatrix, sensitivityRows, type DesignPoint, type DesignProblem } from './design-problem';
 
 /** Expected 95 % half-width of one free parameter under a design. */
@@ -50,8 +49,8 @@ export function expectedIntervals(problem: DesignProblem, points: readonly Desig
     const halfWidth = covariance ? coverage * Math.sqrt(covariance[a * k + a]!) : null;
     return { name: spec.name, unit: spec.unit, value, halfWidth, relative: halfWidth !== null && value !== 0 ? halfWidth / Math.abs(value) : null };
   });
-  const amplitude = names.findIndex((p) => parameterRole(p.name) === 'amplitude');
-  const geometry = names.findIndex((p) => parameterRole(p.name) === 'geometry');
+  const amplitude = names.findIndex((p) => p.role === 'amplitude');
+  const geometry = names.findIndex((p) => p.role === 'geometry');
   const correlation = covariance && amplitude >= 0 && geometry >= 0
     ? covariance[amplitude * k + geometry]! / Math.sqrt(covariance[amplitude * k + amplitude]! * covariance[geometry * k + geometry]!)
     : null;

@@ -1,4 +1,4 @@
-import { choleskyFactor, choleskyLogDeterminant } from '../symmetric-matrix';
+import { choleskyFactor, choleskyLogDeterminant } from '../../linalg/cholesky';
 
 /** Candidates and constraints for choosing a design. */
 export interface DesignSearch {

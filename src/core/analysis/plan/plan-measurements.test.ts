@@ -1,8 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { getModel, scanModel } from '../../models';
 import { studentTQuantile } from '../../stats';
-import { fitLeastSquares } from '../../fit/least-squares';
-import { parameterUncertainty } from '../../fit/parameter-uncertainty';
+import { fitLeastSquares } from '../../fit/engine/least-squares';
+import { parameterUncertainty } from '../../fit/engine/parameter-uncertainty';
 import { mulberry32, normalRandom } from '../../random';
 import { RingfallError } from '../../errors';
 import { expectedIntervals } from './expected-intervals';

@@ -112,7 +112,7 @@ export function planMeasurements(problem: DesignProblem, options: PlanOptions): 
 function oneSidedPlan(problem: DesignProblem, options: PlanOptions, interestNames: readonly string[]): ExpectedIntervals | null {
   const base = getModel(problem.model.id);
   const offsetIndex = base.parameters.findIndex((p) => parameterRole(p.name) === 'offset');
-  const centreIndex = problem.model.parameters.findIndex((p) => p.name === 'centre');
+  const centreIndex = problem.model.parameters.findIndex((p) => p.role === 'centre');
   if (offsetIndex < 0 || centreIndex !== offsetIndex) return null;
   const values = Float64Array.from(problem.values);
   const centre = values[centreIndex]!;
@@ -167,7 +167,7 @@ function candidateGrid(problem: DesignProblem, options: PlanOptions): DesignPoin
   for (let i = 0; i <= steps; i += 1) grid.push({ distance: near + ((far - near) * i) / steps, radial: 0 });
   const maxRadial = options.maxRadial ?? 0;
   if (maxRadial > 0) {
-    const size = Math.max(...problem.model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? problem.values[j]! : 0)), maxRadial / 2);
+    const size = Math.max(...problem.model.parameters.map((p, j) => (p.role === 'geometry' ? problem.values[j]! : 0)), maxRadial / 2);
     const radii = radialSteps.map((f) => f * size).filter((r) => r <= maxRadial);
     const coarse = Math.min(40, steps);
     for (const radial of radii) for (let i = 0; i <= coarse; i += 1) grid.push({ distance: near + ((far - near) * i) / coarse, radial });

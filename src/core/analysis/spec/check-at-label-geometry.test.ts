@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitSurvey } from '../../fit/fit-survey';
+import { fitSurvey } from '../../fit/strategy/fit-survey';
 import { getModel, type ModelId } from '../../models';
 import { mulberry32, normalRandom } from '../../random';
 import type { Survey } from '../../survey/survey';

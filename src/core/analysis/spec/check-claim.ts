@@ -5,7 +5,6 @@ import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { decideConformity } from '../decide-conformity';
 import { describeValue, valueWords, type ValueWords } from '../describe-value';
 import { beyondSurvey, deltaVariance, probeOffsetOf, surveyedFieldRange, type FittedModel } from '../fitted-model';
-import { parameterRole } from '../parameter-roles';
 import type { CheckOutcome } from './check-parameter';
 import { decidingMeasurement } from './deciding-measurement';
 import type { ReadingRelation } from './reading-relation';
@@ -39,7 +38,7 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
   const value = fitted.point.field(values, claim.distance, claim.radial) * factor;
   const gradient = new Float64Array(values.length);
   fitted.point.gradient(values, claim.distance, claim.radial, gradient);
-  const mask = fromSurface ? model.parameters.map((p) => parameterRole(p.name) === 'background') : coilOnlyMask(model);
+  const mask = fromSurface ? model.parameters.map((p) => p.role === 'background') : coilOnlyMask(model);
   for (let j = 0; j < gradient.length; j += 1) gradient[j] = mask[j] ? 0 : gradient[j]! * factor;
   const variance = deltaVariance(fitted, gradient);
   const half = variance === null || fitted.coverageFactor === null ? null : fitted.coverageFactor * Math.sqrt(variance);
@@ -80,7 +79,7 @@ export function checkClaim(fitted: FittedModel, claim: SpecClaim, relation: Read
 
 function backgroundFree(fitted: FittedModel): Float64Array {
   const values = new Float64Array(fitted.values);
-  fitted.point.model.parameters.forEach((p, j) => { if (parameterRole(p.name) === 'background') values[j] = 0; });
+  fitted.point.model.parameters.forEach((p, j) => { if (p.role === 'background') values[j] = 0; });
   return values;
 }
 

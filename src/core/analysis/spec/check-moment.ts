@@ -2,7 +2,7 @@ import type { SpecCheck } from './spec-check';
 import { decideConformity } from '../decide-conformity';
 import { describeValue, parameterWords } from '../describe-value';
 import type { FittedModel } from '../fitted-model';
-import { farFieldMoment, momentEstimate } from '../../fit/far-field-moment';
+import { farFieldMoment, momentEstimate } from '../../fit/diagnostics/far-field-moment';
 import type { FieldModel } from '../../models/field-model';
 import type { CheckOutcome } from './check-parameter';
 import type { ReadingRelation } from './reading-relation';

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { fitSurvey } from '../../fit/fit-survey';
+import { fitSurvey } from '../../fit/strategy/fit-survey';
 import { getModel } from '../../models';
 import { mulberry32, normalRandom } from '../../random';
 import type { Survey } from '../../survey/survey';

@@ -5,7 +5,6 @@ import type { ReadingType, SurveyUnits } from '../../survey/survey';
 import { surveyUnits } from '../../units';
 import { bestPhysicalFit, convergedFit } from '../best-fit';
 import { beyondSurvey, fittedModel, probeOffsetOf, surveyedFieldRange, type FittedModel } from '../fitted-model';
-import { parameterRole } from '../parameter-roles';
 import { fallDistance } from './fall-distance';
 import { thresholdCautions } from './threshold-cautions';
 import { thresholdInterval, type ThresholdIntervalOptions } from './threshold-interval';
@@ -127,7 +126,7 @@ function bestConverged(fits: readonly FitResult[]): FitResult | null {
 
 /** The coil's largest dimension, else the surveyed reach, else 0.1 m: the grid scale of fallDistance. */
 function lengthScale(fitted: FittedModel, range: readonly [number, number] | null): number {
-  const geometry = fitted.point.model.parameters.map((p, j) => (parameterRole(p.name) === 'geometry' ? Math.abs(fitted.values[j]!) : 0));
+  const geometry = fitted.point.model.parameters.map((p, j) => (p.role === 'geometry' ? Math.abs(fitted.values[j]!) : 0));
   const largest = Math.max(0, ...geometry.filter(Number.isFinite));
   return largest > 0 ? largest : range !== null && range[1] > 0 ? range[1] : 0.1;
 }
@@ -141,7 +140,7 @@ function naiveDistance(fit: FitResult | null, level: number, offset: number, sca
   if (fit === null) return null;
   const fitted = fittedModel(fit, getModel(fit.model));
   const values = new Float64Array(fitted.values);
-  fitted.point.model.parameters.forEach((p, j) => { if (parameterRole(p.name) === 'background') values[j] = 0; });
+  fitted.point.model.parameters.forEach((p, j) => { if (p.role === 'background') values[j] = 0; });
   const reading = fallDistance((d) => fitted.point.field(values, d, 0), level, scale).distance;
   return reading === null ? undefined : reading + offset;
 }

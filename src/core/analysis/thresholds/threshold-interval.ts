@@ -1,7 +1,8 @@
 import { mulberry32, normalRandom } from '../../random';
 import { coilOnlyMask, coilOnlyValues } from '../coil-only-values';
 import { deltaVariance, type FittedModel } from '../fitted-model';
-import { choleskyFactor } from '../symmetric-matrix';
+import { choleskyFactor } from '../../linalg/cholesky';
+import { sampleQuantile } from '../../numeric/order-statistics';
 import { fallDistance } from './fall-distance';
 
 /** A threshold distance of the coil's own field with its 95 % interval. */
@@ -116,17 +117,9 @@ function monteCarlo(
   if (rejected > 0) notes.push(`${rejected} draws fell outside the parameters' bounds and were redrawn.`);
   if (distances.length < samples / 2) return { distance, ci95: null, method: null, notes: [...notes, 'Too few valid draws for an interval.'] };
   distances.sort((x, y) => x - y);
-  return { distance, ci95: [quantile(distances, 0.025), quantile(distances, 0.975)], method: 'monte-carlo', notes };
+  return { distance, ci95: [sampleQuantile(distances, 0.025), sampleQuantile(distances, 0.975)], method: 'monte-carlo', notes };
 }
 
 function inBounds(fitted: FittedModel, values: Float64Array): boolean {
   return fitted.point.model.parameters.every((p, j) => values[j]! >= p.lower && values[j]! <= p.upper);
-}
-
-/** Sample quantile by linear interpolation between order statistics (Hyndman & Fan 1996, type 7). */
-function quantile(sorted: readonly number[], probability: number): number {
-  const position = (sorted.length - 1) * probability;
-  const below = Math.floor(position);
-  const above = Math.min(sorted.length - 1, below + 1);
-  return sorted[below]! + (position - below) * (sorted[above]! - sorted[below]!);
 }

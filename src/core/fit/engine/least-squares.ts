@@ -1,0 +1,184 @@
+import { choleskyFactorize } from '../../linalg/cholesky';
+import { dampingParameter } from './damping-parameter';
+import { finishLeastSquares } from './finish-least-squares';
+import { internalDerivatives, paramsFromInternal } from './free-parameters';
+import { evaluateCost, prepareLeastSquares } from './prepare-least-squares';
+import { applyQTransposeAndFinishR, qrFactorize } from '../../linalg/householder-qr';
+import { weightedJacobian } from './weighted-jacobian';
+import type { AbortFlag, LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution, StopCode } from './least-squares-types';
+import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';
+
+const EPSILON = 2.220446049250313e-16;
+
+/**
+ * Weighted nonlinear least squares by Levenberg–Marquardt, after MINPACK `lmder`
+ * (J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", Lecture
+ * Notes in Mathematics 630, 1978; Moré, Garbow & Hillstrom, ANL-80-74, 1980):
+ * minimises χ²(θ) = Σ ((yᵢ − fᵢ(θ))/σᵢ)² over the free parameters.
+ *
+ * Each iteration factors the weighted Jacobian — pivoted Cholesky of the normal
+ * equations when they are well conditioned, Householder QR with column pivoting
+ * otherwise (both give the same R) — chooses the damping so the step fits a trust region measured in Marquardt's scaled
+ * norm ‖D·δ‖ (D = running maximum of Jacobian column norms), and takes the step only if
+ * it lowers χ² (ratio of actual to predicted reduction ≥ 10⁻⁴); the radius grows or
+ * shrinks with that ratio. Stops on relative tolerances (cost, step, gradient),
+ * the evaluation/iteration budget or `signal.aborted`, and says which.
+ * Bounds are honoured through smooth transforms (bound-transform.ts); fixed parameters
+ * are removed from the problem. Never throws for non-convergence.
+ *
+ * @param workspace buffers to reuse (see createLeastSquaresWorkspace); when absent one is
+ *   taken from the spares (takeWorkspace) and given back after the solution is copied out.
+ * @throws RingfallError FIT_UNDERDETERMINED when there are fewer observations than free
+ *   parameters; RangeError for malformed input (lengths, σ ≤ 0, non-finite data).
+ * @example
+ * // y = a·x fitted to (1, 2), (2, 4): a = 2
+ * fitLeastSquares({ observed: Float64Array.of(2, 4), parameterCount: 1,
+ *   predict: (t, out) => { out[0] = t[0]!; out[1] = 2 * t[0]!; } }, { initial: [1] }).params[0] // 2
+ */
+export function fitLeastSquares(
+  problem: LeastSquaresProblem,
+  options: LeastSquaresOptions,
+  workspace?: LeastSquaresWorkspace,
+): LeastSquaresSolution {
+  const m = problem.observed.length;
+  const p = problem.parameterCount;
+  if (workspace !== undefined && workspace.m === m && workspace.p === p) return iterate(problem, options, workspace);
+  const borrowed = takeWorkspace(m, p);
+  try {
+    return iterate(problem, options, borrowed);
+  } finally {
+    releaseWorkspace(borrowed);
+  }
+}
+
+/** The Levenberg–Marquardt iteration of {@link fitLeastSquares} in a workspace of the right size. */
+function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, workspace: LeastSquaresWorkspace): LeastSquaresSolution {
+  const setup = prepareLeastSquares(problem, options, workspace);
+  const { ws, map, settings } = setup;
+  const { m } = ws;
+  const k = map.count;
+  const { internal, trialInternal, step, scale, qtf, work, jacobian: J, pivot } = ws;
+  let evaluations = 1;
+  let trials = 0;
+  let iterations = 0;
+  let fnorm = evaluateCost(problem, ws, ws.params, ws.predicted, ws.residuals);
+  let stop: StopCode | null = !Number.isFinite(fnorm) ? 'non-finite-start' : k === 0 ? 'no-free-parameters' : null;
+  let damping = 0;
+  let trustRadius = 0;
+  let xnorm = 0;
+  let first = true;
+  while (stop === null) {
+    if (aborted(settings.signal)) { stop = 'aborted'; break; }
+    if (iterations >= settings.maxIterations) { stop = 'max-iterations'; break; }
+    evaluations += weightedJacobian(problem, map, ws, settings.differenceStep, J);
+    if (map.bounded) {
+      // Chain rule into the internal variables: ∂f/∂u = ∂f/∂θ · dθ/du.
+      internalDerivatives(map, internal, ws.derivative);
+      for (let j = 0; j < k; j++) {
+        const d = ws.derivative[j]!;
+        for (let i = j * m, end = i + m; i < end; i++) J[i]! *= d;
+      }
+    }
+    // Normal equations when they are well conditioned (cheap for small k), else Householder QR.
+    if (!choleskyFactorize(m, k, J, ws.residuals, pivot, ws.columnNorms, qtf, ws.gram, work)) {
+      qrFactorize(m, k, J, pivot, ws.rdiag, ws.columnNorms, work);
+      ws.trialResiduals.set(ws.residuals);
+      applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
+    }
+    if (!allFinite(ws.columnNorms, k)) { stop = 'non-finite-jacobian'; break; }
+    if (first) {
+      for (let j = 0; j < k; j++) scale[j] = ws.columnNorms[j] === 0 ? 1 : ws.columnNorms[j]!;
+      xnorm = scaledNorm(scale, internal, k);
+      trustRadius = xnorm === 0 ? settings.initialStepFactor : settings.initialStepFactor * xnorm;
+    }
+    // Largest cosine between the residual vector and a Jacobian column.
+    let gnorm = 0;
+    if (fnorm !== 0) {
+      for (let j = 0; j < k; j++) {
+        const columnNorm = ws.columnNorms[pivot[j]!]!;
+        if (columnNorm === 0) continue;
+        let sum = 0;
+        for (let i = 0; i <= j; i++) sum += J[i + j * m]! * (qtf[i]! / fnorm);
+        gnorm = Math.max(gnorm, Math.abs(sum / columnNorm));
+      }
+    }
+    if (gnorm <= settings.gradientTolerance) { stop = fnorm === 0 ? 'exact-fit' : 'gradient-tolerance'; break; }
+    for (let j = 0; j < k; j++) scale[j] = Math.max(scale[j]!, ws.columnNorms[j]!);
+
+    let ratio = 0;
+    do {
+      damping = dampingParameter(k, J, m, pivot, scale, qtf, trustRadius, damping, step, ws.damping);
+      for (let j = 0; j < k; j++) {
+        step[j] = -step[j]!;
+        trialInternal[j] = internal[j]! + step[j]!;
+      }
+      const pnorm = scaledNorm(scale, step, k);
+      if (first) trustRadius = Math.min(trustRadius, pnorm);
+      paramsFromInternal(map, trialInternal, ws.trialParams);
+      const fnorm1 = evaluateCost(problem, ws, ws.trialParams, ws.trialPredicted, ws.trialResiduals);
+      evaluations += 1;
+      trials += 1;
+      // A non-finite or much larger cost counts as no reduction (actred = −1), as in MINPACK.
+      const actual = 0.1 * fnorm1 < fnorm ? 1 - (fnorm1 / fnorm) ** 2 : -1;
+      for (let j = 0; j < k; j++) {
+        work[j] = 0;
+        const temp = step[pivot[j]!]!;
+        for (let i = 0; i <= j; i++) work[i]! += J[i + j * m]! * temp;
+      }
+      const temp1 = scaledNorm(null, work, k) / fnorm;
+      const temp2 = (Math.sqrt(damping) * pnorm) / fnorm;
+      const predicted = temp1 * temp1 + (temp2 * temp2) / 0.5;
+      const directional = -(temp1 * temp1 + temp2 * temp2);
+      ratio = predicted !== 0 ? actual / predicted : 0;
+      if (ratio <= 0.25) {
+        let shrink = actual >= 0 ? 0.5 : (0.5 * directional) / (directional + 0.5 * actual);
+        if (0.1 * fnorm1 >= fnorm || !(shrink >= 0.1)) shrink = 0.1;
+        trustRadius = shrink * Math.min(trustRadius, pnorm / 0.1);
+        damping /= shrink;
+      } else if (damping === 0 || ratio >= 0.75) {
+        trustRadius = pnorm / 0.5;
+        damping *= 0.5;
+      }
+      if (ratio >= 1e-4) {
+        for (let j = 0; j < k; j++) internal[j] = trialInternal[j]!;
+        ws.params.set(ws.trialParams);
+        ws.predicted.set(ws.trialPredicted);
+        ws.residuals.set(ws.trialResiduals);
+        xnorm = scaledNorm(scale, internal, k);
+        fnorm = fnorm1;
+        iterations += 1;
+      }
+      first = false;
+      const costSmall = Math.abs(actual) <= settings.costTolerance && predicted <= settings.costTolerance && 0.5 * ratio <= 1;
+      const stepSmall = trustRadius <= settings.stepTolerance * xnorm;
+      if (costSmall || stepSmall) stop = costSmall ? (stepSmall ? 'cost-and-step-tolerance' : 'cost-tolerance') : 'step-tolerance';
+      else if (trials >= settings.maxEvaluations) stop = 'max-evaluations';
+      else if (
+        (Math.abs(actual) <= EPSILON && predicted <= EPSILON && 0.5 * ratio <= 1) ||
+        trustRadius <= EPSILON * xnorm ||
+        gnorm <= EPSILON
+      ) stop = 'machine-precision';
+      else if (aborted(settings.signal)) stop = 'aborted';
+    } while (stop === null && ratio < 1e-4);
+  }
+  return finishLeastSquares(problem, setup, stop, iterations, evaluations);
+}
+
+/** ‖D·v‖ over the first k entries (D omitted: ‖v‖). Plain sum of squares: weighted residuals are O(1). */
+function scaledNorm(d: Float64Array | null, v: Float64Array, k: number): number {
+  let sum = 0;
+  for (let j = 0; j < k; j++) {
+    const x = d === null ? v[j]! : d[j]! * v[j]!;
+    sum += x * x;
+  }
+  return Math.sqrt(sum);
+}
+
+function aborted(signal: AbortFlag | undefined): boolean {
+  return signal !== undefined && signal.aborted;
+}
+
+function allFinite(values: Float64Array, k: number): boolean {
+  for (let j = 0; j < k; j++) if (!Number.isFinite(values[j])) return false;
+  return true;
+}

@@ -1,0 +1,3 @@
+export { brentMinimum } from './brent-minimum';
+export { logLogLine } from './log-log-line';
+export { medianOf, sampleQuantile } from './order-statistics';
