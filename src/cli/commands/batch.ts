@@ -87,7 +87,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
         // surveys go to a spool on disk as they come (for the JSON report and the pages), as
         // does what the summary and the fleet history need (the collector keeps their places):
         // memory stays flat in the number of files
-        const spoolFolder = claim === null ? mkdtempSync(join(tmpdir(), 'ringfall-batch-')) : null;
+        const spoolFolder = claim === null ? scratchFolder() : null;
         const spool = new SurveySpool(claim !== null ? claim.scratchPath('surveys.jsonl') : join(spoolFolder!, 'surveys.jsonl'));
         try {
           const collector = new FleetCollector(settings, spool);
@@ -191,4 +191,18 @@ function pageKey(survey: { readonly coil: string | null }, nextUncoiled: () => n
 /** 2 when a file or part could not be used (an input error), combined with the checks as `fit` counts them (checksStatus) (CONTRACT.md). */
 export function batchStatus(report: Report): number {
   return worseStatus(checksStatus(report), (report.fleet?.unreadable.length ?? 0) > 0 ? exitStatus.input : exitStatus.passed);
+}
+
+/**
+ * A scratch folder for the run's spool in the system's temporary folder (TMPDIR), or a
+ * usage error that names it when it cannot be made there (a read-only or missing TMPDIR).
+ */
+function scratchFolder(): string {
+  const base = tmpdir();
+  try {
+    return mkdtempSync(join(base, 'ringfall-batch-'));
+  } catch (cause) {
+    const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
+    throw new RingfallError('OUTPUT_UNWRITABLE', `Cannot make a scratch folder in the temporary folder "${base}" (${code}); batch keeps its surveys there while it runs. Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).`, { value: base, where: 'TMPDIR', cause });
+  }
 }
