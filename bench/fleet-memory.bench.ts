@@ -22,7 +22,12 @@ const OUT_TARGET_MB = 300;
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const cli = join(root, 'bin', 'ringfall.mjs');
 
-/** Run the CLI, discard its output, and return the peak RSS (MB, or null off Linux) and wall seconds. */
+/**
+ * Run the CLI, read and discard its output, and return the peak RSS (MB, or null off Linux)
+ * and wall seconds. stdout is read by this Node process, as a program calling ringfall reads
+ * it: a socket pair, which takes writes asynchronously (a pipe into `cat` blocks the writer
+ * instead, and used to show a far lower peak), so the writer's backpressure is measured too.
+ */
 function measured(args: readonly string[]): Promise<{ peakMb: number | null; seconds: number; status: number | null }> {
   const started = performance.now();
   const child = spawn(process.execPath, [cli, ...args], { stdio: ['ignore', 'pipe', 'ignore'] });
@@ -48,7 +53,7 @@ function folderMb(folder: string): number {
 
 const scratch = mkdtempSync(join(tmpdir(), 'ringfall-fleet-memory-'));
 try {
-  console.log(`load average ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+  console.log(`load average ${loadavg().map((x) => x.toFixed(2)).join(' ')}; stdout read by a Node parent (socket pair)`);
   const tenth = Math.max(100, Math.round(JSON_FILES / 10));
   makeFleet(join(scratch, 'small'), { files: tenth, readings: 30 });
   makeFleet(join(scratch, 'large'), { files: JSON_FILES, readings: 30 });

@@ -6,7 +6,8 @@
 //   unless dist/cli.js was built after the last change to any source file (mtimes; after
 //   `npm run build:package`), so `npx ringfall` never runs stale code.
 //   RINGFALL_LOADER=tsx always takes the sources. --debug says which one ran, and why.
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -37,6 +38,16 @@ function reasonForSources() {
   return time > statSync(built).mtimeMs ? `${relative(root, path)} is newer than dist/cli.js` : null;
 }
 
+/** True when a folder can be made (and removed) in the system's temporary folder. */
+function temporaryFolderWritable() {
+  try {
+    rmSync(mkdtempSync(join(tmpdir(), 'ringfall-probe-')), { recursive: true, force: true });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 async function loadMain() {
   const reason = reasonForSources();
   if (reason === null) {
@@ -51,6 +62,9 @@ async function loadMain() {
     process.stderr.write(`ringfall: ${reason}, and tsx is not installed to run the sources. Run npm install in ${root}, or npm run build:package.\n`);
     process.exit(2);
   }
+  // tsx caches compiled sources in the temporary folder and spins when it cannot write
+  // there (a read-only or missing TMPDIR): then it runs without its cache
+  if (!temporaryFolderWritable()) process.env.TSX_DISABLE_CACHE = '1';
   register();
   return import('../src/cli/main.ts');
 }

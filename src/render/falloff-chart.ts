@@ -4,12 +4,13 @@ import { confidenceBand, fittedCurve, logSpacedDistances } from '../core/report/
 import type { SurveyReport } from '../core/report/report';
 import { surveyUnits } from '../core/units';
 import {
-  baseOptions, distanceUnitFor, drawnReadingsLimit, fieldUnitFor, sampleIndices,
+  baseOptions, distanceUnitFor, fieldUnitFor, sampleIndices,
   type ChartSpec, type LegendItem,
 } from './chart-spec';
 import { oneTwoFiveLabels } from './figure';
 import { niceLogBound } from './nice-ticks';
 import { isPowerLaw, modelColour, palette, withAlpha } from './palette';
+import { readingDatasets } from './reading-datasets';
 import { chartFrame, chartReadings, rankedFits, readingsFit, type ModelLookup } from './survey-facts';
 
 type Point = { x: number; y: number | null };
@@ -52,26 +53,7 @@ export function falloffChart(survey: SurveyReport, lookup: ModelLookup): ChartSp
   const datasets: ChartDataset<'scatter', Point[]>[] = [];
   const legend: LegendItem[] = [];
 
-  const onAxis = positive.filter((p) => p.radial === 0);
-  const offAxis = positive.filter((p) => p.radial !== 0);
-  const drawn = sampleIndices(onAxis.length, drawnReadingsLimit).map((i) => onAxis[i]!);
-  if (drawn.length < onAxis.length) notes.push(`${drawn.length} of ${onAxis.length} on-axis readings are drawn (an even sample); every reading was fitted.`);
-  const bars: Point[] = [];
-  for (const p of drawn) {
-    if (p.standardUncertainty === null || !(p.standardUncertainty > 0)) continue;
-    bars.push({ x: X(at(p)), y: Y(Math.max(p.field - p.standardUncertainty, yMin)) }, { x: X(at(p)), y: Y(p.field + p.standardUncertainty) }, { x: X(at(p)), y: null });
-  }
-  datasets.push({ label: 'readings', data: drawn.map((p) => ({ x: X(at(p)), y: Y(p.field) })), backgroundColor: palette.readings, borderColor: palette.readings, pointRadius: 2.5, order: 0 });
-  legend.push({ label: 'readings on axis', colour: palette.readings, shape: 'point' });
-  if (bars.length > 0) {
-    datasets.push({ label: '±1σ', data: bars, showLine: true, spanGaps: false, borderColor: withAlpha(palette.readings, 0.55), borderWidth: 1, pointRadius: 0, order: 1 });
-    legend.push({ label: '±1 standard uncertainty', colour: withAlpha(palette.readings, 0.55), shape: 'line' });
-  }
-  if (offAxis.length > 0) {
-    const sample = sampleIndices(offAxis.length, drawnReadingsLimit).map((i) => offAxis[i]!);
-    datasets.push({ label: 'off-axis readings', data: sample.map((p) => ({ x: X(at(p)), y: Y(p.field) })), backgroundColor: palette.offAxis, borderColor: palette.offAxis, pointStyle: 'triangle', pointRadius: 3.5, order: 0 });
-    legend.push({ label: 'readings off axis (curves are on axis; see residuals)', colour: palette.offAxis, shape: 'triangle' });
-  }
+  readingDatasets(positive, (p) => X(at(p)), Y, (p) => Math.max(p.field - (p.standardUncertainty ?? 0), yMin), datasets, legend, notes);
   const skipped = readings.length - positive.length;
   if (skipped > 0) notes.push(`${skipped} reading(s) at zero distance or with a field ≤ 0 cannot sit on log axes; the residuals chart shows them.`);
   if (frame.model !== null && frame.offset !== 0) {

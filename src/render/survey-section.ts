@@ -3,6 +3,7 @@ import { formatEstimate } from '../core/report/render-text';
 import type { SurveyReport } from '../core/report/report';
 import { formatNumber, surveyUnits, type SurveyUnitChoice } from '../core/units';
 import { falloffChart } from './falloff-chart';
+import { scanProfileChart } from './scan-profile-chart';
 import { fieldMap } from './field-map';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
@@ -24,6 +25,7 @@ export function renderSurveySection(survey: SurveyReport, lookup: ModelLookup, i
   const best = bestFit(survey);
   const units = surveyUnits(survey);
   const falloff = falloffChart(survey, lookup);
+  const profile = scanProfileChart(survey, lookup);
   const residuals = residualsChart(survey, lookup);
   const map = fieldMap(survey, lookup);
   const warnings = [...survey.warnings, ...survey.fits.flatMap((f) => f.warnings.map((w) => `${f.model}: ${w}`))];
@@ -42,7 +44,8 @@ ${survey.notes.length > 0 ? html`<ul class="rf-import-notes">${survey.notes.map(
 ${survey.spec?.applied === false ? specNotMadeSection(survey.spec) : ''}
 ${survey.verdict ? verdictSection(survey.verdict, survey.spec ?? null, units) : ''}
 ${best ? parameterBlock(best, lookup, 'The coil as fitted', units) : html`<p class="rf-empty">${survey.fits.some((fit) => fit.converged) ? 'No model can be ranked (too few readings); the warnings below say why.' : 'No model converged; the warnings below say why.'}</p>`}
-${falloff ? chartFigure(`${id}-falloff`, 'Falloff: field against distance', falloff) : html`<p class="rf-empty">No falloff chart: no reading at a positive distance with a positive field.</p>`}
+${profile ? chartFigure(`${id}-scan`, 'Falloff along the scan: field against position on the ruler', profile) : ''}
+${falloff ? chartFigure(`${id}-falloff`, profile ? 'Falloff from the coil\'s datum: both sides folded onto one axis' : 'Falloff: field against distance', falloff) : html`<p class="rf-empty">No falloff chart: no reading at a positive distance with a positive field.</p>`}
 ${residuals ? chartFigure(`${id}-residuals`, 'Residuals: what each model leaves over', residuals) : ''}
 ${'svg' in map
     ? html`<figure class="rf-figure rf-map" aria-labelledby="${id}-map-title"><figcaption id="${id}-map-title" class="rf-figure-title">Field around the coil (plane through the axis)</figcaption><div class="rf-canvas-box">${map.svg}</div>${map.notes.map((n) => html`<p class="rf-note">${n}</p>`)}</figure>`

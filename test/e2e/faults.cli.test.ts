@@ -127,3 +127,17 @@ describe('a file that would stall a batch worker', () => {
     expect(report.fleet.unreadable).toEqual([{ source: join(folder, 'b-huge.csv'), code: 'BATCH_FILE_TIMEOUT', reason: expect.stringContaining('took longer than 2 s') }]);
   });
 });
+
+describe('a temporary folder that cannot be written (TMPDIR missing or read-only)', () => {
+  it('batch says so and what to do, exit 2; fit, which needs none, runs; neither hangs', () => {
+    // common practice (POSIX): TMPDIR names the folder for temporary files; /proc refuses new entries
+    const env = { TMPDIR: join('/proc', 'no-such-folder') };
+    const batch = ringfall(env, 'batch', 'sample-data/qh-70-2026-03-05-pair-scan.csv', '--json');
+    expect(batch.status).toBe(2);
+    expect(batch.stderr).toContain('Cannot make a scratch folder in the temporary folder "/proc/no-such-folder" (ENOENT)');
+    expect(batch.stderr).toContain('Set TMPDIR to a folder you can write');
+    const fit = ringfall(env, 'fit', 'sample-data/qh-70-2026-03-05-pair-scan.csv', '--json');
+    expect(fit.status).toBe(0);
+    expect(JSON.parse(fit.stdout).surveys).toHaveLength(1);
+  });
+});

@@ -1,4 +1,5 @@
 import type { SurveyAnalysisSettings } from '../../core/report/analyse-survey';
+import type { DigestParts } from './survey-digest';
 
 /**
  * Everything a batch worker needs to turn a survey file into reports, parsed and checked
@@ -17,9 +18,9 @@ export interface BatchSettings extends SurveyAnalysisSettings {
    */
   readonly keepPoints: boolean;
   /**
-   * Send each survey back as a digest (survey-digest.ts: a spool line, a summary row, the
-   * history's part) instead of the report object, so the main thread of a large batch only
-   * appends text and keeps small rows.
+   * Send each survey back as a digest (survey-digest.ts: a summary row, the history's part,
+   * and the texts named here: a spool line for the pages, the JSON text) instead of the
+   * report object, so the main thread of a large batch only appends text to the spool.
    */
-  readonly digest?: boolean;
+  readonly digest?: DigestParts;
 }

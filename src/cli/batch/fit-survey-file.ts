@@ -47,9 +47,10 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   } else {
     unreadable.push(...unassigned.map((row) => ({ source, reason: row.text, code: row.code })));
   }
-  if (settings.digest === true) {
+  if (settings.digest !== undefined) {
     const specModels = new Set<string>(settings.specs.map((spec) => spec.model));
-    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels)), unreadable };
+    const parts = settings.digest;
+    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels, parts)), unreadable };
   }
   return { index: task.index, source, reports, unreadable };
 }

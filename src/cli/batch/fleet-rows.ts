@@ -41,7 +41,7 @@ export function fleetRows(report: Report): FleetRow[] {
 }
 
 /** True when `a` comes after `b` in history order: a dated survey after an undated one, a later date, or the same date later in the file list. */
-export function later(a: SurveyReport, b: SurveyReport): boolean {
+export function later(a: Pick<SurveyReport, 'date'>, b: Pick<SurveyReport, 'date'>): boolean {
   if (a.date === null) return b.date === null;
   if (b.date === null) return true;
   return a.date >= b.date;

@@ -1,39 +1,44 @@
 import { closeSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
 import type { SurveyReport } from '../../core/report/report';
 
+/** Where a line of a spool is: its first byte and its length in bytes. */
+export interface SpoolPlace {
+  readonly offset: number;
+  readonly length: number;
+}
+
 /**
- * Surveys of a batch kept on disk instead of in memory until `batch --out` writes the
- * page of each coil: each survey is appended to one file as a line of JSON, and only its
- * place in the file is remembered, by page key (the coil id, or a survey of its own when
- * it has none). Numbers JSON cannot hold (NaN, ±Infinity) are kept as tagged strings and
- * restored on reading, so a page is drawn from exactly the report the worker made.
+ * Surveys of a batch kept on disk instead of in memory: each survey (or what the fleet
+ * history, a summary row or the JSON report needs of it) is appended to one file, and
+ * only its place in the file is remembered — by page key for `batch --out` (the coil id,
+ * or a survey of its own when it has none), or by whoever appended it. Numbers JSON cannot
+ * hold (NaN, ±Infinity) are kept as tagged strings and restored on reading (spoolLine), so
+ * a page is drawn from exactly the report the worker made.
  */
 export class SurveySpool {
   private readonly fd: number;
   private size = 0;
-  private readonly places = new Map<string, { offset: number; length: number }[]>();
-  /** Every survey's place, in the order added (the report's order). */
-  private readonly order: { offset: number; length: number }[] = [];
+  private readonly places = new Map<string, SpoolPlace[]>();
 
   constructor(private readonly path: string) {
     this.fd = openSync(path, 'wx+');
   }
 
-  /** Append `survey` under `key` (surveys under one key are read back in the order added). */
-  add(key: string, survey: SurveyReport): void {
-    this.addLine(key, spoolLine(survey));
-  }
-
-  /** Append a survey already made into a line (spoolLine, e.g. by a worker) under `key`. */
+  /** Append a survey already made into a line (spoolLine, e.g. by a worker) under `key` (read back in the order added). */
   addLine(key: string, line: string): void {
-    const bytes = Buffer.from(line, 'utf8');
-    for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
+    const place = this.append(line);
     const list = this.places.get(key) ?? [];
-    const place = { offset: this.size, length: bytes.length };
     list.push(place);
     this.places.set(key, list);
-    this.order.push(place);
+  }
+
+  /** Append text under no key: the caller keeps its place and reads it back with `at` (a spoolLine) or `text`. */
+  append(text: string): SpoolPlace {
+    const bytes = Buffer.from(text, 'utf8');
+    for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
+    const place = { offset: this.size, length: bytes.length };
     this.size += bytes.length;
+    return place;
   }
 
   /** The surveys added under `key`, in the order added. */
@@ -41,20 +46,16 @@ export class SurveySpool {
     return (this.places.get(key) ?? []).map((place) => this.at(place));
   }
 
-  /** Every survey, one at a time in the order added (memory holds one survey, not all). */
-  *all(): Generator<SurveyReport> {
-    for (const place of this.order) yield this.at(place);
+  /** The value of the spool line at `place`, as it was before spoolLine. */
+  at<T = SurveyReport>(place: SpoolPlace): T {
+    return readSpoolLine<T>(this.text(place));
   }
 
-  /** Surveys added. */
-  get count(): number {
-    return this.order.length;
-  }
-
-  /** One buffer for reading surveys back, grown as needed: reading 50,000 surveys allocates no buffer per survey. */
+  /** One buffer for reading back, grown as needed: reading 50,000 surveys allocates no buffer per survey. */
   private readBuffer = Buffer.alloc(1 << 16);
 
-  private at({ offset, length }: { offset: number; length: number }): SurveyReport {
+  /** The text appended at `place`. */
+  text({ offset, length }: SpoolPlace): string {
     if (this.readBuffer.length < length) this.readBuffer = Buffer.alloc(Math.max(length, 2 * this.readBuffer.length));
     const bytes = this.readBuffer;
     for (let done = 0; done < length;) {
@@ -62,7 +63,7 @@ export class SurveySpool {
       if (got === 0) throw new Error(`survey spool ${this.path}: ended at byte ${offset + done}, expected ${offset + length}`);
       done += got;
     }
-    return JSON.parse(bytes.toString('utf8', 0, length), restoreNumbers) as SurveyReport;
+    return bytes.toString('utf8', 0, length);
   }
 
   /** Close and delete the spool file. */
@@ -76,9 +77,14 @@ export class SurveySpool {
   }
 }
 
-/** A survey as one line of a spool: JSON that keeps non-finite numbers, and a newline. */
-export function spoolLine(survey: SurveyReport): string {
-  return `${JSON.stringify(survey, keepNumbers)}\n`;
+/** A survey (or any plain data) as one line of a spool: JSON that keeps non-finite numbers, and a newline. */
+export function spoolLine(value: unknown): string {
+  return `${JSON.stringify(value, keepNumbers)}\n`;
+}
+
+/** The value of a spool line (spoolLine), non-finite numbers and all. */
+export function readSpoolLine<T>(line: string): T {
+  return JSON.parse(line, restoreNumbers) as T;
 }
 
 /**

@@ -14,7 +14,8 @@ import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatchInOrder } from '../batch/run-batch';
 import { FleetCollector } from '../batch/fleet-collector';
-import { SurveySpool } from '../batch/survey-spool';
+import { SurveySpool, type SpoolPlace } from '../batch/survey-spool';
+import { surveyJsonText } from '../batch/survey-json';
 import { JsonReportStream } from '../json-report-stream';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { claimOutFolder } from '../batch/out-folder-lock';
@@ -83,18 +84,23 @@ export function registerBatch(program: Command, context: CommandContext): void {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
         // the files' SHA-256 for the run record, read on this thread while the workers fit
         const hashing = describeFiles(files);
-        // surveys go to a spool on disk as they come (for the JSON report and the pages), and
-        // the collector keeps only what the summary and the fleet history need: memory stays
-        // flat in the number of files
-        const spoolFolder = claim === null && flags.json === true ? mkdtempSync(join(tmpdir(), 'ringfall-batch-')) : null;
-        const spool = claim !== null ? new SurveySpool(claim.scratchPath('surveys.jsonl')) : spoolFolder !== null ? new SurveySpool(join(spoolFolder, 'surveys.jsonl')) : null;
+        // surveys go to a spool on disk as they come (for the JSON report and the pages), as
+        // does what the summary and the fleet history need (the collector keeps their places):
+        // memory stays flat in the number of files
+        const spoolFolder = claim === null ? scratchFolder() : null;
+        const spool = new SurveySpool(claim !== null ? claim.scratchPath('surveys.jsonl') : join(spoolFolder!, 'surveys.jsonl'));
         try {
-          const collector = new FleetCollector(settings);
+          const collector = new FleetCollector(settings, spool);
           let uncoiled = 0;
+          // each survey's JSON text in the spool, in report order
+          const jsonPlaces: SpoolPlace[] = [];
           const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
             const digests = collector.add(outcome);
             reportUnappliedSpecs({ surveys: digests.map((digest) => digest.row) });
-            for (const digest of digests) spool?.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
+            for (const digest of digests) {
+              if (digest.line !== undefined) spool.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
+              if (digest.json !== undefined) jsonPlaces.push(spool.append(digest.json));
+            }
           });
           const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
           const summary = collector.report();
@@ -105,27 +111,27 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
           if (flags.json === true) {
-            // written survey by survey from the spool: the same bytes as one JSON.stringify of the whole report
-            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }));
-            for (const survey of spool!.all()) {
-              stream.survey(survey);
-              // a pipe takes the report as fast as its reader does: wait for it rather than buffer the report
-              if (process.stdout.writableNeedDrain) await once(process.stdout, 'drain');
-            }
-            stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
+            // written survey by survey from the spool, each as the worker made its text with the
+            // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole
+            // report. A pipe takes the report as fast as its reader does: wait for it rather than buffer the report
+            const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
+            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
+            const withFleet = fleet ? { fleet } : {};
+            for (const place of jsonPlaces) await stream.surveyText(surveyJsonText(spool.text(place), withFleet));
+            await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
           }
           if (flags.out !== undefined) {
             let pageUncoiled = 0;
-            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool!.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
+            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
             process.stderr.write(`ringfall batch: wrote ${written.filter((path) => path.endsWith('.html')).length} HTML pages and one copy of Chart.js to ${flags.out} (open ${written[0]})\n`);
           }
           const stoppedBy = signal ?? stop.signal;
           if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
           context.setExitCode(worseStatus(collector.checksStatus, batchStatus(report)));
         } finally {
-          spool?.dispose();
+          spool.dispose();
           if (spoolFolder !== null) rmSync(spoolFolder, { recursive: true, force: true });
         }
       } finally {
@@ -148,8 +154,9 @@ async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
     specs: options.spec === null ? [] : await readSpecFile(options.spec),
     thresholds: options.thresholds,
     keepPoints: flags.out !== undefined,
-    // workers send digests: the main thread appends each survey's text to the spool and keeps a small row
-    digest: true,
+    // workers send digests: the main thread appends each survey's texts to the spool (the
+    // JSON text and the page's line only when they are written) and keeps their places
+    digest: { pages: flags.out !== undefined, json: flags.json === true },
   };
 }
 
@@ -184,4 +191,18 @@ function pageKey(survey: { readonly coil: string | null }, nextUncoiled: () => n
 /** 2 when a file or part could not be used (an input error), combined with the checks as `fit` counts them (checksStatus) (CONTRACT.md). */
 export function batchStatus(report: Report): number {
   return worseStatus(checksStatus(report), (report.fleet?.unreadable.length ?? 0) > 0 ? exitStatus.input : exitStatus.passed);
+}
+
+/**
+ * A scratch folder for the run's spool in the system's temporary folder (TMPDIR), or a
+ * usage error that names it when it cannot be made there (a read-only or missing TMPDIR).
+ */
+function scratchFolder(): string {
+  const base = tmpdir();
+  try {
+    return mkdtempSync(join(base, 'ringfall-batch-'));
+  } catch (cause) {
+    const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
+    throw new RingfallError('OUTPUT_UNWRITABLE', `Cannot make a scratch folder in the temporary folder "${base}" (${code}); batch keeps its surveys there while it runs. Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).`, { value: base, where: 'TMPDIR', cause });
+  }
 }

@@ -61,7 +61,7 @@ function rowToJson(row: RejectedRow): JsonRejectedRow {
 }
 
 /** The model summaries use (reportSummaryFit): { model, basis: "spec" | "coil-history" | "best-physical" }, or null. */
-function summaryModelJson(report: Report, survey: SurveyReport): JsonSurvey['summaryModel'] {
+export function summaryModelJson(report: Report, survey: SurveyReport): JsonSurvey['summaryModel'] {
   const summary = reportSummaryFit(report, survey, getModel);
   return summary === null ? null : { model: summary.fit.model, basis: summary.basis };
 }
