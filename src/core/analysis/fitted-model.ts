@@ -1,4 +1,4 @@
-import { inDistanceForm } from '../fit/strategy/distance-form-fit';
+import { inFormOf } from '../fit/strategy/distance-form-fit';
 import type { FitResult } from '../fit/fit-result';
 import { deltaMethodVariance } from '../stats';
 import type { FieldModel } from '../models/field-model';
@@ -30,8 +30,8 @@ export interface FittedModel {
  * @throws RangeError when the fit does not belong to the model
  */
 export function fittedModel(given: FitResult, model: FieldModel): FittedModel {
-  // a fit in a survey's own frame (scan, transverse scan, 3-D map) is read in distance form unless the model is that frame's
-  const fit = Object.keys(given.params).some((name) => !model.parameters.some((p) => p.name === name)) ? inDistanceForm(given) : given;
+  // a fit in a survey's own frame (scan, transverse scan, 3-D map) is read in the model's form: what the model lacks is folded away
+  const fit = inFormOf(given, model.parameters.map((p) => p.name));
   if (fit.model !== model.id) throw new RangeError(`fittedModel: fit of "${fit.model}" given with model "${model.id}"`);
   const values = new Float64Array(model.parameters.map((p) => fit.params[p.name]?.value ?? Number.NaN));
   const freeIndex = fit.freeParameters.map((name) => model.parameters.findIndex((p) => p.name === name));

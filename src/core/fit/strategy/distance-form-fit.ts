@@ -43,3 +43,16 @@ export function inDistanceForm(fit: FitResult): FitResult {
   const folded = lateralDistanceForm(fit);
   return folded.params['centre'] === undefined ? folded : distanceFormFit(folded);
 }
+
+/**
+ * The fit restated only as far as `names` (a model's parameter names) need: a 3-D map's
+ * pose, a transverse scan's lateral centre and a scan's centre are each folded away when
+ * the model does not have them — so a scan model (with `centre`) can draw a grid's fit
+ * along the axis while a catalog model reads it in distance form.
+ */
+export function inFormOf(fit: FitResult, names: readonly string[]): FitResult {
+  const has = (name: string) => names.includes(name);
+  if (fit.params['tilt'] !== undefined && !has('tilt')) return poseDistanceForm(fit);
+  const folded = fit.params['lateralCentre'] !== undefined && !has('lateralCentre') ? lateralDistanceForm(fit) : fit;
+  return folded.params['centre'] !== undefined && !has('centre') ? distanceFormFit(folded) : folded;
+}
