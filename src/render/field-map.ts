@@ -115,7 +115,9 @@ export function fieldMap(survey: SurveyReport, lookup: ModelLookup): FieldMapFig
   parts.push(colourKey(bottom, top, fieldUnit, survey.thresholds.map((t) => t.level.value)));
 
   const svg = html`<svg xmlns="http://www.w3.org/2000/svg" class="rf-fieldmap" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${`Map of |B| of the ${fit.model} fit around the coil, with threshold contours`}">${trusted(parts.join(''))}</svg>`;
-  notes.push(`Field of the coil alone (fitted background left out), ${fit.model} model, at true positions: distance from the datum (winding plane or near face) to the point; the coil axis is the dashed line; white dots are where the readings were sensed (ruler distance plus the fitted probe offset; radial offsets drawn on one side).`);
+  notes.push(survey.axis === 'map'
+    ? `Field of the coil alone (fitted background left out), ${fit.model} model, in the coil's own frame: distance along the fitted axis from the datum (winding plane or near face) and distance from the axis; the coil axis is the dashed line; white dots are the map's readings placed in that frame (both sides of the winding folded onto one, radial offsets drawn on one side). The figure below shows where the coil sits in the map.`
+    : `Field of the coil alone (fitted background left out), ${fit.model} model, at true positions: distance from the datum (winding plane or near face) to the point; the coil axis is the dashed line; white dots are where the readings were sensed (ruler distance plus the fitted probe offset; radial offsets drawn on one side).`);
   return { svg, model: fit.model, notes };
 }
 

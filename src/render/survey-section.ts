@@ -4,6 +4,7 @@ import type { SurveyReport } from '../core/report/report';
 import { formatNumber, surveyUnits, type SurveyUnitChoice } from '../core/units';
 import { falloffChart } from './falloff-chart';
 import { scanProfileChart } from './scan-profile-chart';
+import { poseView } from './pose-view';
 import { fieldMap } from './field-map';
 import { chartFigure } from './figure';
 import { html, type SafeHtml } from './html';
@@ -28,6 +29,7 @@ export function renderSurveySection(survey: SurveyReport, lookup: ModelLookup, i
   const profile = scanProfileChart(survey, lookup);
   const residuals = residualsChart(survey, lookup);
   const map = fieldMap(survey, lookup);
+  const pose = poseView(survey);
   const warnings = [...survey.warnings, ...survey.fits.flatMap((f) => f.warnings.map((w) => `${f.model}: ${w}`))];
   return html`<section class="rf-survey" id="${id}" aria-labelledby="${id}-heading">
 <header class="rf-survey-head">
@@ -50,6 +52,7 @@ ${residuals ? chartFigure(`${id}-residuals`, 'Residuals: what each model leaves 
 ${'svg' in map
     ? html`<figure class="rf-figure rf-map" aria-labelledby="${id}-map-title"><figcaption id="${id}-map-title" class="rf-figure-title">Field around the coil (plane through the axis)</figcaption><div class="rf-canvas-box">${map.svg}</div>${map.notes.map((n) => html`<p class="rf-note">${n}</p>`)}</figure>`
     : html`<p class="rf-empty">${map.reason}</p>`}
+${pose ? html`<figure class="rf-figure rf-map" aria-labelledby="${id}-pose-title"><figcaption id="${id}-pose-title" class="rf-figure-title">Where the coil sits in the map</figcaption><div class="rf-canvas-box">${pose.svg}</div>${pose.notes.map((n) => html`<p class="rf-note">${n}</p>`)}</figure>` : ''}
 ${comparisonBlock(survey, lookup, units)}
 ${survey.thresholds.length > 0 ? thresholdSection(survey.thresholds, units) : ''}
 ${warnings.length > 0 ? html`<section class="rf-block rf-warnings"><h3>Warnings</h3><ul>${warnings.map((w) => html`<li>${w}</li>`)}</ul></section>` : ''}
