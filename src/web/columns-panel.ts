@@ -10,7 +10,7 @@ type PageRole = ColumnRole | 'position';
 const roles: readonly PageRole[] = ['distance', 'position', 'radial', 'lateral', 'y', 'field', 'magnitude', 'bx', 'by', 'bz', 'uncertainty', 'coil', 'date', 'reading'];
 
 const roleWords: Readonly<Record<PageRole | 'ignore', string>> = {
-  distance: 'distance along the axis', position: 'position on a ruler through the coil (a scan)', radial: 'radial offset', lateral: 'position across the coil (a transverse scan; x of a 3-D map)', y: 'y of a 3-D map', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
+  distance: 'distance along the axis (z of a 3-D map)', position: 'position on a ruler through the coil (a scan)', radial: 'radial offset', lateral: 'position across the coil (a transverse scan; x of a 3-D map)', y: 'y of a 3-D map', field: 'field, signed single axis', magnitude: 'field magnitude |B|',
   bx: 'component Bx', by: 'component By', bz: 'component Bz (axial)', uncertainty: 'reading uncertainty', coil: 'coil id', date: 'date',
   reading: 'detector type (dc/rms/peak)', ignore: 'not used',
 };
