@@ -42,8 +42,30 @@ export function choleskyFactorize(
       gram[a * k + b] = sum;
       gram[b * k + a] = sum;
     }
-    columnNorms[a] = Math.sqrt(gram[a * k + a]!);
   }
+  return choleskyFromNormalEquations(m, k, J, pivot, columnNorms, qtf, gram, gradient, minimumRatio);
+}
+
+/**
+ * The second half of {@link choleskyFactorize}, for callers that formed the normal
+ * equations themselves (a fused pass over the readings): from `gram` = JᵀJ (k×k,
+ * row-major, both triangles; destroyed) and `gradient` = Jᵀf (k), the column norms
+ * √(JᵀJ)ⱼⱼ, the pivoted R into the leading upper triangle of `J` (leading dimension m;
+ * nothing else of J is read or written) and Qᵀf into `qtf`. Same acceptance test and
+ * return value as choleskyFactorize.
+ */
+export function choleskyFromNormalEquations(
+  m: number,
+  k: number,
+  J: Float64Array,
+  pivot: Int32Array,
+  columnNorms: Float64Array,
+  qtf: Float64Array,
+  gram: Float64Array,
+  gradient: Float64Array,
+  minimumRatio = 1e-4,
+): boolean {
+  for (let a = 0; a < k; a++) columnNorms[a] = Math.sqrt(gram[a * k + a]!);
   // The pivot floors ratio²·‖J_col‖² go in qtf until it is computed below.
   for (let a = 0; a < k; a++) qtf[a] = minimumRatio * minimumRatio * columnNorms[a]! * columnNorms[a]!;
   if (!choleskyInPlace(gram, k, pivot, qtf)) return false;

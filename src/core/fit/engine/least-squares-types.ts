@@ -23,6 +23,21 @@ export interface LeastSquaresProblem {
    * uses central differences with a relative step.
    */
   jacobian?(params: Float64Array, out: Float64Array): void;
+  /**
+   * Optional fused pass over the readings for small problems (used with `jacobian`, which
+   * must be given too, when at most 8 parameters are free): at θ, with wᵢ = weight[i]
+   * (1/σᵢ), sⱼ = columnScale[j] and the weighted residuals rᵢ = residuals[i], the entries
+   * Jᵢⱼ = ((∂fᵢ/∂θⱼ)·wᵢ)·sⱼ accumulated in reading order i = 0, 1, … into
+   * gram[u·p + v] = Σᵢ Jᵢᵤ·Jᵢᵥ (v ≤ u; the upper triangle is not read) and
+   * gradient[u] = Σᵢ Jᵢᵤ·rᵢ, for all p parameters (the engine reads the free ones).
+   * Written with the same products in the same order as `jacobian` followed by the
+   * engine's own accumulation, it gives the same fit to the last bit, without the m×p
+   * Jacobian ever being stored.
+   */
+  normalEquations?(
+    params: Float64Array, weight: Float64Array, columnScale: Float64Array, residuals: Float64Array,
+    gram: Float64Array, gradient: Float64Array,
+  ): void;
 }
 
 /** Options of {@link fitLeastSquares}. Tolerances are relative (MINPACK ftol, xtol, gtol). */

@@ -37,6 +37,10 @@ export interface LeastSquaresWorkspace {
   readonly work: Float64Array;
   /** k×k scratch for the normal equations. */
   readonly gram: Float64Array;
+  /** The fused pass's p×p normal matrix, its gradient (p) and column scales (p). */
+  readonly fullGram: Float64Array;
+  readonly fullGradient: Float64Array;
+  readonly columnScale: Float64Array;
   readonly derivative: Float64Array;
   readonly pivot: Int32Array;
   readonly damping: DampingScratch;
@@ -71,6 +75,9 @@ export function createLeastSquaresWorkspace(m: number, p: number): LeastSquaresW
     columnNorms: vp(),
     work: vp(),
     gram: new Float64Array(p * p),
+    fullGram: new Float64Array(p * p),
+    fullGradient: vp(),
+    columnScale: vp(),
     derivative: vp(),
     pivot: new Int32Array(p),
     damping: { sdiag: vp(), work1: vp(), work2: vp(), work3: vp() },

@@ -1,10 +1,11 @@
-import { choleskyFactorize } from '../../linalg/cholesky';
+import { choleskyFactorize, choleskyFromNormalEquations } from '../../linalg/cholesky';
 import { dampingParameter } from './damping-parameter';
 import { finishLeastSquares } from './finish-least-squares';
 import { internalDerivatives, paramsFromInternal } from './free-parameters';
 import { evaluateCost, prepareLeastSquares } from './prepare-least-squares';
 import { applyQTransposeAndFinishR, qrFactorize } from '../../linalg/householder-qr';
 import { weightedJacobian } from './weighted-jacobian';
+import { FUSED_MAX_FREE, fusedNormalEquations } from './normal-equations';
 import type { AbortFlag, LeastSquaresOptions, LeastSquaresProblem, LeastSquaresSolution, StopCode } from './least-squares-types';
 import { releaseWorkspace, takeWorkspace, type LeastSquaresWorkspace } from './least-squares-workspace';
 
@@ -67,23 +68,30 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
   let trustRadius = 0;
   let xnorm = 0;
   let first = true;
+  const fusedPass = problem.jacobian !== undefined && k <= FUSED_MAX_FREE;
   while (stop === null) {
     if (aborted(settings.signal)) { stop = 'aborted'; break; }
     if (iterations >= settings.maxIterations) { stop = 'max-iterations'; break; }
-    evaluations += weightedJacobian(problem, map, ws, settings.differenceStep, J);
-    if (map.bounded) {
-      // Chain rule into the internal variables: ∂f/∂u = ∂f/∂θ · dθ/du.
-      internalDerivatives(map, internal, ws.derivative);
-      for (let j = 0; j < k; j++) {
-        const d = ws.derivative[j]!;
-        for (let i = j * m, end = i + m; i < end; i++) J[i]! *= d;
+    if (map.bounded) internalDerivatives(map, internal, ws.derivative);
+    // Normal equations when they are well conditioned (cheap for small k), else Householder
+    // QR. With an analytic Jacobian and few free parameters they are formed in one pass
+    // (normal-equations.ts) and J itself is built only for the QR fallback.
+    const fused = fusedPass && (fusedNormalEquations(problem, map, ws), choleskyFromNormalEquations(m, k, J, pivot, ws.columnNorms, qtf, ws.gram, work));
+    if (!fused) {
+      evaluations += weightedJacobian(problem, map, ws, settings.differenceStep, J);
+      if (map.bounded) {
+        // Chain rule into the internal variables: ∂f/∂u = ∂f/∂θ · dθ/du.
+        for (let j = 0; j < k; j++) {
+          const d = ws.derivative[j]!;
+          for (let i = j * m, end = i + m; i < end; i++) J[i]! *= d;
+        }
       }
-    }
-    // Normal equations when they are well conditioned (cheap for small k), else Householder QR.
-    if (!choleskyFactorize(m, k, J, ws.residuals, pivot, ws.columnNorms, qtf, ws.gram, work)) {
-      qrFactorize(m, k, J, pivot, ws.rdiag, ws.columnNorms, work);
-      ws.trialResiduals.set(ws.residuals);
-      applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
+      // After a fused pass the same normal equations have already failed the test.
+      if (fusedPass || !choleskyFactorize(m, k, J, ws.residuals, pivot, ws.columnNorms, qtf, ws.gram, work)) {
+        qrFactorize(m, k, J, pivot, ws.rdiag, ws.columnNorms, work);
+        ws.trialResiduals.set(ws.residuals);
+        applyQTransposeAndFinishR(m, k, J, ws.rdiag, ws.trialResiduals, qtf);
+      }
     }
     if (!allFinite(ws.columnNorms, k)) { stop = 'non-finite-jacobian'; break; }
     if (first) {
