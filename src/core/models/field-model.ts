@@ -89,6 +89,18 @@ export interface FieldModel {
    * then uses central differences.
    */
   jacobian?(params: Float64Array, points: SurveyPoints, out: Float64Array): void;
+  /**
+   * Optional fused form of `jacobian` for the fit's normal equations (the engine's
+   * LeastSquaresProblem.normalEquations): with Jᵢⱼ = ((∂prediction_i/∂params_j)·weight[i])·
+   * columnScale[j], accumulate in point order gram[u·k + v] += Jᵢᵤ·Jᵢᵥ (v ≤ u, k =
+   * parameters.length) and gradient[u] += Jᵢᵤ·residuals[i], both arrays zeroed by the
+   * caller. The derivatives must be those of `jacobian` to the last bit, so that a fit
+   * is the same with or without it.
+   */
+  normalEquations?(
+    params: Float64Array, points: SurveyPoints, weight: Float64Array, columnScale: Float64Array, residuals: Float64Array,
+    gram: Float64Array, gradient: Float64Array,
+  ): void;
   /** Data-driven starting values (SI, order of `parameters`), DOMAIN §1.1 heuristics. */
   initialGuess(points: SurveyPoints): Float64Array;
   /**

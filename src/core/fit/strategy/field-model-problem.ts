@@ -17,7 +17,14 @@ export function fieldModelProblem(model: FieldModel, points: SurveyPoints): Leas
   };
   const jacobian = model.jacobian;
   if (jacobian === undefined) return problem;
-  return { ...problem, jacobian: (params, out) => jacobian.call(model, params, points, out) };
+  const withJacobian: LeastSquaresProblem = { ...problem, jacobian: (params, out) => jacobian.call(model, params, points, out) };
+  const normalEquations = model.normalEquations;
+  if (normalEquations === undefined) return withJacobian;
+  return {
+    ...withJacobian,
+    normalEquations: (params, weight, scale, residuals, gram, gradient) =>
+      normalEquations.call(model, params, points, weight, scale, residuals, gram, gradient),
+  };
 }
 
 /**
