@@ -91,6 +91,21 @@ describe('fitLeastSquares() on the 27 NIST StRD nonlinear problems × 2 starts',
     ]);
   });
 
+  it('BoxBOD start 1 with central differences stops on a plateau and says it did not converge', () => {
+    const data = loadStrd('BoxBOD');
+    const fit = fitLeastSquares(strdLeastSquares(data, false), { initial: data.starts[0], ...TIGHT });
+    // NIST StRD certified RSS of BoxBOD: 1.1680088766E+03; the plateau's RSS is far above it
+    expect(fit.rss).toBeGreaterThan(5 * data.certifiedRss);
+    // common practice (Moré 1978 §7): a zero gradient is a minimum only where the Jacobian has no zero column
+    expect(fit.converged).toBe(false);
+    expect(fit.stopCode).toBe('zero-gradient-plateau');
+    expect(fit.stopReason).toContain('not converged');
+    // the same start with analytic derivatives reaches the certified minimum
+    const analytic = fitLeastSquares(strdLeastSquares(data, true), { initial: data.starts[0], ...TIGHT });
+    expect(analytic.converged).toBe(true);
+    expectClose(analytic.rss, data.certifiedRss, { rel: 1e-6 });
+  });
+
   it('the analytic StRD gradients agree with central differences at both starts', () => {
     for (const name of STRD_NAMES) {
       const data = loadStrd(name);

@@ -7,6 +7,7 @@ import { weightedJacobian } from './weighted-jacobian';
 function isConverged(code: StopCode): boolean {
   return (
     code !== 'max-evaluations' &&
+    code !== 'zero-gradient-plateau' &&
     code !== 'max-iterations' &&
     code !== 'aborted' &&
     code !== 'non-finite-start' &&
@@ -91,6 +92,8 @@ function describeStop(code: StopCode, setup: PreparedLeastSquares): string {
       return `converged: relative reduction of χ² below ${s.costTolerance} and relative step below ${s.stepTolerance}`;
     case 'gradient-tolerance':
       return `converged: residuals orthogonal to every Jacobian column within ${s.gradientTolerance}`;
+    case 'zero-gradient-plateau':
+      return 'not converged: the gradient vanished on a plateau where the model no longer depends on a parameter, not at a minimum';
     case 'exact-fit':
       return 'converged: the residuals are exactly zero';
     case 'machine-precision':

@@ -77,6 +77,7 @@ export type StopCode =
   | 'step-tolerance'
   | 'cost-and-step-tolerance'
   | 'gradient-tolerance'
+  | 'zero-gradient-plateau'
   | 'exact-fit'
   | 'machine-precision'
   | 'no-free-parameters'

@@ -110,7 +110,10 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
         gnorm = Math.max(gnorm, Math.abs(sum / columnNorm));
       }
     }
-    if (gnorm <= settings.gradientTolerance) { stop = fnorm === 0 ? 'exact-fit' : 'gradient-tolerance'; break; }
+    if (gnorm <= settings.gradientTolerance) {
+      stop = fnorm === 0 ? 'exact-fit' : onPlateau(ws, k, map.bounded) ? 'zero-gradient-plateau' : 'gradient-tolerance';
+      break;
+    }
     for (let j = 0; j < k; j++) scale[j] = Math.max(scale[j]!, ws.columnNorms[j]!);
 
     let ratio = 0;
@@ -180,6 +183,19 @@ function scaledNorm(d: Float64Array | null, v: Float64Array, k: number): number 
     sum += x * x;
   }
   return Math.sqrt(sum);
+}
+
+/**
+ * A zero gradient proves nothing when a Jacobian column is exactly zero: the model has
+ * stopped depending on that parameter (an exponential underflowed, a source moved out of
+ * reach), so the search stands on a plateau, not at a minimum. A column zeroed by the bound
+ * transform (dθ/du = 0 on a bound) does not count: that is a parameter at its bound.
+ */
+function onPlateau(ws: LeastSquaresWorkspace, k: number, bounded: boolean): boolean {
+  for (let j = 0; j < k; j++) {
+    if (ws.columnNorms[j] === 0 && !(bounded && ws.derivative[j] === 0)) return true;
+  }
+  return false;
 }
 
 function aborted(signal: AbortFlag | undefined): boolean {
