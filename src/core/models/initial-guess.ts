@@ -26,6 +26,10 @@ export function surveyReach(points: SurveyPoints): number {
 
 /** Candidate sizes of {@link scanSize}: log-spaced over 1 % to 10× the survey's reach. */
 const SIZE_CANDIDATES = 48;
+/** Stride of {@link scanSize}'s coarse pass over the candidates. */
+const SIZE_STRIDE = 3;
+const gridCosts = new Float64Array(SIZE_CANDIDATES);
+const gridAmplitudes = new Float64Array(SIZE_CANDIDATES);
 /** Most evaluations of {@link scanSize}'s refinement (Brent's method to 1e-6 in ln s). */
 const SIZE_REFINE = 24;
 
@@ -91,7 +95,32 @@ export function scanSize(
     }
   };
   const ratio = 1000 ** (1 / (SIZE_CANDIDATES - 1));
-  for (let i = 0; i < SIZE_CANDIDATES; i++) consider(reach * 0.01 * ratio ** i);
+  // Coarse to fine over the same grid: every SIZE_STRIDE-th candidate (and the last), then
+  // the candidates around the coarse winner. Where the misfit has one valley per grid
+  // stride (the coil models' does), the winner is the whole grid's, in a third of the work.
+  const costs = gridCosts;
+  const amplitudes = gridAmplitudes;
+  costs.fill(NaN);
+  let coarseBest = -1;
+  for (let i = 0; i < SIZE_CANDIDATES; i += i + SIZE_STRIDE < SIZE_CANDIDATES || i === SIZE_CANDIDATES - 1 ? SIZE_STRIDE : SIZE_CANDIDATES - 1 - i) {
+    costs[i] = misfit(reach * 0.01 * ratio ** i);
+    amplitudes[i] = amplitude;
+    if (coarseBest < 0 || costs[i]! < costs[coarseBest]!) coarseBest = i;
+  }
+  for (let i = Math.max(0, coarseBest - SIZE_STRIDE + 1); i < Math.min(SIZE_CANDIDATES, coarseBest + SIZE_STRIDE); i++) {
+    if (!Number.isNaN(costs[i]!)) continue;
+    costs[i] = misfit(reach * 0.01 * ratio ** i);
+    amplitudes[i] = amplitude;
+  }
+  // The same choice, in the same order, as a pass over every candidate would make.
+  for (let i = 0; i < SIZE_CANDIDATES; i++) {
+    const cost = costs[i]!;
+    if (cost < bestCost) {
+      bestCost = cost;
+      bestSize = reach * 0.01 * ratio ** i;
+      bestAmplitude = amplitudes[i]!;
+    }
+  }
   if (hint !== undefined && hint > 0 && Number.isFinite(hint)) consider(hint);
   // Brent's method on ln(size) within one grid step either side, from the best candidate
   const refined = Math.exp(brentMinimum((x) => misfit(Math.exp(x)), Math.log(bestSize / ratio), Math.log(bestSize * ratio), 1e-6, SIZE_REFINE, Math.log(bestSize), bestCost));
