@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { dipoleField } from '../physics/dipole-field';
 import { loopField } from '../physics/loop-field';
 import { loopFieldGradient } from '../physics/loop-field-gradient';
 import { fieldReading, fieldReadingDerivative } from './model-reading';
@@ -39,6 +40,21 @@ describe('array kernels give the per-point formulas to the last bit', () => {
         }
       });
     }
+  }
+
+  for (const [where, radial] of layouts) {
+    it(`dipole, magnitude readings ${where}: evaluate equals dipoleField per point`, () => {
+      // independent method: the physics function called point by point, as the model did before its kernel
+      const params = Float64Array.of(0.8, 0.002, -3e-6);
+      const points = survey(distance.slice(1), radial.slice(1), 'magnitude');
+      const value = new Float64Array(points.n);
+      getModel('dipole').evaluate(params, points, value);
+      const b = new Float64Array(2);
+      for (let i = 0; i < points.n; i++) {
+        dipoleField(params[0]!, points.distance[i]! + params[1]!, points.radial[i]!, b);
+        expect(value[i]).toBe(fieldReading('magnitude', b[0]!, b[1]!) + params[2]!);
+      }
+    });
   }
 
   it('every normalEquations equals the accumulation of its own jacobian, bit for bit', () => {

@@ -3,7 +3,7 @@ import { vacuumPermeability } from '../physics/vacuum-permeability';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { medianOf } from '../numeric/order-statistics';
 import { radialDistance, readingSign } from './initial-guess';
-import { backgroundParameter, evaluateFromComponents, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
+import { backgroundParameter, fieldReading, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
 const field = new Float64Array(4);
 
@@ -35,7 +35,14 @@ export const dipoleModel: FieldModel = {
   ],
   components: dipoleComponents,
   evaluate(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
-    evaluateFromComponents(dipoleComponents, 2, params, points, out);
+    // An array kernel: dipoleField called directly (no components callback), same bits.
+    const moment = params[0]!;
+    const offset = params[1]!;
+    const background = params[2]!;
+    for (let i = 0; i < points.n; i++) {
+      dipoleField(moment, points.distance[i]! + offset, points.radial[i]!, field);
+      out[i] = fieldReading(points.kind, field[0]!, field[1]!) + background;
+    }
   },
   jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
     const moment = params[0]!;
