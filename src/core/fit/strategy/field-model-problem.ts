@@ -10,18 +10,19 @@ import type { LeastSquaresProblem } from '../engine/least-squares-types';
  * fitLeastSquares(fieldModelProblem(model, points), { initial: model.initialGuess(points) });
  */
 export function fieldModelProblem(model: FieldModel, points: SurveyPoints): LeastSquaresProblem {
-  const problem: LeastSquaresProblem = {
+  const predict = (params: Float64Array, out: Float64Array): void => model.evaluate(params, points, out);
+  const jacobian = model.jacobian;
+  if (jacobian === undefined) return { observed: points.field, parameterCount: model.parameters.length, predict };
+  const modelJacobian = (params: Float64Array, out: Float64Array): void => jacobian.call(model, params, points, out);
+  const normalEquations = model.normalEquations;
+  if (normalEquations === undefined) {
+    return { observed: points.field, parameterCount: model.parameters.length, predict, jacobian: modelJacobian };
+  }
+  return {
     observed: points.field,
     parameterCount: model.parameters.length,
-    predict: (params, out) => model.evaluate(params, points, out),
-  };
-  const jacobian = model.jacobian;
-  if (jacobian === undefined) return problem;
-  const withJacobian: LeastSquaresProblem = { ...problem, jacobian: (params, out) => jacobian.call(model, params, points, out) };
-  const normalEquations = model.normalEquations;
-  if (normalEquations === undefined) return withJacobian;
-  return {
-    ...withJacobian,
+    predict,
+    jacobian: modelJacobian,
     normalEquations: (params, weight, scale, residuals, gram, gradient) =>
       normalEquations.call(model, params, points, weight, scale, residuals, gram, gradient),
   };
