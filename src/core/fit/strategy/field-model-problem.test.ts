@@ -103,3 +103,30 @@ describe('fieldModelProblem(model, points) and distanceSlope()', () => {
     expectClose(weighted.effectiveUncertainty[5]!, Math.hypot(0.01 * clean[5]!, 5.33146e-5), { rel: 1e-5 });
   });
 });
+
+describe('fieldModelProblem() with a model that has normalEquations', () => {
+  it('fits the catalog loop to the same bits with or without the fused pass (bounds and a fixed parameter)', () => {
+    // independent method: the same engine fed the model's row-major jacobian only
+    const loop = getModel('loop');
+    const distance = Float64Array.from({ length: 20 }, (_, i) => 0.004 + 0.012 * i);
+    for (const radial of [0, 0.01]) {
+      const points: SurveyPoints = { n: 20, distance, radial: new Float64Array(20).fill(radial), field: new Float64Array(20), kind: radial === 0 ? 'axial' : 'magnitude' };
+      loop.evaluate(Float64Array.of(420, 0.045, 0.003, 0), points, points.field as Float64Array);
+      for (let i = 0; i < 20; i++) (points.field as Float64Array)[i]! *= 1 + 0.01 * Math.sin(7 * i);
+      const fused = fieldModelProblem(loop, points);
+      expect(fused.normalEquations).toBeDefined();
+      const { observed, parameterCount, predict, jacobian } = fused;
+      const rows = { observed, parameterCount, predict, jacobian: jacobian! };
+      const options = {
+        initial: [300, 0.06, 0, 0], fixed: [false, false, false, true], lower: loop.parameters.map((p) => p.lower), upper: loop.parameters.map((p) => p.upper),
+        standardUncertainty: Array.from(points.field, (b) => 0.01 * Math.abs(b) + 1e-7),
+      };
+      const a = fitLeastSquares(fused, options);
+      const b = fitLeastSquares(rows, options);
+      expect(a.converged).toBe(true);
+      expect(Array.from(a.params)).toEqual(Array.from(b.params));
+      expect([a.iterations, a.evaluations, a.chiSquare]).toEqual([b.iterations, b.evaluations, b.chiSquare]);
+      expect(a.jacobian).toEqual(b.jacobian);
+    }
+  });
+});
