@@ -11,9 +11,15 @@ import type { SurveyPoints } from './field-model';
  * @example halfValueRadius(points measured from 0 to 0.2 m of a 0.05 m loop) // ≈ 0.05
  */
 export function halfValueRadius(points: SurveyPoints): number | undefined {
-  const order = Array.from({ length: points.n }, (_, i) => i)
-    .filter((i) => Number.isFinite(points.distance[i]!) && Number.isFinite(points.field[i]!))
-    .sort((i, j) => points.distance[i]! - points.distance[j]!);
+  const order: number[] = [];
+  let sorted = true;
+  for (let i = 0; i < points.n; i++) {
+    if (!Number.isFinite(points.distance[i]!) || !Number.isFinite(points.field[i]!)) continue;
+    if (order.length > 0 && points.distance[i]! < points.distance[order[order.length - 1]!]!) sorted = false;
+    order.push(i);
+  }
+  // A survey usually comes in order of distance; the sort is stable, so it would change nothing then.
+  if (!sorted) order.sort((i, j) => points.distance[i]! - points.distance[j]!);
   if (order.length < 2) return undefined;
   const nearest = order[0]!;
   const z0 = points.distance[nearest]!;
