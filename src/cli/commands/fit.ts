@@ -1,5 +1,5 @@
-import { statSync } from 'node:fs';
-import { dirname, resolve } from 'node:path';
+import { rmSync, statSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { Spec } from '../../core/analysis/spec/spec';
 import { isRingfallError, RingfallError } from '../../core/errors';
@@ -22,6 +22,9 @@ import { stoppedStatus, watchStopSignals, yieldToEvents, type StopSignals } from
 import { writeFileAtomic } from '../write-file-atomic';
 import type { CommandContext } from './command-context';
 import { checksStatus } from '../checks-status';
+import { exitStatus, worseStatus } from '../exit-codes';
+import { JsonReportStream, stdoutBackpressure } from '../json-report-stream';
+import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
 import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
 import { fitRunSettings, type RunInput } from '../../core/report/run-record';
 
@@ -58,8 +61,11 @@ export function registerFit(program: Command, context: CommandContext): void {
     if (unusable.length > 0) context.setExitCode(2);
     // Ctrl-C or SIGTERM between files: the files done are reported, marked partial
     const stop = watchStopSignals();
+    // --json alone is written survey by survey from a spool on disk, so memory stays flat in the number of files
+    const spool = options.json && options.html === null && options.csv === null ? openScratchSpool() : null;
     try {
-      const { reports, problems, rejected, inputs, filesDone } = await fitFilesUntilStopped(paths, options, specs, stop);
+      const streamed = spool === null ? null : new StreamedSurveys(spool.spool);
+      const { reports, problems, rejected, inputs, filesDone } = await fitFilesUntilStopped(paths, options, specs, stop, streamed?.add);
       for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
       if (problems.length > 0) context.setExitCode(2);
       const signal = stop.signal;
@@ -67,8 +73,15 @@ export function registerFit(program: Command, context: CommandContext): void {
         process.stderr.write(`ringfall: ${signal}: stopped after ${filesDone} of ${paths.length} files; the report covers those only.\n`);
         context.setExitCode(stoppedStatus(signal));
       }
-      if (reports.length === 0) return;
+      if ((streamed?.count ?? reports.length) === 0) return;
       const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } }));
+      const partial = signal === null ? {} : { partial: { filesDone, filesTotal: paths.length, signal } };
+      if (streamed !== null) {
+        await streamed.write({ rejected, run, ...(skipped.length > 0 ? { skipped } : {}) }, partial);
+        reportUnappliedSpecs({ surveys: streamed.unapplied });
+        context.setExitCode(streamed.status);
+        return;
+      }
       const report: Report = { surveys: reports, rejected, run, ...(skipped.length > 0 ? { skipped } : {}) };
       writeSideFiles(report, options);
       if (options.json) {
@@ -82,8 +95,61 @@ export function registerFit(program: Command, context: CommandContext): void {
       context.setExitCode(checksStatus(report));
     } finally {
       stop.dispose();
+      spool?.dispose();
     }
   });
+}
+
+/**
+ * A spool for `fit --json` in a scratch folder of the system's temporary folder, or null
+ * when none can be made there (a read-only TMPDIR): the report is then built whole in
+ * memory as before, so a run never fails for want of scratch space.
+ */
+function openScratchSpool(): { spool: SurveySpool; dispose(): void } | null {
+  let folder: string;
+  try {
+    folder = scratchFolder('fit --json', 'Set TMPDIR to a folder you can write.');
+  } catch {
+    return null;
+  }
+  const spool = new SurveySpool(join(folder, 'surveys.jsonl'));
+  return { spool, dispose: () => { spool.dispose(); rmSync(folder, { recursive: true, force: true }); } };
+}
+
+/**
+ * The surveys of `fit --json` as they are fitted: each survey's JSON text (as
+ * toJsonReport maps it: with no fleet section a survey's JSON needs nothing of the
+ * others) appended to the spool, and kept in memory only what the exit status and the
+ * stderr lines about unapplied specs need. `write` then prints the report with
+ * JsonReportStream: the same bytes as one JSON.stringify of the whole report.
+ */
+class StreamedSurveys {
+  private readonly places: SpoolPlace[] = [];
+  /** The exit status from the checks so far (checksStatus of the surveys seen). */
+  status: number = exitStatus.passed;
+  /** Surveys no given spec applies to, with what their stderr line needs. */
+  readonly unapplied: SurveyReport[] = [];
+
+  constructor(private readonly spool: SurveySpool) {}
+
+  get count(): number {
+    return this.places.length;
+  }
+
+  readonly add = (reports: readonly SurveyReport[]): void => {
+    for (const survey of reports) {
+      this.places.push(this.spool.append(JSON.stringify(toJsonReport({ surveys: [survey] }).surveys[0], null, 2)));
+      this.status = worseStatus(this.status, checksStatus({ surveys: [survey] }));
+      if (survey.spec?.applied === false) this.unapplied.push({ ...survey, fits: [] });
+    }
+  };
+
+  /** Print the report: the keys of `rest` around the surveys (toJsonReport's order), then `extra` (the partial marker). */
+  async write(rest: Omit<Report, 'surveys'>, extra: Record<string, unknown>): Promise<void> {
+    const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...rest }), stdoutBackpressure);
+    for (const place of this.places) await stream.surveyText(this.spool.text(place));
+    await stream.finish({}, extra);
+  }
 }
 
 /** One line on stderr per survey that no given spec applies to (the report says it too; exit 2). */
@@ -154,9 +220,11 @@ export function fitFiles(
 /**
  * fitFiles, one file at a time with a pause for events between files, so a stop signal
  * (SIGINT, SIGTERM) ends the run after the file in hand; `filesDone` says how far it came.
+ * With `onReports`, each file's reports go there as they come and are not kept.
  */
 export async function fitFilesUntilStopped(
   paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'signal'>,
+  onReports?: (reports: readonly SurveyReport[]) => void,
 ): Promise<ReturnType<typeof fitFiles> & { filesDone: number }> {
   const all: ReturnType<typeof fitFiles> = { reports: [], problems: [], rejected: [], inputs: [] };
   let filesDone = 0;
@@ -164,7 +232,8 @@ export async function fitFilesUntilStopped(
     await yieldToEvents();
     if (stop.signal !== null) break;
     const one = fitFiles([path], options, specs);
-    all.reports.push(...one.reports);
+    if (onReports === undefined) all.reports.push(...one.reports);
+    else onReports(one.reports);
     all.problems.push(...one.problems);
     all.rejected.push(...one.rejected);
     all.inputs.push(...one.inputs);
