@@ -1,23 +1,22 @@
 import { rmSync, statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { Spec } from '../../core/analysis/spec/spec';
 import { isRingfallError, RingfallError } from '../../core/errors';
-import { analyseSurvey, unfittedSurveyReport, type SurveyAnalysisSettings } from '../../core/report/analyse-survey';
+import type { SurveyAnalysisSettings } from '../../core/report/analyse-survey';
 import { renderTextReport } from '../../core/report/render-text';
 import type { Report, SurveyReport } from '../../core/report/report';
-import { summarizeSetAsideRows, type SetAsideRow } from '../../core/report/set-aside-rows';
+import type { SetAsideRow } from '../../core/report/set-aside-rows';
 import { printable } from '../../core/text/printable';
 import { reportCsv } from '../../core/report/report-csv';
 import { toJsonReport } from '../../core/report/to-json-report';
-import { importSurveys } from '../../io';
 import { readSpecFile } from '../../io/spec';
 import { renderReportDocument } from '../../render';
 import { chartLibrarySource } from '../chart-library';
 import { addFitOptions, readFitFlags, type FitCommandOptions, type FitFlags } from '../fit-options';
 import { skippedLines, surveyFilesFrom, type UnusablePath } from '../find-survey-files';
 import { skipListName, type SkippedFiles } from '../skip-list';
-import { readSurveyBytes } from '../read-survey-bytes';
 import { stoppedStatus, watchStopSignals, yieldToEvents, type StopSignals } from '../stop-signals';
 import { writeFileAtomic } from '../write-file-atomic';
 import type { CommandContext } from './command-context';
@@ -25,7 +24,10 @@ import { checksStatus } from '../checks-status';
 import { exitStatus, worseStatus } from '../exit-codes';
 import { JsonReportStream, stdoutBackpressure } from '../json-report-stream';
 import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
-import { cliRunRecord, describeBytes, describeSpecFile, runTime, unreadableInput } from '../run-record';
+import { cliRunRecord, describeSpecFile, runTime } from '../run-record';
+import { fitFile, surveyTexts, type FitFileTexts } from '../fit-file';
+import type { BatchSettings } from '../batch/batch-settings';
+import { runBatchInOrder } from '../batch/run-batch';
 import { fitRunSettings, type RunInput } from '../../core/report/run-record';
 
 /**
@@ -65,7 +67,9 @@ export function registerFit(program: Command, context: CommandContext): void {
     const spool = options.json && options.html === null && options.csv === null ? openScratchSpool() : null;
     try {
       const streamed = spool === null ? null : new StreamedSurveys(spool.spool);
-      const { reports, problems, rejected, inputs, filesDone } = await fitFilesUntilStopped(paths, options, specs, stop, streamed?.add);
+      const { reports, problems, rejected, inputs, filesDone } = streamed !== null && fitWorkers(paths.length) > 1
+        ? await fitFilesOnWorkers(paths, options, specs, stop, streamed)
+        : await fitFilesUntilStopped(paths, options, specs, stop, streamed?.add);
       for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
       if (problems.length > 0) context.setExitCode(2);
       const signal = stop.signal;
@@ -117,18 +121,18 @@ function openScratchSpool(): { spool: SurveySpool; dispose(): void } | null {
 }
 
 /**
- * The surveys of `fit --json` as they are fitted: each survey's JSON text (as
- * toJsonReport maps it: with no fleet section a survey's JSON needs nothing of the
- * others) appended to the spool, and kept in memory only what the exit status and the
- * stderr lines about unapplied specs need. `write` then prints the report with
- * JsonReportStream: the same bytes as one JSON.stringify of the whole report.
+ * The surveys of `fit --json` as they are fitted: each survey's JSON text (surveyTexts:
+ * with no fleet section a survey's JSON needs nothing of the others) appended to the
+ * spool, and kept in memory only what the exit status and the stderr lines about
+ * unapplied specs need. `write` then prints the report with JsonReportStream: the same
+ * bytes as one JSON.stringify of the whole report.
  */
 class StreamedSurveys {
   private readonly places: SpoolPlace[] = [];
   /** The exit status from the checks so far (checksStatus of the surveys seen). */
   status: number = exitStatus.passed;
-  /** Surveys no given spec applies to, with what their stderr line needs. */
-  readonly unapplied: SurveyReport[] = [];
+  /** Surveys no given spec applies to, with what their stderr line reads. */
+  readonly unapplied: Pick<SurveyReport, 'source' | 'coil' | 'spec'>[] = [];
 
   constructor(private readonly spool: SurveySpool) {}
 
@@ -136,13 +140,14 @@ class StreamedSurveys {
     return this.places.length;
   }
 
-  readonly add = (reports: readonly SurveyReport[]): void => {
-    for (const survey of reports) {
-      this.places.push(this.spool.append(JSON.stringify(toJsonReport({ surveys: [survey] }).surveys[0], null, 2)));
-      this.status = worseStatus(this.status, checksStatus({ surveys: [survey] }));
-      if (survey.spec?.applied === false) this.unapplied.push({ ...survey, fits: [] });
-    }
-  };
+  readonly add = (reports: readonly SurveyReport[]): void => this.addTexts(surveyTexts(reports));
+
+  /** Surveys already made into text (a worker's FitFileTexts). */
+  addTexts(texts: Pick<FitFileTexts, 'json' | 'status' | 'unapplied'>): void {
+    for (const text of texts.json) this.places.push(this.spool.append(text));
+    this.status = worseStatus(this.status, texts.status);
+    this.unapplied.push(...texts.unapplied);
+  }
 
   /** Print the report: the keys of `rest` around the surveys (toJsonReport's order), then `extra` (the partial marker). */
   async write(rest: Omit<Report, 'surveys'>, extra: Record<string, unknown>): Promise<void> {
@@ -152,8 +157,48 @@ class StreamedSurveys {
   }
 }
 
+/** Files from which `fit --json` fits on worker threads: below it, starting the workers (about 0.4 s each from the sources) costs more than it saves. */
+export const fitWorkersFrom = 200;
+
+/**
+ * Worker threads for `fit --json` on `files` files: every core (as batch) from
+ * fitWorkersFrom files on, else 1 (fit on the main thread). --html, --csv and the text
+ * report need the whole report in hand and are always made on the main thread.
+ */
+export function fitWorkers(files: number): number {
+  return files >= fitWorkersFrom ? availableParallelism() : 1;
+}
+
+/**
+ * fitFilesUntilStopped on batch's worker pool (runBatchInOrder): each worker reads, hashes,
+ * imports and fits its files and returns them as `fit --json` text (fitFileTexts), handed
+ * over in file order, so the report is the same byte for byte as on one thread. A stop
+ * signal ends the workers; the files finished are reported. A file that breaks a worker
+ * (a bug, not a RingfallError) ends the run as an internal error, as it would on one thread.
+ */
+async function fitFilesOnWorkers(
+  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: StopSignals, streamed: StreamedSurveys,
+): Promise<ReturnType<typeof fitFiles> & { filesDone: number }> {
+  const all: ReturnType<typeof fitFiles> = { reports: [], problems: [], rejected: [], inputs: [] };
+  const settings: BatchSettings = { fit: options.fit, specs, thresholds: options.thresholds, import: options.import, keepPoints: true, fitTexts: true };
+  let broken: string | null = null;
+  const silent = { write: () => true };
+  const result = await runBatchInOrder(paths, settings, { workers: fitWorkers(paths.length), progress: silent, stop }, (outcome) => {
+    if (outcome.fit === undefined) {
+      broken ??= outcome.unreadable.map((entry) => entry.reason).join(' ') || `${outcome.source}: not fitted`;
+      return;
+    }
+    streamed.addTexts(outcome.fit);
+    if (outcome.fit.problem !== null) all.problems.push(outcome.fit.problem);
+    all.rejected.push(...outcome.fit.rejected);
+    all.inputs.push(...outcome.fit.inputs);
+  });
+  if (broken !== null) throw new Error(broken);
+  return { ...all, filesDone: result.filesDone };
+}
+
 /** One line on stderr per survey that no given spec applies to (the report says it too; exit 2). */
-export function reportUnappliedSpecs(report: Report): void {
+export function reportUnappliedSpecs(report: { readonly surveys: readonly Pick<SurveyReport, 'source' | 'coil' | 'spec'>[] }): void {
   for (const survey of report.surveys) {
     if (survey.spec?.applied === false) process.stderr.write(`ringfall: ${survey.source}${survey.coil ? ` (${survey.coil})` : ''}: ${survey.spec.reason ?? 'no spec applies'}\n`);
   }
@@ -208,7 +253,7 @@ export function fitFiles(
   const inputs: RunInput[] = [];
   for (const path of paths) {
     try {
-      reports.push(...fitFile(path, options, settings, rejected, inputs));
+      reports.push(...fitFile(path, options.import, settings, rejected, inputs));
     } catch (error) {
       if (!isRingfallError(error)) throw error;
       problems.push(error.message);
@@ -240,26 +285,4 @@ export async function fitFilesUntilStopped(
     filesDone += 1;
   }
   return { ...all, filesDone };
-}
-
-function fitFile(path: string, options: FitCommandOptions, settings: SurveyAnalysisSettings, rejected: SetAsideRow[], inputs: RunInput[]): SurveyReport[] {
-  let text: string;
-  try {
-    const bytes = readSurveyBytes(path);
-    inputs.push(describeBytes(path, bytes));
-    text = bytes.toString('utf8');
-  } catch (error) {
-    inputs.push(unreadableInput(path, `could not be read: ${isRingfallError(error) ? error.code : (error as Error).message}`));
-    throw error;
-  }
-  const imported = importSurveys(text, { source: path, ...options.import });
-  // each survey's notes already hold the file's (units read, columns ignored, …)
-  const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings));
-  for (const skipped of imported.skipped) reports.push(unfittedSurveyReport(skipped.survey, skipped.reason));
-  for (const row of imported.unassigned) rejected.push({ source: path, ...row });
-  const unassigned = summarizeSetAsideRows(imported.unassigned);
-  if (unassigned.length > 0 && reports[0] !== undefined) {
-    reports[0] = { ...reports[0], warnings: [...unassigned, ...reports[0].warnings] };
-  }
-  return reports;
 }
