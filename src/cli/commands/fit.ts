@@ -22,7 +22,7 @@ import { writeFileAtomic } from '../write-file-atomic';
 import type { CommandContext } from './command-context';
 import { checksStatus } from '../checks-status';
 import { exitStatus, worseStatus } from '../exit-codes';
-import { JsonReportStream, stdoutBackpressure } from '../json-report-stream';
+import { JsonReportStream, stdoutBackpressure, type TextSink } from '../json-report-stream';
 import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
 import { cliRunRecord, describeSpecFile, runTime } from '../run-record';
 import { fitFile, surveyTexts, type FitFileTexts } from '../fit-file';
@@ -127,7 +127,7 @@ function openScratchSpool(): { spool: SurveySpool; dispose(): void } | null {
  * unapplied specs need. `write` then prints the report with JsonReportStream: the same
  * bytes as one JSON.stringify of the whole report.
  */
-class StreamedSurveys {
+export class StreamedSurveys {
   private readonly places: SpoolPlace[] = [];
   /** The exit status from the checks so far (checksStatus of the surveys seen). */
   status: number = exitStatus.passed;
@@ -150,23 +150,28 @@ class StreamedSurveys {
   }
 
   /** Print the report: the keys of `rest` around the surveys (toJsonReport's order), then `extra` (the partial marker). */
-  async write(rest: Omit<Report, 'surveys'>, extra: Record<string, unknown>): Promise<void> {
-    const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...rest }), stdoutBackpressure);
+  async write(rest: Omit<Report, 'surveys'>, extra: Record<string, unknown>, sink: TextSink = process.stdout): Promise<void> {
+    const stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...rest }), sink === process.stdout ? stdoutBackpressure : undefined);
     for (const place of this.places) await stream.surveyText(this.spool.text(place));
     await stream.finish({}, extra);
   }
 }
 
-/** Files from which `fit --json` fits on worker threads: below it, starting the workers (about 0.4 s each from the sources) costs more than it saves. */
+/** Files from which `fit --json` may fit on worker threads: below it, starting the workers (0.1–0.4 s each) costs more than it saves. */
 export const fitWorkersFrom = 200;
 
 /**
- * Worker threads for `fit --json` on `files` files: every core (as batch) from
- * fitWorkersFrom files on, else 1 (fit on the main thread). --html, --csv and the text
- * report need the whole report in hand and are always made on the main thread.
+ * Worker threads for `fit --json` on `files` files on a machine with `cores` cores: all of
+ * them (as batch) from fitWorkersFrom files on when there are more than two, else 1 (fit on
+ * the main thread). Measured on 2 cores, 10,000 thirty-reading files, `--model loop`
+ * (DEVELOPERS.md): two workers took 0.7–1.3× the main thread's wall time for 1.5–1.9× its
+ * CPU (each worker loads and warms up the code again, and again when recycled) and
+ * 230–270 MB peak RSS against 140–190 MB, past the 200 MB target; so two cores fit on one
+ * thread. --html, --csv and the text report need the whole report in hand and are always
+ * made on the main thread.
  */
-export function fitWorkers(files: number): number {
-  return files >= fitWorkersFrom ? availableParallelism() : 1;
+export function fitWorkers(files: number, cores: number = availableParallelism()): number {
+  return files >= fitWorkersFrom && cores > 2 ? cores : 1;
 }
 
 /**
@@ -176,14 +181,14 @@ export function fitWorkers(files: number): number {
  * signal ends the workers; the files finished are reported. A file that breaks a worker
  * (a bug, not a RingfallError) ends the run as an internal error, as it would on one thread.
  */
-async function fitFilesOnWorkers(
-  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: StopSignals, streamed: StreamedSurveys,
+export async function fitFilesOnWorkers(
+  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'onStop'>, streamed: StreamedSurveys, workers: number = fitWorkers(paths.length),
 ): Promise<ReturnType<typeof fitFiles> & { filesDone: number }> {
   const all: ReturnType<typeof fitFiles> = { reports: [], problems: [], rejected: [], inputs: [] };
   const settings: BatchSettings = { fit: options.fit, specs, thresholds: options.thresholds, import: options.import, keepPoints: true, fitTexts: true };
   let broken: string | null = null;
   const silent = { write: () => true };
-  const result = await runBatchInOrder(paths, settings, { workers: fitWorkers(paths.length), progress: silent, stop }, (outcome) => {
+  const result = await runBatchInOrder(paths, settings, { workers, progress: silent, stop }, (outcome) => {
     if (outcome.fit === undefined) {
       broken ??= outcome.unreadable.map((entry) => entry.reason).join(' ') || `${outcome.source}: not fitted`;
       return;
