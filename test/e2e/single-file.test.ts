@@ -59,8 +59,12 @@ describe('single-file page from file://', () => {
   it('fits a survey the user adds in a worker started afresh from the inlined code', async () => {
     // two files dropped one right after the other: the second run supersedes the first while
     // the worker is still fitting it, which terminates that worker and starts a new one
-    // (worker-client.ts); the sample fleet's file is the first, so the worker is surely busy
-    const fleetText = readFileSync(join(repoRoot, 'sample-data', 'fleet-log-2025-2026.csv'), 'utf8');
+    // (worker-client.ts); the first is the sample fleet's file twenty times over (each copy's
+    // coils renamed), so the worker is surely still busy when the second arrives
+    const fleetLines = readFileSync(join(repoRoot, 'sample-data', 'fleet-log-2025-2026.csv'), 'utf8').trimEnd().split('\n');
+    const header = fleetLines.findIndex((line) => line.startsWith('coil,'));
+    const rows = fleetLines.slice(header + 1);
+    const fleetText = [...fleetLines.slice(0, header + 1), ...Array.from({ length: 20 }, (_, copy) => rows.map((row) => row.replace(/^([^,]+),/, `$1-${copy + 1},`))).flat()].join('\n') + '\n';
     const userText = readFileSync(join(repoRoot, 'sample-data', 'qa-214-2026-02-17-mislabeled.csv'), 'utf8');
     await page.evaluate(([first, second]) => {
       const drop = (file: File) => {
