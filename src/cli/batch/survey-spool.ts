@@ -109,12 +109,13 @@ function restoreNumbers(_key: string, value: unknown): unknown {
 /**
  * A scratch folder for a run's spool in the system's temporary folder (TMPDIR), or a
  * usage error that names it when it cannot be made there (a read-only or missing TMPDIR);
- * `what` says who keeps surveys there and `remedy` what to do (both end the message).
+ * `what` says who keeps surveys there and `remedy` what to do (both end the message); the
+ * folder's name starts with `prefix`.
  */
-export function scratchFolder(what: string, remedy: string): string {
+export function scratchFolder(what: string, remedy: string, prefix = 'ringfall-batch-'): string {
   const base = tmpdir();
   try {
-    return mkdtempSync(join(base, 'ringfall-batch-'));
+    return mkdtempSync(join(base, prefix));
   } catch (cause) {
     const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
     throw new RingfallError('OUTPUT_UNWRITABLE', `Cannot make a scratch folder in the temporary folder "${base}" (${code}); ${what} keeps its surveys there while it runs. ${remedy}`, { value: base, where: 'TMPDIR', cause });

@@ -112,7 +112,7 @@ export function registerFit(program: Command, context: CommandContext): void {
 function openScratchSpool(): { spool: SurveySpool; dispose(): void } | null {
   let folder: string;
   try {
-    folder = scratchFolder('fit --json', 'Set TMPDIR to a folder you can write.');
+    folder = scratchFolder('fit --json', 'Set TMPDIR to a folder you can write.', 'ringfall-fit-');
   } catch {
     return null;
   }
