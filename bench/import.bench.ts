@@ -6,7 +6,7 @@
 import { closeSync, createReadStream, mkdtempSync, openSync, rmSync, statSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { importSurveysStreaming } from '../src/io/index';
+import { importSurveys, importSurveysStreaming } from '../src/io/index';
 
 const rows = 1_000_000;
 const targetSeconds = 2;
@@ -70,3 +70,25 @@ process.stdout.write(
     `memory / target ${(megabytes / targetMegabytes).toFixed(2)} (target < ${targetMegabytes} MB)\n`,
 );
 if (seconds > targetSeconds || megabytes > targetMegabytes) process.exitCode = 1;
+
+// Many small files (issue 15, the lean file path): a fleet's thirty-reading surveys, one
+// header for all, imported one after another as `fit DIR` does; the header's column
+// layout is detected once (read-layout.ts). Figures only, no target.
+const fleetFiles = 10_000;
+const fleetTexts: string[] = [];
+for (let f = 0; f < fleetFiles; f += 1) {
+  const lines = [`# coil: QB-${f % 2000}`, `# date: 2026-0${1 + (f % 9)}-1${f % 10}`, 'distance (mm),B (mT)'];
+  for (let i = 0; i < 30; i += 1) lines.push(`${(5 * i).toFixed(1)},${fieldMilliTesla(5 * i, i + f).toPrecision(4)}`);
+  fleetTexts.push(`${lines.join('\n')}\n`);
+}
+const fleetCpu = process.cpuUsage();
+const fleetStarted = performance.now();
+let fleetReadings = 0;
+for (const [f, text] of fleetTexts.entries()) fleetReadings += importSurveys(text, { source: `fleet-${f}.csv` }).surveys[0]?.readings.length ?? 0;
+const fleetSeconds = (performance.now() - fleetStarted) / 1000;
+const fleetCpuUsed = process.cpuUsage(fleetCpu);
+if (fleetReadings !== 30 * fleetFiles) throw new Error(`expected ${30 * fleetFiles} readings, got ${fleetReadings}`);
+process.stdout.write(
+  `import: ${fleetFiles.toLocaleString('en')} thirty-reading files in ${fleetSeconds.toFixed(2)} s = ${Math.round(fleetFiles / fleetSeconds).toLocaleString('en')} files/s ` +
+    `(CPU ${((fleetCpuUsed.user + fleetCpuUsed.system) / 1e6).toFixed(2)} s)\n`,
+);

@@ -1,3 +1,4 @@
+import { once } from 'node:events';
 import type { Report } from '../core/report/report';
 import { toJsonReport } from '../core/report/to-json-report';
 import { jsonPieces } from './json-pieces';
@@ -9,6 +10,9 @@ export interface TextSink {
 
 /** A promise to wait for before writing more (a stream's 'drain'), or null to go on. */
 export type SinkBackpressure = () => Promise<unknown> | null;
+
+/** Backpressure of standard output: a pipe takes the report as fast as its reader does, so wait for it rather than buffer the report. */
+export const stdoutBackpressure: SinkBackpressure = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
 
 /** Text gathered before it goes to the sink: few writes, none large. */
 const writeSize = 1 << 16;

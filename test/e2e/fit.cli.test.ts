@@ -1,5 +1,6 @@
 import { spawnSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
@@ -134,6 +135,24 @@ describe('ringfall fit (CONTRACT.md)', () => {
       expect(run.status).toBe(2);
       expect(run.stdout).toBe('');
       expect(run.stderr).toMatch(new RegExp(`^ringfall: ${option}: the folder ".*no-such-folder-here" for "no-such-folder-here/out.file" does not exist\\. Create it first`));
+    }
+  });
+
+  it('ringfall fit --json on many files (written survey by survey from a spool) prints the bytes, stderr and exit status of the report built whole (as with --csv)', () => {
+    // the in-memory path, kept for --html/--csv, is the independent reference: one JSON.stringify of the whole report
+    const folder = mkdtempSync(join(tmpdir(), 'ringfall-fit-stream-'));
+    try {
+      const files = ['sample-data/qa-107-2025-03-11-healthy.csv', 'sample-data/fleet-log-2025-2026.csv', 'sample-data/flawed/bad-rows.csv', 'sample-data/flawed/no-field-unit.csv', 'sample-data/flawed/reversed-probe.csv'];
+      const args = ['fit', ...files, '--spec', 'sample-data/specs/qa-107.spec.json', '--model', 'loop,dipole', '--json'];
+      const env = { ...process.env, SOURCE_DATE_EPOCH: '0' };
+      const streamed = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args], { cwd: root, encoding: 'utf8', timeout: 120_000, env });
+      const whole = spawnSync(process.execPath, ['bin/ringfall.mjs', ...args, '--csv', join(folder, 'out.csv')], { cwd: root, encoding: 'utf8', timeout: 120_000, env });
+      expect(JSON.parse(streamed.stdout).surveys.length).toBeGreaterThan(3);
+      expect(streamed.stdout).toBe(whole.stdout);
+      expect(streamed.stderr).toBe(whole.stderr);
+      expect(streamed.status).toBe(whole.status);
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
     }
   });
 });

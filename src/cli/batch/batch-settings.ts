@@ -23,4 +23,10 @@ export interface BatchSettings extends SurveyAnalysisSettings {
    * report object, so the main thread of a large batch only appends text to the spool.
    */
   readonly digest?: DigestParts;
+  /**
+   * `ringfall fit --json` on many files: each file as `fit` reports it (fitFileTexts in
+   * fit-file.ts: its surveys' JSON texts, rejected rows, input record or problem) in
+   * FileOutcome.fit, instead of batch's reports or digests.
+   */
+  readonly fitTexts?: boolean;
 }

@@ -5,6 +5,7 @@
 import type { SurveyReport } from '../../core/report/report';
 import type { SurveyDigest } from './survey-digest';
 import type { ProblemCode } from '../../core/error-codes';
+import type { FitFileTexts } from '../fit-file';
 
 /** One survey file to fit: its place in the sorted file list and its path as found. */
 export interface FileTask {
@@ -29,6 +30,8 @@ export interface FileOutcome {
   readonly digests?: readonly SurveyDigest[];
   /** The file itself when it could not be read at all, or its coil/date groups that could not be fitted. */
   readonly unreadable: readonly UnreadableEntry[];
+  /** With BatchSettings.fitTexts: the file as `fit --json` reports it (`reports` and `unreadable` are then empty). */
+  readonly fit?: FitFileTexts;
 }
 
 /** Main thread → worker: fit these files and answer with one `ChunkDone`. */

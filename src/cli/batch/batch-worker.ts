@@ -3,6 +3,7 @@ import type { BatchSettings } from './batch-settings';
 import type { ChunkRequest, FileOutcome, FileTask, WorkerMessage } from './batch-types';
 import { failedOutcome } from './failed-outcome';
 import { fitSurveyFile } from './fit-survey-file';
+import { fitFileTexts } from '../fit-file';
 
 /**
  * Fit one chunk of files in a worker: each file's outcome, in the order given. A bug
@@ -12,6 +13,7 @@ import { fitSurveyFile } from './fit-survey-file';
 export function fitChunk(files: readonly FileTask[], settings: BatchSettings): FileOutcome[] {
   return files.map((file) => {
     try {
+      if (settings.fitTexts === true) return { index: file.index, source: file.path, reports: [], unreadable: [], fit: fitFileTexts(file.path, settings.import, settings) };
       return fitSurveyFile(file, settings);
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);

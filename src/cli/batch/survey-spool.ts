@@ -1,4 +1,7 @@
-import { closeSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
+import { closeSync, mkdtempSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { RingfallError } from '../../core/errors';
 import type { SurveyReport } from '../../core/report/report';
 
 /** Where a line of a spool is: its first byte and its length in bytes. */
@@ -101,4 +104,20 @@ function keepNumbers(_key: string, value: unknown): unknown {
 function restoreNumbers(_key: string, value: unknown): unknown {
   if (typeof value !== 'string' || !value.startsWith('\u0000')) return value;
   return value.startsWith('\u0000n:') ? Number(value.slice(3)) : value.slice(3);
+}
+
+/**
+ * A scratch folder for a run's spool in the system's temporary folder (TMPDIR), or a
+ * usage error that names it when it cannot be made there (a read-only or missing TMPDIR);
+ * `what` says who keeps surveys there and `remedy` what to do (both end the message); the
+ * folder's name starts with `prefix`.
+ */
+export function scratchFolder(what: string, remedy: string, prefix = 'ringfall-batch-'): string {
+  const base = tmpdir();
+  try {
+    return mkdtempSync(join(base, prefix));
+  } catch (cause) {
+    const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
+    throw new RingfallError('OUTPUT_UNWRITABLE', `Cannot make a scratch folder in the temporary folder "${base}" (${code}); ${what} keeps its surveys there while it runs. ${remedy}`, { value: base, where: 'TMPDIR', cause });
+  }
 }

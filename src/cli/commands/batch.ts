@@ -1,6 +1,4 @@
-import { once } from 'node:events';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
@@ -14,9 +12,9 @@ import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatchInOrder } from '../batch/run-batch';
 import { FleetCollector } from '../batch/fleet-collector';
-import { SurveySpool, type SpoolPlace } from '../batch/survey-spool';
+import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
 import { surveyJsonText } from '../batch/survey-json';
-import { JsonReportStream } from '../json-report-stream';
+import { JsonReportStream, stdoutBackpressure } from '../json-report-stream';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { claimOutFolder } from '../batch/out-folder-lock';
 import { stoppedStatus, watchStopSignals } from '../stop-signals';
@@ -87,7 +85,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
         // surveys go to a spool on disk as they come (for the JSON report and the pages), as
         // does what the summary and the fleet history need (the collector keeps their places):
         // memory stays flat in the number of files
-        const spoolFolder = claim === null ? scratchFolder() : null;
+        const spoolFolder = claim === null ? scratchFolder('batch', 'Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).') : null;
         const spool = new SurveySpool(claim !== null ? claim.scratchPath('surveys.jsonl') : join(spoolFolder!, 'surveys.jsonl'));
         try {
           const collector = new FleetCollector(settings, spool);
@@ -113,9 +111,8 @@ export function registerBatch(program: Command, context: CommandContext): void {
           if (flags.json === true) {
             // written survey by survey from the spool, each as the worker made its text with the
             // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole
-            // report. A pipe takes the report as fast as its reader does: wait for it rather than buffer the report
-            const drained = () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain') : null);
-            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), drained);
+            // report, waiting for a slow pipe rather than buffering the report
+            const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), stdoutBackpressure);
             const withFleet = fleet ? { fleet } : {};
             for (const place of jsonPlaces) await stream.surveyText(surveyJsonText(spool.text(place), withFleet));
             await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
@@ -191,18 +188,4 @@ function pageKey(survey: { readonly coil: string | null }, nextUncoiled: () => n
 /** 2 when a file or part could not be used (an input error), combined with the checks as `fit` counts them (checksStatus) (CONTRACT.md). */
 export function batchStatus(report: Report): number {
   return worseStatus(checksStatus(report), (report.fleet?.unreadable.length ?? 0) > 0 ? exitStatus.input : exitStatus.passed);
-}
-
-/**
- * A scratch folder for the run's spool in the system's temporary folder (TMPDIR), or a
- * usage error that names it when it cannot be made there (a read-only or missing TMPDIR).
- */
-function scratchFolder(): string {
-  const base = tmpdir();
-  try {
-    return mkdtempSync(join(base, 'ringfall-batch-'));
-  } catch (cause) {
-    const code = (cause as NodeJS.ErrnoException).code ?? (cause as Error).message;
-    throw new RingfallError('OUTPUT_UNWRITABLE', `Cannot make a scratch folder in the temporary folder "${base}" (${code}); batch keeps its surveys there while it runs. Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).`, { value: base, where: 'TMPDIR', cause });
-  }
 }

@@ -61,7 +61,7 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
   const delimiter = detectDelimiter(preamble.headerText, sample);
   const parsedHeader = Papa.parse<string[]>(preamble.headerText, { delimiter, newline: preamble.newline }).data[0] ?? [];
   const headers = parsedHeader.map((h) => h.replace(/\r$/u, ''));
-  const columns = detectColumns(headers, preamble.headerLine, options);
+  const columns = learnedColumns(headers, preamble.headerLine, options);
   // keys are the file's own words ("# constructor: …"): a null-prototype object holds them as plain data
   const meta: Record<string, string> = Object.create(null) as Record<string, string>;
   for (const { key, value } of preamble.metadata) meta[key] = value;
@@ -80,6 +80,31 @@ export function readLayout(text: string, byteOrderMark: boolean, final: boolean,
   // CONTRACT.md: a decimal comma only in semicolon files. In a tab file "1,700" could be
   // 1.7 or 1700 (thousands separator); a guess would be silent, so such cells are refused.
   return { preamble, delimiter, decimalComma: delimiter === ';', columns, detection, meta, defaults: readDefaults(preamble.metadata, options.source) };
+}
+
+/**
+ * Column layouts learnt from headers already read, so a fleet of files with one header is
+ * detected once: keyed by the header cells, the header's line and the unit options, and
+ * kept only when detection found no problem (a problem's message names its file) and no
+ * hand-made mapping was given. The result is the same as detectColumns' for the file:
+ * nothing in it depends on the file's name or its other lines, and it is read-only data
+ * (the column and note lists are copied for each file all the same).
+ */
+const learnt = new Map<string, ColumnDetectionResult>();
+/** Headers remembered at most: a fleet has a handful; a folder of unrelated files cannot grow it without bound. */
+const learntLimit = 64;
+
+function learnedColumns(headers: readonly string[], headerLine: number, options: ImportOptions): ColumnDetectionResult {
+  if (options.mapping !== undefined) return detectColumns(headers, headerLine, options);
+  const key = JSON.stringify([headers, headerLine, options.fieldUnit ?? null, options.distanceUnit ?? null]);
+  const known = learnt.get(key);
+  if (known !== undefined) return { ...known, columns: [...known.columns], notes: [...known.notes], problems: [] };
+  const columns = detectColumns(headers, headerLine, options);
+  if (columns.problems.length === 0 && columns.layout !== null) {
+    if (learnt.size >= learntLimit) learnt.delete(learnt.keys().next().value!);
+    learnt.set(key, { ...columns, columns: [...columns.columns], notes: [...columns.notes] });
+  }
+  return columns;
 }
 
 function readDefaults(metadata: readonly MetadataLine[], source: string): FileLayout['defaults'] {
