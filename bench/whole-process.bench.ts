@@ -41,6 +41,9 @@ const scratch = mkdtempSync(join(tmpdir(), 'ringfall-whole-process-'));
 let missed = false;
 try {
   console.log(`${FILES.toLocaleString('en-US')} surveys of 30 on-axis readings; ${availableParallelism()} cores; load average ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+  // which build bin/ringfall.mjs runs (its --debug line): the package's dist/cli.js, or the sources through tsx (slower to start, and so are batch's workers)
+  const which = spawnSync(process.execPath, [cli, '--debug', 'demo'], { encoding: 'utf8' }).stderr.split('\n').find((line) => line.startsWith('ringfall: running')) ?? 'ringfall: running (unknown)';
+  console.log(`${which.replace('ringfall: ', '')} (npm run build:package first to measure what users install)`);
   const folder = join(scratch, 'fleet');
   makeFleet(folder, { files: FILES, readings: 30 });
   const row = (label: string, m: Measured) => console.log(`  ${label.padEnd(44)} ${describe(m)}`);
