@@ -35,6 +35,7 @@ describe('scanProfileChart()', () => {
 
   it('marks the fitted centre where the readings were made around (20 mm on the ruler)', () => {
     const line = dataset('loop centre')[0]!.data as { x: number }[];
+    // the readings were made with the winding plane at `centre` = 20 mm on the ruler (noise-free, so within 0.01 mm)
     expect(Math.abs(line[0]!.x - 20)).toBeLessThan(0.01);
   });
 

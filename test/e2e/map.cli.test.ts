@@ -61,6 +61,7 @@ describe('ringfall fit on a 3-D map and on a transverse scan', () => {
     const loop = survey.fits[0];
     expect(loop.params.probeOffset).toBeUndefined();
     expect(loop.params.tilt.unit).toBe('rad');
+    // the map file above: 6 × 6 × 3 = 108 positions, three residuals (Bx, By, Bz) each
     expect(loop.stats.n).toBe(3 * 108);
     expect(loop.points.component.slice(0, 3)).toEqual(['x', 'y', 'z']);
     expect(loop.points.x).toHaveLength(3 * 108);

@@ -42,6 +42,7 @@ describe('ringfall fit on a scan through the coil (signed positions)', () => {
     expect(survey.readings).toEqual({ total: 50, used: 50, rejected: [] });
     const pair = survey.fits.find((f: { model: string }) => f.model === 'coil-pair');
     expect(pair.params.probeOffset).toBeUndefined();
+    // every one of the 50 rows written above, both sides of the coil
     expect(pair.stats.n).toBe(50);
     for (const [name, value] of Object.entries(truth)) {
       const estimate = pair.params[name];

@@ -1,29 +1,13 @@
+import type { ProblemCode } from '../../core/error-codes';
 import { RingfallError } from '../../core/errors';
 import { printable } from '../../core/text/printable';
 
 /**
  * Stable codes of file-level import problems (CLI exit status 2; the web page shows the
- * message next to the file name). Row-level problems are RejectedRow codes instead.
+ * message next to the file name): the IMPORT_… codes of core/error-codes.ts. Row-level
+ * problems are RejectedRow codes instead.
  */
-export type ImportErrorCode =
-  | 'IMPORT_EMPTY'
-  | 'IMPORT_BINARY'
-  | 'IMPORT_NO_HEADER'
-  | 'IMPORT_HEADER_ONLY'
-  | 'IMPORT_NO_DISTANCE'
-  | 'IMPORT_NO_FIELD'
-  | 'IMPORT_FIELD_UNIT_MISSING'
-  | 'IMPORT_DISTANCE_UNIT_MISSING'
-  | 'IMPORT_UNIT_UNKNOWN'
-  | 'IMPORT_UNIT_KIND'
-  | 'IMPORT_UNIT_AMBIGUOUS'
-  | 'IMPORT_COLUMN_CONFLICT'
-  | 'IMPORT_COMPONENTS_INCOMPLETE'
-  | 'IMPORT_MAP_INCOMPLETE'
-  | 'IMPORT_METADATA'
-  | 'IMPORT_MAPPING'
-  | 'IMPORT_OPTION_UNIT'
-  | 'IMPORT_TOO_FEW_ROWS';
+export type ImportErrorCode = Extract<ProblemCode, `IMPORT_${string}`>;
 
 /**
  * Build a file-level import error. `message` must already have the form

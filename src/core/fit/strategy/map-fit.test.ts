@@ -104,6 +104,7 @@ describe('fitting a 3-D map with the coil\'s pose', () => {
     // B(−n, N·I) = B(n, −N·I): a loop's field reverses with its current (Biot–Savart is linear in I)
     const down: Placed = { ...tilted, tilt: 155 * degrees, azimuth: 100 * degrees };
     const [fit] = fitSurvey(mapSurvey(down, grid, { noise: 0, seed: 1, vector: true }), { models: ['loop'] });
+    // −n of tilt 155°, azimuth 100° is tilt 180° − 155° = 25°, azimuth 100° − 180° = −80° (spherical angles, ISO 80000-2 item 2-17.16)
     expect(fit!.params['tilt']!.value).toBeCloseTo(25 * degrees, 6);
     expect(fit!.params['azimuth']!.value).toBeCloseTo(-80 * degrees, 6);
     expect(fit!.params['ampereTurns']!.value).toBeCloseTo(-250, 3);
@@ -112,6 +113,7 @@ describe('fitting a 3-D map with the coil\'s pose', () => {
   it('an axis along the map\'s z: the azimuth is reported as not determined, with a warning', () => {
     const upright: Placed = { ...tilted, tilt: 0, azimuth: 0 };
     const [fit] = fitSurvey(mapSurvey(upright, grid, { noise: 0.01, seed: 3, vector: true }), { models: ['loop'] });
+    // the map was made with tilt 0; 1 % noise leaves a small fitted tilt (regression pin, not truth: the bound)
     expect(fit!.params['tilt']!.value).toBeLessThan(2 * degrees);
     const azimuth = fit!.params['azimuth']!;
     // at tilt 0 the azimuth turns the axis about itself: no reading can depend on it (geometry)
@@ -139,6 +141,7 @@ describe('fitting a 3-D map with the coil\'s pose', () => {
     expect(form.params['tilt']).toBeUndefined();
     expect(form.points).toHaveLength(survey.readings.length + 1);
     const last = form.points.at(-1)!;
+    // the extra reading was placed 20 mm along n from the centre, on the axis (construction above)
     expect(last.distance).toBeCloseTo(0.02, 9);
     expect(last.radial).toBeCloseTo(0, 9);
     // on-axis loop field B = μ0 N I a²/(2 (a² + z²)^{3/2}) (Griffiths, Introduction to Electrodynamics, 4th ed., Example 5.6)
