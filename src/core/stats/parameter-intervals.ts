@@ -37,16 +37,22 @@ export function parameterIntervals(
   return { standardErrors, intervals, coverageFactor };
 }
 
-// One-entry memo: fits of one survey ask for the same quantile over and over.
-let memoProbability = NaN;
-let memoFreedom = NaN;
-let memoValue = NaN;
+// Quantiles kept per (probability, ν): the fits of a batch ask for a few values over and
+// over (one per model's n − k), each an iterative inversion (student-t-quantile.ts).
+const quantiles = new Map<number, Map<number, number>>();
 
 function coverageQuantile(probability: number, degreesOfFreedom: number): number {
-  if (probability !== memoProbability || degreesOfFreedom !== memoFreedom) {
-    memoValue = studentTQuantile(probability, degreesOfFreedom);
-    memoProbability = probability;
-    memoFreedom = degreesOfFreedom;
+  let byFreedom = quantiles.get(probability);
+  if (byFreedom === undefined) {
+    if (quantiles.size >= 8) quantiles.clear();
+    byFreedom = new Map<number, number>();
+    quantiles.set(probability, byFreedom);
   }
-  return memoValue;
+  let value = byFreedom.get(degreesOfFreedom);
+  if (value === undefined) {
+    value = studentTQuantile(probability, degreesOfFreedom);
+    if (byFreedom.size >= 256) byFreedom.clear();
+    byFreedom.set(degreesOfFreedom, value);
+  }
+  return value;
 }
