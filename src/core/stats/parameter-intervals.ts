@@ -29,11 +29,14 @@ export function parameterIntervals(
 ): ParameterIntervals {
   const k = values.length;
   const coverageFactor = coverageQuantile((1 + level) / 2, degreesOfFreedom);
-  const standardErrors = Float64Array.from({ length: k }, (_, j) => Math.sqrt(Math.max(0, covariance[j * k + j]!)));
-  const intervals = Array.from({ length: k }, (_, j): readonly [number, number] => {
-    const half = coverageFactor * standardErrors[j]!;
-    return [values[j]! - half, values[j]! + half];
-  });
+  const standardErrors = new Float64Array(k);
+  const intervals = new Array<readonly [number, number]>(k);
+  for (let j = 0; j < k; j++) {
+    const se = Math.sqrt(Math.max(0, covariance[j * k + j]!));
+    standardErrors[j] = se;
+    const half = coverageFactor * se;
+    intervals[j] = [values[j]! - half, values[j]! + half];
+  }
   return { standardErrors, intervals, coverageFactor };
 }
 
