@@ -13,6 +13,17 @@ const exponentParameter: ParameterSpec = {
   description: 'apparent exponent n over the surveyed range (not a property of the coil)',
 };
 
+/** r = √((d + δ)² + ρ²), or the signed d + δ on the axis. */
+function distanceFromSource(axial: number, rho: number): number {
+  return rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+}
+
+/** r^−n (exactly 1/r² and 1/r³ for n = 2, 3; exp(−n·ln r) otherwise), NaN for r ≤ 0; logR = ln r. */
+function inversePower(r: number, exponent: number, logR: number): number {
+  const inv = 1 / r;
+  return r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
+}
+
 /**
  * The descriptive power laws of DOMAIN.md §1.9, B = amplitude / r^n + background with
  * r = √((distance + probeOffset)² + ρ²), which on the axis is DESIGN.md's
@@ -65,11 +76,9 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       const offset = params[k - 2]!;
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
-        const rho = points.radial[i]!;
-        const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        const r = distanceFromSource(axial, points.radial[i]!);
         const logR = Math.log(r);
-        const inv = 1 / r;
-        const power = r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
+        const power = inversePower(r, exponent, logR);
         const row = k * i;
         out[row] = power;
         if (free) out[row + 1] = -amplitude * power * logR;
@@ -91,11 +100,9 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       let bA = 0, bN = 0, bD = 0, bB = 0;
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
-        const rho = points.radial[i]!;
-        const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        const r = distanceFromSource(axial, points.radial[i]!);
         const logR = Math.log(r);
-        const inv = 1 / r;
-        const power = r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
+        const power = inversePower(r, exponent, logR);
         const w = weight[i]!;
         const res = residuals[i]!;
         const jA = power * w * sA;
