@@ -28,7 +28,7 @@ export interface Identifiability {
  */
 export function identifiability(
   result: CovarianceResult,
-  correlation: Float64Array | null,
+  correlation: ArrayLike<number> | null,
   options: { readonly degenerateCorrelation?: number; readonly warningCorrelation?: number } = {},
 ): Identifiability {
   const degenerate = options.degenerateCorrelation ?? 0.999;

@@ -4,7 +4,7 @@ import { triangularFactorInPlace } from '../linalg/householder-qr';
 /** What {@link leastSquaresCovariance} finds out about the linearised problem. */
 export interface CovarianceResult {
   /** Cov(θ̂), row-major k×k in θ's units, or null when J is rank-deficient or s² is undefined. */
-  readonly covariance: Float64Array | null;
+  readonly covariance: readonly number[] | null;
   /** Factor applied to (JᵀWJ)⁻¹: 1 for stated σ, s² = χ²/(n − k) when estimated. */
   readonly scaleFactor: number;
   /** Numerical rank of the column-equilibrated J. */
@@ -80,9 +80,10 @@ export function leastSquaresCovariance(
   const factor = new Array<number>(k * k);
   for (let i = 0; i < k * k; i++) factor[i] = r[i]!;
   if (k > 0 && n >= k && WELL_CONDITIONED * tolerance < 1 && triangularInverse(r, k, inverse)) {
-    let covariance: Float64Array | null = null;
+    let covariance: number[] | null = null;
     if (Number.isFinite(scaleFactor)) {
-      covariance = new Float64Array(k * k);
+      // A plain array: a typed array over 64 bytes is allocated off-heap, dearer than the sums.
+      covariance = new Array<number>(k * k);
       for (let a = 0; a < k; a++) {
         for (let b = 0; b <= a; b++) {
           // (R⁻¹·R⁻ᵀ)ₐᵦ = Σ_{c ≥ a} Tₐc·Tᵦc with T = R⁻¹ upper triangular, b ≤ a
@@ -140,7 +141,7 @@ class FullRankCovariance implements CovarianceResult {
   #weakest: number[] | null = null;
 
   constructor(
-    readonly covariance: Float64Array | null,
+    readonly covariance: readonly number[] | null,
     readonly scaleFactor: number,
     readonly columnNorms: Float64Array,
     private readonly factor: readonly number[],
@@ -188,7 +189,7 @@ function fromSingularValues(r: readonly number[], k: number, tolerance: number, 
   if (rank < k || !Number.isFinite(scaleFactor)) {
     return { covariance: null, scaleFactor, rank, conditionNumber, flatDirections, weakestDirection, columnNorms: norms };
   }
-  const covariance = new Float64Array(k * k);
+  const covariance = new Array<number>(k * k);
   for (let a = 0; a < k; a++) {
     for (let b = 0; b <= a; b++) {
       let sum = 0;

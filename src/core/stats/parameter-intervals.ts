@@ -23,7 +23,7 @@ export interface ParameterIntervals {
  */
 export function parameterIntervals(
   values: ArrayLike<number>,
-  covariance: Float64Array,
+  covariance: ArrayLike<number>,
   degreesOfFreedom: number,
   level = 0.95,
 ): ParameterIntervals {

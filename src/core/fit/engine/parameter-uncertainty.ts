@@ -13,8 +13,8 @@ export interface ParameterUncertainty {
   /** χ²/ν when σ were stated (≈ 1 if σ and model are right, SD √(2/ν)); null when estimated. */
   readonly reducedChiSquare: number | null;
   /** Row-major k×k, or null when singular or ν = 0 with an estimated scale. */
-  readonly covariance: Float64Array | null;
-  readonly correlation: Float64Array | null;
+  readonly covariance: readonly number[] | null;
+  readonly correlation: readonly number[] | null;
   /** √Cⱼⱼ, or null with the covariance. */
   readonly standardErrors: Float64Array | null;
   /** Intervals at `level`: normal quantile when σ were stated, t with ν = n − k when estimated; or null. */

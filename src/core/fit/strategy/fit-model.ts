@@ -81,8 +81,8 @@ export function fitModel(
     iterations: solution.iterations,
     params,
     freeParameters: solution.freeIndices.map((j) => model.parameters[j]!.name),
-    covariance: uncertainty.covariance === null ? null : Array.from(uncertainty.covariance),
-    correlation: uncertainty.correlation === null ? null : Array.from(uncertainty.correlation),
+    covariance: uncertainty.covariance,
+    correlation: uncertainty.correlation,
     uncertaintyScale: stated ? 'stated' : 'estimated',
     stats: {
       n,
