@@ -29,7 +29,9 @@ export interface CovarianceResult {
  * Robinson, 3rd ed., §8.5). No inverse of JᵀWJ is formed: with D the column norms of J,
  * D⁻¹-scaled J = Q·R by Householder QR, and Cov = c·D⁻¹·R⁻¹·R⁻ᵀ·D⁻¹ from the triangular
  * inverse of that factor (Björck, "Numerical Methods for Least Squares Problems", SIAM
- * 1996, ch. 2, the covariance matrix from R, from memory).
+ * 1996, ch. 2, the covariance matrix from R, from memory). The covariance is itself the
+ * inverse, so R⁻¹ is formed here — of the k×k triangular factor, as LAPACK's xPOTRI forms
+ * (AᵀA)⁻¹ from a Cholesky factor — but never used to solve a system.
  *
  * When R is ill-conditioned — κ_F(R) = ‖R‖_F·‖R⁻¹‖_F, an upper bound on σ_max/σ_min,
  * above {@link WELL_CONDITIONED}, or R⁻¹ not finite — a one-sided Jacobi SVD of R decides
