@@ -1,5 +1,6 @@
 import { readSurveyBytes } from '../read-survey-bytes';
 import { digestSurvey } from './survey-digest';
+import { threadSpool } from './worker-spool';
 import { isRingfallError } from '../../core/errors';
 import { analyseSurvey } from '../../core/report/analyse-survey';
 import type { SurveyReport } from '../../core/report/report';
@@ -50,7 +51,8 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   if (settings.digest !== undefined) {
     const specModels = new Set<string>(settings.specs.map((spec) => spec.model));
     const parts = settings.digest;
-    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels, parts)), unreadable };
+    const spool = threadSpool(parts.folder);
+    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels, parts, spool)), unreadable };
   }
   return { index: task.index, source, reports, unreadable };
 }
