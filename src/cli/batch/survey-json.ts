@@ -48,9 +48,8 @@ export function spoolSurveyJson(survey: SurveyReport, spool: WorkerSpoolWriter):
   // string's line breaks are escaped (\n), so this is the survey's summaryModel and no other
   const key = '\n      "summaryModel": ';
   const at = text.indexOf(`${key}null`) + key.length;
-  const head = text.slice(0, at);
-  const place = spool.append(`${head}${text.slice(at + 'null'.length)}`);
-  return { ...place, gap: Buffer.byteLength(head, 'utf8'), summary: JSON.stringify(choices), coil: survey.coil };
+  const { place, lengths } = spool.appendParts([text.slice(0, at), text.slice(at + 'null'.length)]);
+  return { ...place, gap: lengths[0]!, summary: JSON.stringify(choices), coil: survey.coil };
 }
 
 /** The survey's text as an element of the report's surveys list ("{\n      …\n    }"). */

@@ -15,36 +15,69 @@ function spoolPath(folder: string, id: number): string {
   return join(folder, `thread-${id}.spool`);
 }
 
+/** Bytes a spool writer gathers before it writes them to its file. */
+const writeBlock = 1 << 20;
+
 /**
  * A thread's own spool file in a batch's scratch folder: a batch worker appends the texts
  * of each survey it fits (the finished JSON text, the summary row, the history part, the
  * page's line) and sends the main thread only their places, so the texts cross no thread
  * boundary and the main thread neither copies nor keeps them (WorkerSpools reads them back).
  * Each thread writes only its own file (named by its threadId, unique in the process; a
- * recycled worker gets a new one), so no two writers meet. The file is opened on the first
- * append.
+ * recycled worker gets a new one), so no two writers meet. Text is encoded straight into
+ * one buffer and written when it is full or on `flush`, which must come before anyone reads
+ * the places given (the worker flushes before it answers a chunk). The file is opened on
+ * the first write.
  */
 export class WorkerSpoolWriter {
   private fd: number | null = null;
-  private size = 0;
+  /** Bytes in the file. */
+  private written = 0;
+  private readonly buffer = Buffer.allocUnsafe(writeBlock);
+  /** Bytes in `buffer`, to be written after `written`. */
+  private pending = 0;
 
   constructor(private readonly folder: string, private readonly id: number) {}
 
   /** Append `text` (UTF-8) and give its place. */
   append(text: string): WorkerSpoolPlace {
-    return this.appendBytes(Buffer.from(text, 'utf8'));
+    return this.appendParts([text]).place;
   }
 
-  /** Append bytes and give their place. */
-  appendBytes(bytes: Uint8Array): WorkerSpoolPlace {
+  /** Append the texts one after another: their place as one, and the length in bytes of each. */
+  appendParts(texts: readonly string[]): { place: WorkerSpoolPlace; lengths: number[] } {
+    const offset = this.written + this.pending;
+    const lengths = texts.map((text) => {
+      // a UTF-16 code unit is at most 3 bytes of UTF-8
+      if (this.pending + 3 * text.length > this.buffer.length) this.flush();
+      if (3 * text.length > this.buffer.length) {
+        const bytes = Buffer.from(text, 'utf8');
+        this.write(bytes, bytes.length);
+        return bytes.length;
+      }
+      const length = this.buffer.write(text, this.pending, 'utf8');
+      this.pending += length;
+      return length;
+    });
+    return { place: { spool: this.id, offset, length: lengths.reduce((sum, length) => sum + length, 0) }, lengths };
+  }
+
+  /** Write what is gathered to the file. */
+  flush(): void {
+    if (this.pending === 0) return;
+    const length = this.pending;
+    this.pending = 0;
+    this.write(this.buffer, length);
+  }
+
+  private write(bytes: Uint8Array, length: number): void {
     if (this.fd === null) this.fd = openSync(spoolPath(this.folder, this.id), 'wx');
-    for (let written = 0; written < bytes.length;) written += writeSync(this.fd, bytes, written, bytes.length - written, this.size + written);
-    const place = { spool: this.id, offset: this.size, length: bytes.length };
-    this.size += bytes.length;
-    return place;
+    for (let done = 0; done < length;) done += writeSync(this.fd, bytes, done, length - done, this.written + done);
+    this.written += length;
   }
 
   close(): void {
+    this.flush();
     if (this.fd !== null) closeSync(this.fd);
     this.fd = null;
   }
@@ -52,6 +85,11 @@ export class WorkerSpoolWriter {
 
 /** Each folder's spool writer of this thread. */
 const threadWriters = new Map<string, WorkerSpoolWriter>();
+
+/** Write what this thread's spools have gathered (a worker, before it answers a chunk). */
+export function flushThreadSpools(): void {
+  for (const writer of threadWriters.values()) writer.flush();
+}
 
 /** This thread's spool in `folder` (one writer per thread and folder, made on first use). */
 export function threadSpool(folder: string): WorkerSpoolWriter {
@@ -95,6 +133,7 @@ export class WorkerSpools {
 
   /** Fill `into` from byte 0 with the bytes of spool `spool` from `offset`, as many as it holds up to into's length; the number read. */
   readUpTo(spool: number, into: Uint8Array, offset: number): number {
+    threadWriters.get(this.folder)?.flush();
     let fd = this.files.get(spool);
     if (fd === undefined) {
       fd = openSync(spoolPath(this.folder, spool), 'r');
