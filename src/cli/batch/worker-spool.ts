@@ -122,7 +122,10 @@ export class WorkerSpools {
   at<T>(place: WorkerSpoolPlace): T {
     if (this.lineBuffer.length < place.length) this.lineBuffer = Buffer.alloc(Math.max(place.length, 2 * this.lineBuffer.length));
     this.read(place.spool, this.lineBuffer, place.offset, place.length);
-    return readSpoolLine<T>(this.lineBuffer.toString('utf8', 0, place.length));
+    const text = this.lineBuffer.toString('utf8', 0, place.length);
+    // spoolLine tags a non-finite number or a string that starts with NUL with a leading NUL,
+    // which JSON writes as \u0000: a line without one parses faster without the reviver
+    return text.includes('\\u0000') ? readSpoolLine<T>(text) : JSON.parse(text) as T;
   }
 
   /** Fill `into` from byte 0 with `length` bytes of spool `spool` from `offset`. */

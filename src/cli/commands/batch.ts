@@ -5,6 +5,7 @@ import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
 import { renderRunText } from '../../core/report/render-text';
 import type { Report, SurveyReport } from '../../core/report/report';
+import type { RunInput } from '../../core/report/run-record';
 import { fitRunSettings } from '../../core/report/run-record';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { readSpecFile } from '../../io/spec';
@@ -81,8 +82,6 @@ export function registerBatch(program: Command, context: CommandContext): void {
       const stop = watchStopSignals();
       try {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
-        // the files' SHA-256 for the run record, read on this thread while the workers fit
-        const hashing = describeFiles(files);
         // surveys go to spools on disk as they are fitted, each worker writing its own (for the
         // JSON report and the pages), as does what the summary and the fleet history need (the
         // collector keeps their places): memory stays flat in the number of files
@@ -97,9 +96,12 @@ export function registerBatch(program: Command, context: CommandContext): void {
           let uncoiled = 0;
           // each survey's JSON text in the spools, in report order
           const jsonPlaces: SurveyJsonPlace[] = [];
+          // the files' SHA-256 for the run record, from the bytes each worker read
+          const inputs: (RunInput | undefined)[] = new Array(files.length);
           // each page's surveys (pageKey) in the spools, in report order
           const pagePlaces = new Map<string, WorkerSpoolPlace[]>();
           const result = await runBatchInOrder(files, run, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
+            if (outcome.input !== undefined) inputs[outcome.index] = outcome.input;
             const digests = collector.add(outcome);
             reportUnappliedSpecs({ surveys: digests.map((digest) => digest.head) });
             for (const digest of digests) {
@@ -114,7 +116,7 @@ export function registerBatch(program: Command, context: CommandContext): void {
           const summary = collector.report();
           // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
           const fleet = summary.fleet === undefined ? undefined : { ...summary.fleet, unreadable: [...unusable, ...summary.fleet.unreadable] };
-          const extra = { run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
+          const extra = { run: cliRunRecord('batch', time, await withInputs(files, inputs), runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
           const report: Report = { ...summary, ...(fleet ? { fleet } : {}), ...extra };
           const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
@@ -184,6 +186,13 @@ function readSeconds(text: string | undefined, option: string, least: number, mo
     throw new RingfallError('OPTION_VALUE', `${option}: "${text}" is not usable. Give seconds from ${least} to ${most}, e.g. ${example}.`, { value: text, where: option });
   }
   return seconds;
+}
+
+/** Every file's run-record entry: the workers' (`inputs`, by file), and for a file a worker did not read (a stopped run, a file that could not be read) read here. */
+async function withInputs(files: readonly string[], inputs: readonly (RunInput | undefined)[]): Promise<RunInput[]> {
+  const missing = files.filter((_, i) => inputs[i] === undefined);
+  const read = (await describeFiles(missing)).values();
+  return files.map((_, i) => inputs[i] ?? read.next().value!);
 }
 
 /** The spool key of a survey's page: its coil, or a page of its own when it has no coil id (numbered in report order). */
