@@ -1,5 +1,5 @@
 import { fleetHistory, type FleetSurvey } from '../../core/analysis/fleet/fleet-history';
-import type { FleetSummary, Report, SurveyReport } from '../../core/report/report';
+import type { FleetCoil, FleetSummary, Report, SurveyReport } from '../../core/report/report';
 import { exitStatus, worseStatus } from '../exit-codes';
 import type { BatchSettings } from './batch-settings';
 import type { FileOutcome, UnreadableEntry } from './batch-types';
@@ -22,8 +22,10 @@ interface CoilPlaces {
  * fits of physical models and spec models without per-reading points, covariance or
  * warnings) and its summary row are in a spool on disk (the worker's, survey-digest.ts);
  * memory keeps only the places of the history parts and of each coil's latest row (three
- * numbers a survey) and each coil's latest date. So a run over 50,000 files holds a few MB while its workers fit; the fleet section
- * is made at the end (`report`), coil by coil, from what the spool gives back.
+ * numbers a survey) and each coil's latest date, and each coil's history once made. A
+ * coil's history is made from what the spool gives back when the next survey is another
+ * coil's (so mostly while the workers fit), and again at the end (`report`) for a coil
+ * that had more surveys after that.
  */
 export class FleetCollector {
   /** Coils by id, in order of first appearance (the fleet section's order). */
@@ -34,6 +36,9 @@ export class FleetCollector {
   private readonly specModels: ReadonlySet<string>;
   private surveys = 0;
   private status: number = exitStatus.passed;
+  /** Coil histories made so far (historyOf), and the coil of the last survey taken. */
+  private readonly histories = new Map<string, { readonly surveys: number; readonly history: FleetCoil }>();
+  private lastCoil: string | null = null;
 
   constructor(private readonly settings: BatchSettings, private readonly spool: WorkerSpools) {
     this.specModels = new Set(settings.specs.map((spec) => spec.model));
@@ -52,6 +57,11 @@ export class FleetCollector {
         this.uncoiled.push(digest.row);
         continue;
       }
+      // a fleet's files usually hold a coil's surveys one after another: when the coil changes,
+      // the last one's history is made now, while the workers fit, not after them (it is made
+      // again at the end if more of its surveys come)
+      if (this.lastCoil !== null && this.lastCoil !== id) this.historyOf(this.lastCoil, this.coils.get(this.lastCoil)!);
+      this.lastCoil = id;
       const coil = this.coils.get(id);
       if (coil === undefined) {
         this.coils.set(id, { history: [digest.history], latest: { date, row: digest.row } });
@@ -61,6 +71,20 @@ export class FleetCollector {
       }
     }
     return digests;
+  }
+
+  /**
+   * The fleet history of one coil (fleetHistory of its surveys alone), kept with the number
+   * of surveys it covers so that it is made again only when more came.
+   */
+  private historyOf(coil: string, places: CoilPlaces): { readonly surveys: number; readonly history: FleetCoil } {
+    const made = this.histories.get(coil);
+    if (made !== undefined && made.surveys === places.history.length) return made;
+    const history = fleetHistory(places.history.map((place) => this.spool.at<FleetSurvey>(place)), { specs: this.settings.specs }).coils;
+    if (history.length !== 1 || history[0]!.coil !== coil) throw new Error(`batch: the history of coil ${coil} came back as ${history.length} coils`);
+    const entry = { surveys: places.history.length, history: history[0]! };
+    this.histories.set(coil, entry);
+    return entry;
   }
 
   /** Surveys taken so far. */
@@ -81,11 +105,7 @@ export class FleetCollector {
    */
   report(): Report {
     const uncoiled = this.uncoiled.map((place) => this.spool.at<SurveyReport>(place));
-    const coils = [...this.coils].map(([coil, places]) => {
-      const history = fleetHistory(places.history.map((place) => this.spool.at<FleetSurvey>(place)), { specs: this.settings.specs }).coils;
-      if (history.length !== 1 || history[0]!.coil !== coil) throw new Error(`batch: the history of coil ${coil} came back as ${history.length} coils`);
-      return history[0]!;
-    });
+    const coils = [...this.coils].map(([coil, places]) => this.historyOf(coil, places).history);
     const rest = fleetHistory(uncoiled.map(historyOfUncoiled), { specs: this.settings.specs, unreadable: this.unreadable });
     const fleet: FleetSummary = { ...rest, coils };
     const surveys = [...[...this.coils.values()].map((places) => this.spool.at<SurveyReport>(places.latest.row)), ...uncoiled];
