@@ -1,5 +1,4 @@
 import { mkdirSync, rmSync } from 'node:fs';
-import { join } from 'node:path';
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
@@ -107,7 +106,9 @@ export function registerBatch(program: Command, context: CommandContext): void {
             for (const digest of digests) {
               if (digest.line !== undefined) {
                 const key = pageKey(digest.head, () => uncoiled++);
-                pagePlaces.set(key, [...pagePlaces.get(key) ?? [], digest.line]);
+                const list = pagePlaces.get(key);
+                if (list === undefined) pagePlaces.set(key, [digest.line]);
+                else list.push(digest.line);
               }
               if (digest.json !== undefined) jsonPlaces.push(digest.json);
             }
