@@ -32,6 +32,9 @@ export class JsonReportStream {
   private started = false;
   private surveys = 0;
   private pending = '';
+  /** Bytes waiting to be written before `pending` (surveyBytes). */
+  private bytes: Uint8Array[] = [];
+  private byteCount = 0;
   private readonly toJson: (report: Report) => Record<string, unknown>;
 
   constructor(private readonly sink: TextSink, toJson: (report: Report) => object = toJsonReport, private readonly backpressure: SinkBackpressure = () => null) {
@@ -52,6 +55,22 @@ export class JsonReportStream {
     await this.start();
     await this.put(`${this.surveys === 0 ? '\n' : ',\n'}    ${indent(text, '    ')}`);
     this.surveys += 1;
+  }
+
+  /**
+   * surveyText for a survey given as bytes: the UTF-8 of its text with every line after the
+   * first indented by 4 spaces (`indent(text, '    ')`), in pieces (batch's workers make
+   * them, batch/survey-json.ts). The pieces are kept, not copied, until they are written:
+   * they must not change after the call. Only for a sink that takes bytes too (stdout does).
+   */
+  async surveyBytes(pieces: readonly Uint8Array[]): Promise<void> {
+    await this.start();
+    await this.put(`${this.surveys === 0 ? '\n' : ',\n'}    `);
+    this.bytes.push(Buffer.from(this.pending, 'utf8'), ...pieces);
+    this.pending = '';
+    this.surveys += 1;
+    for (const piece of pieces) this.byteCount += piece.byteLength;
+    if (this.byteCount >= writeSize) await this.flush();
   }
 
   /** Close the survey list and write the keys after it (`rest` is the report without its surveys), then `extra`; every byte is handed to the sink. */
@@ -94,6 +113,17 @@ export class JsonReportStream {
   }
 
   private async flush(): Promise<void> {
+    if (this.bytes.length > 0) {
+      // bytes from surveyBytes, then the text after them, in one write
+      const bytes = Buffer.concat([...this.bytes, Buffer.from(this.pending, 'utf8')]);
+      this.bytes = [];
+      this.byteCount = 0;
+      this.pending = '';
+      (this.sink as unknown as { write(bytes: Uint8Array): unknown }).write(bytes);
+      const wait = this.backpressure();
+      if (wait !== null) await wait;
+      return;
+    }
     if (this.pending === '') return;
     const text = this.pending;
     this.pending = '';
