@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { getModel } from './index';
 import type { FieldModel, SurveyPoints } from './field-model';
 import { halfValueRadius } from './half-value-radius';
-import { radialDistance } from './initial-guess';
+import { radialDistance, readingSign } from './initial-guess';
+import { medianOf } from '../numeric/order-statistics';
 import { fitLeastSquares } from '../fit/engine/least-squares';
 import { fieldModelProblem } from '../fit/strategy/field-model-problem';
 import { expectClose } from '../../../test/support/expect-close';
@@ -100,4 +101,23 @@ describe('initialGuess()', () => {
       truth.forEach((value, j) => expectClose(fit.params[j]!, value, { rel: 1e-5, abs: 1e-9 }, `${id} ${model.parameters[j]!.name}`));
     });
   }
+
+  it('readingSign() is the sign of the median of the finite readings, counted without sorting', () => {
+    // the definition: the median of the sorted finite values (medianOf), an independent method
+    const cases = [[1, -2, 3], [-1, -2, 3], [-1, 2, -0.5, 0.25], [-3, 2, -0.5, 1], [-0, 0, -1, 1], [0, -0], [], [NaN, -1], [-1, 1], [-1, Infinity, 0.5, -2]];
+    let state = 7;
+    for (let c = 0; c < 200; c++) {
+      const values: number[] = [];
+      for (let i = 0; i < 1 + (c % 9); i++) {
+        state = (state * 1103515245 + 12345) % 2147483648;
+        values.push(Math.round((state / 2147483648 - 0.45) * 8) / 4);
+      }
+      cases.push(values);
+    }
+    for (const values of cases) {
+      const points: SurveyPoints = { n: values.length, distance: new Float64Array(values.length), radial: new Float64Array(values.length), field: Float64Array.from(values), kind: 'axial' };
+      expect(readingSign(points), JSON.stringify(values)).toBe(medianOf(points.field) < 0 ? -1 : 1);
+      expect(readingSign({ ...points, kind: 'magnitude' })).toBe(1);
+    }
+  });
 });

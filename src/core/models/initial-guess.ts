@@ -1,10 +1,33 @@
 import type { FieldModel, SurveyPoints } from './field-model';
 import { brentMinimum } from '../numeric/brent-minimum';
-import { medianOf } from '../numeric/order-statistics';
 
-/** Sign of the median reading: −1 when most signed (axial) readings are negative, else +1. */
+/**
+ * Sign of the median reading: −1 when most signed (axial) readings are negative, else +1.
+ * The median of the finite readings (medianOf) is negative exactly when more than half of
+ * them are, or, for an even count with exactly half negative, when the mean of the largest
+ * negative and the smallest non-negative one is: counted in one pass, no copy or sort (every
+ * model's start asks for it).
+ */
 export function readingSign(points: SurveyPoints): 1 | -1 {
-  return points.kind === 'axial' && medianOf(points.field) < 0 ? -1 : 1;
+  if (points.kind !== 'axial') return 1;
+  let count = 0;
+  let negative = 0;
+  let largestNegative = -Infinity;
+  let smallestOther = Infinity;
+  for (let i = 0; i < points.field.length; i++) {
+    const v = points.field[i]!;
+    if (!Number.isFinite(v)) continue;
+    count += 1;
+    if (v < 0) {
+      negative += 1;
+      if (v > largestNegative) largestNegative = v;
+    } else if (v < smallestOther) {
+      smallestOther = v;
+    }
+  }
+  const middle = count >> 1;
+  if (count % 2 === 1 || negative !== middle) return negative > middle ? -1 : 1;
+  return 0.5 * (largestNegative + smallestOther) < 0 ? -1 : 1;
 }
 
 /**
