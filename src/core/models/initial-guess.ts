@@ -150,12 +150,26 @@ export function scanSize(
     }
   }
   if (hint !== undefined && hint > 0 && Number.isFinite(hint)) consider(hint);
-  // Brent's method on ln(size) within one grid step either side, from the best candidate
-  const refined = Math.exp(brentMinimum((x) => misfit(Math.exp(x)), Math.log(bestSize / ratio), Math.log(bestSize * ratio), 1e-6, SIZE_REFINE, Math.log(bestSize), bestCost));
-  const refinedCost = misfit(refined);
+  // Brent's method on ln(size) within one grid step either side, from the best candidate.
+  // It returns the point of least misfit it evaluated (the later one on a tie), which is
+  // kept with its amplitude here rather than evaluated again.
+  let keptLog = NaN;
+  let keptCost = bestCost;
+  let keptAmplitude = bestAmplitude;
+  const refinedLog = brentMinimum((x) => {
+    const cost = misfit(Math.exp(x));
+    if (cost <= keptCost) {
+      keptLog = x;
+      keptCost = cost;
+      keptAmplitude = amplitude;
+    }
+    return cost;
+  }, Math.log(bestSize / ratio), Math.log(bestSize * ratio), 1e-6, SIZE_REFINE, Math.log(bestSize), bestCost);
+  const refined = Math.exp(refinedLog);
+  const refinedCost = refinedLog === keptLog ? keptCost : misfit(refined);
   if (refinedCost <= bestCost) {
     bestSize = refined;
-    bestAmplitude = amplitude;
+    bestAmplitude = refinedLog === keptLog ? keptAmplitude : amplitude;
   }
   const result = new Float64Array(model.parameters.length);
   shape(bestSize, result);

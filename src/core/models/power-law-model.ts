@@ -132,9 +132,18 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       const sign = readingSign(points);
       const line = free ? logLogLine(points.distance, points.field) : null;
       const exponent = fixedExponent ?? (line !== null && -line.slope > 0 ? -line.slope : 2);
-      const amplitude = line !== null && -line.slope > 0
-        ? Math.exp(line.intercept)
-        : medianOf(points.distance.map((d, i) => (d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN)));
+      let amplitude: number;
+      if (line !== null && -line.slope > 0) {
+        amplitude = Math.exp(line.intercept);
+      } else {
+        // |B|·d^n per reading by a loop (TypedArray map calls back per entry); NaN where d ≤ 0
+        const scaled = new Float64Array(points.distance.length);
+        for (let i = 0; i < scaled.length; i++) {
+          const d = points.distance[i]!;
+          scaled[i] = d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN;
+        }
+        amplitude = medianOf(scaled);
+      }
       const start = Number.isFinite(amplitude) && amplitude > 0 ? sign * amplitude : sign * 1e-6;
       return free ? Float64Array.of(start, exponent, 0, 0) : Float64Array.of(start, 0, 0);
     },

@@ -48,7 +48,8 @@ export interface ProfileStart {
  * (1/σ², or 1). Returns the start unchanged (scanned false) when nothing applies, and
  * never a start worse than the one given.
  *
- * @param sigma σᵢ (T) or null for equal weights; lower, upper the fit's box (model order).
+ * @param sigma σᵢ (T) or null for equal weights; lower, upper the fit's box (model order);
+ *   predicted the model's prediction at `start` when the caller has it (saves evaluating it again).
  */
 export function profileStart(
   model: FieldModel,
@@ -58,6 +59,7 @@ export function profileStart(
   lower: readonly number[],
   upper: readonly number[],
   sigma: ArrayLike<number> | null,
+  predicted: ArrayLike<number> | null = null,
 ): ProfileStart {
   const specs = model.parameters;
   // Every catalog model's reading is linear in its amplitude (Biot–Savart is linear in the current).
@@ -72,7 +74,8 @@ export function profileStart(
   const freeBackground = background >= 0 && !fixed[background];
   const freeExponent = exponent >= 0 && !fixed[exponent];
   const sign = amplitude >= 0 && start[amplitude]! < 0 ? -1 : 1;
-  const honest = chiSquareAt(model, points, start, shape, sigma);
+  if (predicted === null) model.evaluate(start, points, shape);
+  const honest = chiSquareOf(points, predicted ?? shape, sigma);
   const freeOffset = offset >= 0 && !fixed[offset] && lower[offset]! < upper[offset]!;
   if (!freeOffset && !freeAmplitude && !freeBackground) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
 
@@ -158,6 +161,11 @@ export function profileStart(
 /** Weighted χ² of the model at θ (Infinity when any prediction is not finite). `out` is scratch. */
 function chiSquareAt(model: FieldModel, points: SurveyPoints, theta: Float64Array, out: Float64Array, sigma: ArrayLike<number> | null): number {
   model.evaluate(theta, points, out);
+  return chiSquareOf(points, out, sigma);
+}
+
+/** Weighted χ² of a prediction (Infinity when any entry is not finite). */
+function chiSquareOf(points: SurveyPoints, out: ArrayLike<number>, sigma: ArrayLike<number> | null): number {
   let sum = 0;
   for (let i = 0; i < points.n; i++) {
     const r = (points.field[i]! - out[i]!) / (sigma === null ? 1 : sigma[i]!);

@@ -64,15 +64,18 @@ export function searchModelFit(
     if (fixed[j]) initial[j] = fixedValues[p.name]!;
   });
   const offsetIndex = specs.findIndex((p) => p.role === 'offset');
-  if (!evaluatesEverywhere(model, initial, points) && offsetIndex >= 0 && !fixed[offsetIndex]) {
+  // The prediction at the start, handed on to profileStart for its χ² there (same values).
+  let predicted: Float64Array | null = scratchArray(points.n, 7);
+  if (!evaluatesEverywhere(model, initial, points, predicted) && offsetIndex >= 0 && !fixed[offsetIndex]) {
     // A power law cannot be evaluated at distance 0: start with the sensing point a little out.
     let nearest = Infinity;
     for (let i = 0; i < points.n; i++) nearest = Math.min(nearest, points.distance[i]!);
     initial[offsetIndex] = Math.max(0, -nearest) + 0.02 * surveyReach(points);
+    predicted = null;
   }
   const problem = fieldModelProblem(model, points);
   const base = leastSquaresOptions(model, points, initial, fixed, options);
-  const profiled = profileStart(model, points, initial, fixed, base.lower as number[], base.upper as number[], readingUncertainty);
+  const profiled = profileStart(model, points, initial, fixed, base.lower as number[], base.upper as number[], readingUncertainty, predicted);
   let start = profiled.initial;
   const edge = profiled.offsetOnBound;
   if (edge >= 0) {
@@ -175,8 +178,9 @@ export function leastSquaresOptions(
   };
 }
 
-function evaluatesEverywhere(model: FieldModel, params: Float64Array, points: SurveyPoints): boolean {
-  const out = scratchArray(points.n, 0);
+/** True when the model's prediction at `params` (written to `out`) is finite at every point. */
+function evaluatesEverywhere(model: FieldModel, params: Float64Array, points: SurveyPoints, out: Float64Array): boolean {
   model.evaluate(params, points, out);
-  return out.every(Number.isFinite);
+  for (let i = 0; i < points.n; i++) if (!Number.isFinite(out[i]!)) return false;
+  return true;
 }
