@@ -79,8 +79,9 @@ export function profileStart(
   const freeOffset = offset >= 0 && !fixed[offset] && lower[offset]! < upper[offset]!;
   if (!freeOffset && !freeAmplitude && !freeBackground) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
 
+  // ln|B| for the log–log slope, read only when the exponent is free.
   const logField = scratchArray(n, 1);
-  for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
+  if (freeExponent) for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
   // The weights 1/σ², worked out once for every offset tried.
   const weights = scratchArray(n, 2);
   for (let i = 0; i < n; i++) {
@@ -245,9 +246,16 @@ function solveLinear(
   if (freeAmplitude) theta[amplitude] = a;
   if (background >= 0) theta[background] = b;
   let chi = 0;
+  if (sigma === null) {
+    // the division by σ = 1 left out (x / 1 is x)
+    for (let i = 0; i < points.n; i++) {
+      const r = points.field[i]! - a * shape[i]! - b;
+      chi += r * r;
+    }
+    return chi;
+  }
   for (let i = 0; i < points.n; i++) {
-    const s = sigma === null ? 1 : sigma[i]!;
-    const r = (points.field[i]! - a * shape[i]! - b) / s;
+    const r = (points.field[i]! - a * shape[i]! - b) / sigma[i]!;
     chi += r * r;
   }
   return chi;
