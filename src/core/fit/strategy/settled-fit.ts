@@ -56,10 +56,19 @@ export function settledFit(
     const j = fit.freeIndices[c]!;
     let dot = 0;
     let column = 0;
-    for (let i = 0; i < n; i++) {
-      const a = jacobian[i * k + c]!;
-      dot += (a * fit.residuals[i]!) / (sigma === null ? 1 : sigma[i]!);
-      column += a * a;
+    if (sigma === null) {
+      // the division by σ = 1 left out (x / 1 is x)
+      for (let i = 0, at = c; i < n; i++, at += k) {
+        const a = jacobian[at]!;
+        dot += a * fit.residuals[i]!;
+        column += a * a;
+      }
+    } else {
+      for (let i = 0, at = c; i < n; i++, at += k) {
+        const a = jacobian[at]!;
+        dot += (a * fit.residuals[i]!) / sigma[i]!;
+        column += a * a;
+      }
     }
     if (fit.atBound[j] === true) {
       // dχ²/dθⱼ = −2·dot (residuals are y − f): at the upper bound it must be ≤ 0, at the lower ≥ 0.
