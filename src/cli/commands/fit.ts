@@ -148,12 +148,14 @@ export const fitWorkersFrom = 200;
 /**
  * Worker threads for `fit --json` on `files` files on a machine with `cores` cores: all of
  * them (as batch) from fitWorkersFrom files on when there are more than two, else 1 (fit on
- * the main thread). Measured on 2 cores, 10,000 thirty-reading files, `--model loop`
- * (DEVELOPERS.md): two workers took 0.7–1.3× the main thread's wall time for 1.5–1.9× its
- * CPU (each worker loads and warms up the code again, and again when recycled) and
- * 230–270 MB peak RSS against 140–190 MB, past the 200 MB target; so two cores fit on one
- * thread. --html, --csv and the text report need the whole report in hand and are always
- * made on the main thread.
+ * the main thread). Measured on 2 cores, 10,000 thirty-reading files, `--model loop`, dist
+ * (DEVELOPERS.md). With the spool: two workers took 0.7–1.3× the main thread's wall time for
+ * 1.5–1.9× its CPU. Without it (the main thread only hashes and writes; load 4.9–5.5 from
+ * other work): one thread 2.4–4.2 s wall, 2.7–2.8 s CPU, 143–149 MB peak RSS; two workers
+ * 4.1–10.5 s wall, 6.8–7.7 s CPU, 228–248 MB (each worker loads and warms up the code again,
+ * and again when recycled every 2,000 files; not recycled: 4.5–5.5 s wall, 4.7–4.8 s CPU,
+ * 265–274 MB), past the 200 MB target too; so two cores fit on one thread. --html, --csv
+ * and the text report need the whole report in hand and are always made on the main thread.
  */
 export function fitWorkers(files: number, cores: number = availableParallelism()): number {
   return files >= fitWorkersFrom && cores > 2 ? cores : 1;
