@@ -104,9 +104,6 @@ export class SurveyImporter {
       defaults: layout.defaults,
       collector: new SurveyCollector({ source: this.options.source, fieldKind: columnLayout.fieldKind, distanceAxis: columnLayout.distanceAxis, radialAxis: columnLayout.radialAxis, meta: layout.meta, fileNotes: layout.detection.notes, units: columnLayout.units }),
     };
-    const config = { delimiter: layout.delimiter, newline: layout.preamble.newline };
-    this.stepParser = new Papa.Parser({ ...config, step: (results: StepResults) => this.stepRow(results) } as Papa.ParseConfig);
-    this.bulkParser = new Papa.Parser(config);
     this.line = layout.preamble.headerLine + 1;
     const rest = this.pending.slice(layout.preamble.dataOffset);
     this.pending = '';
@@ -130,11 +127,12 @@ export class SurveyImporter {
   /** Parse complete rows (all rows when `ignoreLastRow` is false); returns the cursor after the last one. */
   private parse(text: string, ignoreLastRow: boolean): number {
     const quoted = text.indexOf('"') !== -1;
-    if (!quoted || ignoreLastRow) {
-      const result = (this.bulkParser as Papa.Parser).parse(text, 0, ignoreLastRow) as { data: string[][]; meta: { cursor: number } };
+    if (!quoted) return this.parseUnquoted(text, ignoreLastRow);
+    if (ignoreLastRow) {
+      const result = this.parser('bulk').parse(text, 0, ignoreLastRow) as { data: string[][]; meta: { cursor: number } };
       // Without quotes papaparse's fast mode splits on line breaks; with quotes, rows are still
       // one per line when the rows and the line breaks they span are equal in number.
-      if (!quoted || countBreaks(text, (this.layout as FileLayout).preamble.newline, result.meta.cursor) === result.data.length) {
+      if (countBreaks(text, (this.layout as FileLayout).preamble.newline, result.meta.cursor) === result.data.length) {
         for (const cells of result.data) {
           this.take(cells, this.line, false, this.line);
           this.line += 1;
@@ -144,9 +142,40 @@ export class SurveyImporter {
     }
     this.chunkText = text;
     this.chunkCursor = 0;
-    const cursor = (this.stepParser as Papa.Parser).parse(text, 0, ignoreLastRow).meta.cursor as number;
+    const cursor = this.parser('step').parse(text, 0, ignoreLastRow).meta.cursor as number;
     this.chunkText = '';
     return cursor;
+  }
+
+  /**
+   * Rows of text without a quote: one per line, cells split on the delimiter. This is
+   * papaparse's fast mode (papaparse.js, Parser.parse: split on the newline, then each row
+   * on the delimiter; with `ignoreLastRow` the text after the last newline waits), done
+   * here without building papaparse's row list; the cursor is the end of the last row taken.
+   */
+  private parseUnquoted(text: string, ignoreLastRow: boolean): number {
+    if (text === '') return 0;
+    const { delimiter, preamble: { newline } } = this.layout as FileLayout;
+    let start = 0;
+    for (;;) {
+      const end = text.indexOf(newline, start);
+      if (end === -1) {
+        if (ignoreLastRow) return start;
+        this.take(text.slice(start).split(delimiter), this.line, false, this.line);
+        this.line += 1;
+        return text.length;
+      }
+      this.take(text.slice(start, end).split(delimiter), this.line, false, this.line);
+      this.line += 1;
+      start = end + newline.length;
+    }
+  }
+
+  /** papaparse's Parser for quoted text, made when first needed: 'bulk' gives all rows at once, 'step' one by one with their cursor. */
+  private parser(kind: 'bulk' | 'step'): Papa.Parser {
+    const config = { delimiter: (this.layout as FileLayout).delimiter, newline: (this.layout as FileLayout).preamble.newline };
+    if (kind === 'bulk') return (this.bulkParser ??= new Papa.Parser(config));
+    return (this.stepParser ??= new Papa.Parser({ ...config, step: (results: StepResults) => this.stepRow(results) } as Papa.ParseConfig));
   }
 
   /** A row from the step parser: count the line breaks it spans to keep physical line numbers. */
