@@ -3,8 +3,7 @@ import type { RunInput } from '../core/report/run-record';
 import { readProblemNote } from './fit-file';
 import { readSurveyBytes } from './read-survey-bytes';
 import { describeBytes, unreadableInput } from './run-record';
-import type { StopSignals } from './stop-signals';
-import { yieldToEvents } from './stop-signals';
+import { yieldToEvents, type StopSignals } from './stop-signals';
 
 /** A file of a `fit --json` run after the first pass (hashRunFiles). */
 export interface HashedFile {

@@ -101,7 +101,8 @@ export function registerFit(program: Command, context: CommandContext): void {
  * record, with every file's hash, comes before the surveys in the report), then the head
  * of the report is written and each file is fitted and its surveys written at once (on
  * this thread, or on workers: fitWorkers). Problem lines, the stop line and the unapplied
- * specs go to stderr as fit always wrote them; a run that gave no survey prints no report.
+ * specs go to stderr as fit always wrote them, once the report is closed; a run that gave
+ * no survey prints no report.
  * A stopped run's `inputs` lists every file hashed in the first pass, fitted or not
  * (`partial.filesDone` says how many were fitted); a stop during the first pass fits none.
  */
@@ -116,15 +117,16 @@ export async function printJsonReport(paths: readonly string[], options: FitComm
     if (workers > 1) await fitJsonOnWorkers(first.files, options, specs, stop, out, workers);
     else await fitJsonOnThread(first.files, options, specs, stop, out);
   }
+  const signal = stop.signal;
+  // the report is closed first, so stderr lines never land inside it when both streams go to one place
+  if (out.surveyCount > 0) await out.finish(signal === null ? {} : { partial: { filesDone: out.filesDone, filesTotal: paths.length, signal } });
   for (const problem of out.problems) stderr.write(`ringfall: ${printable(problem)}\n`);
   if (out.problems.length > 0) context.setExitCode(2);
-  const signal = stop.signal;
   if (signal !== null) {
     stderr.write(`ringfall: ${signal}: stopped after ${out.filesDone} of ${paths.length} files; the report covers those only.\n`);
     context.setExitCode(stoppedStatus(signal));
   }
   if (out.surveyCount === 0) return out;
-  await out.finish(signal === null ? {} : { partial: { filesDone: out.filesDone, filesTotal: paths.length, signal } });
   reportUnappliedSpecs({ surveys: out.unapplied }, stderr);
   context.setExitCode(out.status);
   return out;
