@@ -121,6 +121,8 @@ export async function fitJsonOnWorkers(
     if (fit.problem !== null) out.problems.push(first.problem ?? fit.problem);
     out.rejected.push(...fit.rejected);
     writing = writing.then(() => out.add(fit));
+    // a failed write is thrown by the await below, not reported first as an unhandled rejection
+    writing.catch(() => undefined);
   });
   await writing;
   if (broken !== null) throw new Error(broken);
