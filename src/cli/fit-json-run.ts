@@ -10,7 +10,7 @@ import { runBatchInOrder } from './batch/run-batch';
 import { exitStatus, worseStatus } from './exit-codes';
 import { fitSurveyText, surveyTexts, type FitFileTexts } from './fit-file';
 import type { FitCommandOptions } from './fit-options';
-import { changedProblem, pauseEveryMs, sameInput, secondPassBytes, type HashedFile } from './hash-run-files';
+import { changedProblem, pauseEveryMs, sameInput, type FirstPass } from './hash-run-files';
 import { JsonReportStream, stdoutBackpressure, type ByteSink, type SinkBackpressure } from './json-report-stream';
 import type { SkippedFiles } from './skip-list';
 import { yieldToEvents, type StopSignals } from './stop-signals';
@@ -35,10 +35,12 @@ export class FitJsonOutput {
   /** Files fitted (or found unusable) so far, in file order but for a stopped worker run's gaps. */
   filesDone = 0;
   private readonly stream: JsonReportStream;
+  /** The report without its surveys; the run record goes once the head is written (only the keys after the surveys are needed then). */
+  private rest: Omit<Report, 'surveys'>;
 
   constructor(run: RunRecord, skipped: readonly SkippedFiles[], sink: ByteSink = process.stdout, backpressure: SinkBackpressure | undefined = sink === process.stdout ? stdoutBackpressure : undefined) {
-    const rest: Omit<Report, 'surveys'> = { rejected: this.rejected, run, ...(skipped.length > 0 ? { skipped: [...skipped] } : {}) };
-    this.stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...rest }), backpressure, { bytes: true });
+    this.rest = { rejected: this.rejected, run, ...(skipped.length > 0 ? { skipped: [...skipped] } : {}) };
+    this.stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...this.rest }), backpressure, { bytes: true });
   }
 
   /** Surveys written so far: none means no report is printed (as when no file gave a survey). */
@@ -49,6 +51,8 @@ export class FitJsonOutput {
   /** A file's surveys as text (fitFileTexts or surveyTexts), written now in file order. */
   async add(texts: Pick<FitFileTexts, 'json' | 'status' | 'unapplied'>): Promise<void> {
     for (const text of texts.json) await this.stream.surveyJson(text);
+    // the head is out: let the run record (an entry per file) go
+    if (this.rest.run !== undefined && this.stream.surveyCount > 0) this.rest = { rejected: this.rejected, ...(this.rest.skipped === undefined ? {} : { skipped: this.rest.skipped }) };
     this.status = worseStatus(this.status, texts.status);
     this.unapplied.push(...texts.unapplied);
   }
@@ -61,25 +65,25 @@ export class FitJsonOutput {
 
 /**
  * The second pass of `fit --json` on this thread: each file's kept bytes (or the file read
- * again and checked against its hash: secondPassBytes) imported, fitted and written to
+ * again and checked against its hash: FirstPass.take) imported, fitted and written to
  * `out` at once, in file order. Pauses for events every few milliseconds; a stop signal
  * ends the run after the file in hand (`out.filesDone` says how far it came).
  */
-export async function fitJsonOnThread(files: HashedFile[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'signal'>, out: FitJsonOutput): Promise<void> {
+export async function fitJsonOnThread(paths: readonly string[], files: FirstPass, options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'signal'>, out: FitJsonOutput): Promise<void> {
   const settings: SurveyAnalysisSettings = { fit: options.fit, specs, thresholds: options.thresholds };
   let paused = performance.now();
-  for (const file of files) {
+  for (const [index, path] of paths.entries()) {
     if (performance.now() - paused >= pauseEveryMs) {
       await yieldToEvents();
       paused = performance.now();
     }
     if (stop.signal !== null) return;
-    const read = secondPassBytes(file);
+    const read = files.take(index);
     if ('problem' in read) {
       out.problems.push(read.problem);
     } else {
       try {
-        await out.add(surveyTexts(fitSurveyText(file.input.name, read.bytes.toString('utf8'), options.import, settings, out.rejected)));
+        await out.add(surveyTexts(fitSurveyText(path, read.bytes.toString('utf8'), options.import, settings, out.rejected)));
       } catch (error) {
         if (!isRingfallError(error)) throw error;
         out.problems.push(error.message);
@@ -99,26 +103,25 @@ export async function fitJsonOnThread(files: HashedFile[], options: FitCommandOp
  * RingfallError) ends the run as an internal error, as it would on one thread.
  */
 export async function fitJsonOnWorkers(
-  files: readonly HashedFile[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'onStop'>, out: FitJsonOutput, workers: number,
+  paths: readonly string[], files: FirstPass, options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'onStop'>, out: FitJsonOutput, workers: number,
 ): Promise<void> {
   const settings: BatchSettings = { fit: options.fit, specs, thresholds: options.thresholds, import: options.import, keepPoints: true, fitTexts: true };
   let broken: string | null = null;
   // writing waits for stdout; outcomes come in order, so each write starts after the one before
   let writing: Promise<void> = Promise.resolve();
   const silent = { write: () => true };
-  const result = await runBatchInOrder(files.map((file) => file.input.name), settings, { workers, progress: silent, stop }, (outcome) => {
+  const result = await runBatchInOrder(paths, settings, { workers, progress: silent, stop }, (outcome) => {
     const fit = outcome.fit;
     if (fit === undefined) {
       broken ??= outcome.unreadable.map((entry) => entry.reason).join(' ') || `${outcome.source}: not fitted`;
       return;
     }
-    const first = files[outcome.index]!;
     const input = fit.inputs[0];
-    if (input === undefined || !sameInput(input, first.input)) {
-      out.problems.push(changedProblem(first.input.name));
+    if (input === undefined || !sameInput(input, files.input(outcome.index))) {
+      out.problems.push(changedProblem(outcome.source));
       return;
     }
-    if (fit.problem !== null) out.problems.push(first.problem ?? fit.problem);
+    if (fit.problem !== null) out.problems.push(files.problem(outcome.index) ?? fit.problem);
     out.rejected.push(...fit.rejected);
     writing = writing.then(() => out.add(fit));
     // a failed write is thrown by the await below, not reported first as an unhandled rejection

@@ -1,5 +1,6 @@
 import { execFileSync } from 'node:child_process';
-import { copyFileSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -7,7 +8,7 @@ import type { RunInput, RunRecord } from '../../core/report/run-record';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { readFitFlags } from '../fit-options';
 import { fitJsonOnThread, fitJsonOnWorkers, FitJsonOutput } from '../fit-json-run';
-import { changedProblem, hashRunFiles, secondPassBytes } from '../hash-run-files';
+import { changedProblem, hashRunFiles } from '../hash-run-files';
 import type { StopSignalName } from '../stop-signals';
 import { fitFiles, fitWorkers, printJsonReport } from './fit';
 
@@ -44,7 +45,12 @@ describe('fit --json in two passes (printJsonReport)', () => {
   const whole = fitFiles(files, options);
   const expected = `${JSON.stringify(toJsonReport({ surveys: whole.reports, rejected: whole.rejected, run: runFor(whole.inputs) }), null, 2)}\n`;
 
-  for (const [label, setting] of [['on this thread, bytes kept from the first pass', {}], ['on this thread, every file read again (no bytes kept)', { keepBytes: 0 }], ['on two workers', { workers: 2 }]] as const) {
+  for (const [label, setting] of [
+    ['on this thread, bytes kept from the first pass', {}],
+    ['on this thread, every file read again (no bytes kept)', { keepBytes: 0 }],
+    ['on this thread, the first files kept and the rest read again', { keepBytes: 4000 }],
+    ['on two workers', { workers: 2 }],
+  ] as const) {
     it(`prints ${label} the bytes of one JSON.stringify of the whole report, with the same problems in the same order`, async () => {
       const sink = byteSink();
       const statuses: number[] = [];
@@ -74,11 +80,11 @@ describe('a file that changes between the two passes', () => {
     copyFileSync(healthy, changing);
     const first = await hashRunFiles([changing, healthy], noStop, 0);
     writeFileSync(changing, '# coil: X\ndistance (mm),B (mT)\n0,1\n');
-    expect(secondPassBytes(first.files[0]!)).toEqual({ problem: changedProblem(changing) });
+    expect(first.files.take(0)).toEqual({ problem: changedProblem(changing) });
     expect(changedProblem(changing)).toMatch(/changing\.csv" changed while ringfall ran: .*Run again/);
     const sink = byteSink();
-    const out = new FitJsonOutput(runFor(first.files.map((file) => file.input)), [], sink);
-    await fitJsonOnThread(first.files, options, [], noStop, out);
+    const out = new FitJsonOutput(runFor(first.files.inputs()), [], sink);
+    await fitJsonOnThread([changing, healthy], first.files, options, [], noStop, out);
     expect(out.problems).toEqual([changedProblem(changing)]);
     expect(out.surveyCount).toBe(1);
   });
@@ -87,8 +93,8 @@ describe('a file that changes between the two passes', () => {
     copyFileSync(healthy, changing);
     const first = await hashRunFiles([changing, healthy], noStop, 0);
     writeFileSync(changing, '# coil: X\ndistance (mm),B (mT)\n0,1\n');
-    const out = new FitJsonOutput(runFor(first.files.map((file) => file.input)), [], byteSink());
-    await fitJsonOnWorkers(first.files, options, [], noStop, out, 2);
+    const out = new FitJsonOutput(runFor(first.files.inputs()), [], byteSink());
+    await fitJsonOnWorkers([changing, healthy], first.files, options, [], noStop, out, 2);
     expect(out.problems).toEqual([changedProblem(changing)]);
     expect(out.surveyCount).toBe(1);
   }, 120_000);
@@ -97,8 +103,37 @@ describe('a file that changes between the two passes', () => {
     copyFileSync(healthy, changing);
     const first = await hashRunFiles([changing], noStop);
     rmSync(changing);
-    const read = secondPassBytes(first.files[0]!);
-    expect('bytes' in read && read.bytes.byteLength).toBe(first.files[0]!.input.bytes);
+    const read = first.files.take(0);
+    // reference: the file's bytes as copied, and its entry in the run record
+    expect('bytes' in read && read.bytes.equals(readFileSync(healthy))).toBe(true);
+    expect(first.files.input(0).bytes).toBe(readFileSync(healthy).byteLength);
+  });
+
+  it('a file that cannot be read again is not fitted: its problem line says it was hashed earlier and to run again', async () => {
+    copyFileSync(healthy, changing);
+    const first = await hashRunFiles([changing], noStop, 0);
+    rmSync(changing);
+    expect(first.files.take(0)).toEqual({ problem: expect.stringMatching(/^Cannot read ".*changing\.csv": no such file \(ENOENT\)\..* hashed earlier in this run .*Run again\.$/) });
+  });
+});
+
+describe('the first pass (hashRunFiles)', () => {
+  it('gives back each kept file\'s bytes as read, across 1 MB buffers and in one of its own when larger, and hashes them as node:crypto does', async () => {
+    // sizes chosen around the 1 MB buffers the bytes are copied into
+    const sizes = [600_000, 600_000, 1_500_000, 10, 0];
+    const paths = sizes.map((size, i) => {
+      const path = join(scratch, `bytes-${i}.bin`);
+      writeFileSync(path, Buffer.from(Array.from({ length: size }, (_, j) => (j * 7 + i) % 256)));
+      return path;
+    });
+    const first = await hashRunFiles(paths, noStop);
+    for (const [i, path] of paths.entries()) {
+      const bytes = readFileSync(path);
+      // reference: node:crypto's SHA-256 of the file read whole
+      expect(first.files.input(i)).toEqual({ name: path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.byteLength });
+      const read = first.files.take(i);
+      expect('bytes' in read && read.bytes.equals(bytes)).toBe(true);
+    }
   });
 });
 
@@ -113,7 +148,7 @@ describe('a stop signal during fit --json', () => {
   it('during the first pass stops it at once: no file is fitted and no report printed', async () => {
     const first = await hashRunFiles(fleet, stopAfter(1));
     expect(first.stopped).toBe(true);
-    expect(first.files).toHaveLength(1);
+    expect(first.files.count).toBe(1);
     const sink = byteSink();
     const out = await printJsonReport(fleet, options, [], { stop: stopAfter(0), context: { setExitCode: () => undefined }, runFor, skipped: [], sink, stderr });
     expect(out.filesDone).toBe(0);
@@ -123,8 +158,8 @@ describe('a stop signal during fit --json', () => {
   it('during the second pass ends it after the file in hand: a valid report of the files fitted whose inputs list every file hashed', async () => {
     const first = await hashRunFiles(fleet, noStop);
     const sink = byteSink();
-    const out = new FitJsonOutput(runFor(first.files.map((file) => file.input)), [], sink);
-    await fitJsonOnThread(first.files, options, [], stopAfter(2), out);
+    const out = new FitJsonOutput(runFor(first.files.inputs()), [], sink);
+    await fitJsonOnThread(fleet, first.files, options, [], stopAfter(2), out);
     expect(out.filesDone).toBe(2);
     await out.finish({ partial: { filesDone: out.filesDone, filesTotal: fleet.length, signal: 'SIGTERM' } });
     const report = JSON.parse(sink.text()) as { run: RunRecord; surveys: { source: string }[]; partial: { filesDone: number } };

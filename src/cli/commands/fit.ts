@@ -112,10 +112,10 @@ export async function printJsonReport(paths: readonly string[], options: FitComm
   const workers = run.workers ?? fitWorkers(paths.length);
   // workers read the files again themselves: keep no bytes for them
   const first = await hashRunFiles(paths, stop, workers > 1 ? 0 : run.keepBytes ?? keptBytesBudget);
-  const out = new FitJsonOutput(run.runFor(first.files.map((file) => file.input)), run.skipped, run.sink);
+  const out = new FitJsonOutput(run.runFor(first.files.inputs()), run.skipped, run.sink);
   if (!first.stopped) {
-    if (workers > 1) await fitJsonOnWorkers(first.files, options, specs, stop, out, workers);
-    else await fitJsonOnThread(first.files, options, specs, stop, out);
+    if (workers > 1) await fitJsonOnWorkers(paths, first.files, options, specs, stop, out, workers);
+    else await fitJsonOnThread(paths, first.files, options, specs, stop, out);
   }
   const signal = stop.signal;
   // the report is closed first, so stderr lines never land inside it when both streams go to one place
