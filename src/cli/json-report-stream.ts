@@ -47,8 +47,12 @@ export class JsonReportStream {
   private started = false;
   private surveys = 0;
   private pending = '';
+  /** Bytes waiting to be written before `pending` (surveyBytes). */
+  private bytes: Uint8Array[] = [];
+  private byteCount = 0;
   private readonly toJson: (report: Report) => Record<string, unknown>;
-  private readonly bytes: boolean;
+  /** True for a ByteSink: text is encoded here into `buffer` (see the class comment). */
+  private readonly encodes: boolean;
   private buffer: Buffer | null = null;
   private used = 0;
 
@@ -56,7 +60,7 @@ export class JsonReportStream {
   constructor(sink: ByteSink, toJson: ((report: Report) => object) | undefined, backpressure: SinkBackpressure | undefined, options: { readonly bytes: true });
   constructor(private readonly sink: TextSink | ByteSink, toJson: (report: Report) => object = toJsonReport, private readonly backpressure: SinkBackpressure = () => null, options: { readonly bytes?: boolean } = {}) {
     this.toJson = (report) => toJson(report) as Record<string, unknown>;
-    this.bytes = options.bytes === true;
+    this.encodes = options.bytes === true;
   }
 
   /** Surveys written so far. */
@@ -83,6 +87,28 @@ export class JsonReportStream {
     await this.put(this.surveys === 0 ? '\n' : ',\n');
     await this.put(text);
     this.surveys += 1;
+  }
+
+  /**
+   * surveyText for a survey given as bytes: the UTF-8 of its text with every line after the
+   * first indented by 4 spaces (`indent(text, '    ')`), in pieces (batch's workers make
+   * them, batch/survey-json.ts). The pieces are kept, not copied, until they are written:
+   * they must not change after the call. Only for a sink that takes bytes too (stdout does).
+   */
+  async surveyBytes(pieces: readonly Uint8Array[]): Promise<void> {
+    await this.start();
+    await this.put(`${this.surveys === 0 ? '\n' : ',\n'}    `);
+    this.surveys += 1;
+    if (this.encodes) {
+      // what is encoded so far, then the pieces as they are
+      await this.flush();
+      for (const piece of pieces) await this.hand(piece);
+      return;
+    }
+    this.bytes.push(Buffer.from(this.pending, 'utf8'), ...pieces);
+    this.pending = '';
+    for (const piece of pieces) this.byteCount += piece.byteLength;
+    if (this.byteCount >= writeSize) await this.flush();
   }
 
   /** Close the survey list and write the keys after it (`rest` is the report without its surveys), then `extra`; every byte is handed to the sink. */
@@ -120,7 +146,7 @@ export class JsonReportStream {
   }
 
   private async put(text: string): Promise<void> {
-    if (this.bytes) return this.putBytes(text);
+    if (this.encodes) return this.putBytes(text);
     this.pending += text;
     if (this.pending.length >= writeSize) await this.flush();
   }
@@ -137,13 +163,22 @@ export class JsonReportStream {
   }
 
   private async flush(): Promise<void> {
-    if (this.bytes) {
+    if (this.encodes) {
       const full = this.buffer;
       if (full === null || this.used === 0) return;
       const used = this.used;
       this.buffer = null;
       this.used = 0;
       await this.hand(full.subarray(0, used));
+      return;
+    }
+    if (this.bytes.length > 0) {
+      // bytes from surveyBytes, then the text after them, in one write
+      const bytes = Buffer.concat([...this.bytes, Buffer.from(this.pending, 'utf8')]);
+      this.bytes = [];
+      this.byteCount = 0;
+      this.pending = '';
+      await this.hand(bytes);
       return;
     }
     if (this.pending === '') return;

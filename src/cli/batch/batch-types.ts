@@ -6,6 +6,7 @@ import type { SurveyReport } from '../../core/report/report';
 import type { SurveyDigest } from './survey-digest';
 import type { ProblemCode } from '../../core/error-codes';
 import type { FitFileTexts } from '../fit-file';
+import type { RunInput } from '../../core/report/run-record';
 
 /** One survey file to fit: its place in the sorted file list and its path as found. */
 export interface FileTask {
@@ -32,6 +33,8 @@ export interface FileOutcome {
   readonly unreadable: readonly UnreadableEntry[];
   /** With BatchSettings.fitTexts: the file as `fit --json` reports it (`reports` and `unreadable` are then empty). */
   readonly fit?: FitFileTexts;
+  /** With BatchSettings.digest: the file's run-record entry (SHA-256 and size of the bytes fitted), when it could be read. */
+  readonly input?: RunInput;
 }
 
 /** Main thread → worker: fit these files and answer with one `ChunkDone`. */

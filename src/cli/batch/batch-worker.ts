@@ -4,6 +4,7 @@ import type { ChunkRequest, FileOutcome, FileTask, WorkerMessage } from './batch
 import { failedOutcome } from './failed-outcome';
 import { fitSurveyFile } from './fit-survey-file';
 import { fitFileTexts } from '../fit-file';
+import { flushThreadSpools } from './worker-spool';
 
 /**
  * Fit one chunk of files in a worker: each file's outcome, in the order given. A bug
@@ -27,6 +28,8 @@ if (parentPort !== null) {
   const settings = workerData as BatchSettings;
   port.on('message', (request: ChunkRequest) => {
     const message: WorkerMessage = { kind: 'done', chunk: request.chunk, outcomes: fitChunk(request.files, settings) };
+    // the places sent are readable once the spool is written
+    flushThreadSpools();
     port.postMessage(message);
   });
   port.postMessage({ kind: 'ready' } satisfies WorkerMessage);

@@ -1,5 +1,8 @@
 import { readSurveyBytes } from '../read-survey-bytes';
+import { describeBytes } from '../run-record';
+import type { RunInput } from '../../core/report/run-record';
 import { digestSurvey } from './survey-digest';
+import { threadSpool } from './worker-spool';
 import { isRingfallError } from '../../core/errors';
 import { analyseSurvey } from '../../core/report/analyse-survey';
 import type { SurveyReport } from '../../core/report/report';
@@ -21,12 +24,16 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   const source = task.path;
   const unreadable: UnreadableEntry[] = [];
   let imported;
+  // batch's run record: the hash of the bytes read here, so the main thread need not read the file again
+  let input: { input: RunInput } | Record<string, never> = {};
   try {
-    imported = importSurveys(readSurveyBytes(source).toString('utf8'), { source, ...settings.import });
+    const bytes = readSurveyBytes(source);
+    if (settings.digest !== undefined) input = { input: describeBytes(source, bytes) };
+    imported = importSurveys(bytes.toString('utf8'), { source, ...settings.import });
   } catch (error) {
     const entry = isRingfallError(error) ? { source, reason: error.message, code: error.code } : readFailure(source, error);
     if (entry === null) throw error;
-    return { index: task.index, source, reports: [], unreadable: [entry] };
+    return { index: task.index, source, reports: [], unreadable: [entry], ...input };
   }
   const reports: SurveyReport[] = [];
   for (const survey of imported.surveys) {
@@ -50,7 +57,8 @@ export function fitSurveyFile(task: FileTask, settings: BatchSettings): FileOutc
   if (settings.digest !== undefined) {
     const specModels = new Set<string>(settings.specs.map((spec) => spec.model));
     const parts = settings.digest;
-    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels, parts)), unreadable };
+    const spool = threadSpool(parts.folder);
+    return { index: task.index, source, reports: [], digests: reports.map((report) => digestSurvey(report, specModels, parts, spool)), unreadable, ...input };
   }
   return { index: task.index, source, reports, unreadable };
 }

@@ -1,4 +1,4 @@
-import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -12,8 +12,8 @@ import { FleetCollector } from './fleet-collector';
 import { fitSurveyFile } from './fit-survey-file';
 import { fleetRows } from './fleet-rows';
 import { assembleReport } from './run-batch';
-import { surveyJsonRecord, surveyJsonText } from './survey-json';
-import { SurveySpool } from './survey-spool';
+import { spoolSurveyJson, writeSpooledSurveys } from './survey-json';
+import { WorkerSpools } from './worker-spool';
 
 const scratch = mkdtempSync(join(tmpdir(), 'ringfall-collector-test-'));
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
@@ -41,7 +41,9 @@ describe('FleetCollector', () => {
   // reference: the fleet section of every survey at once (assembleReport: fleetHistory over
   // all reports kept in memory), the way batch made it before surveys went to the spool
   it('gives the fleet section and the summary rows of all surveys at once, from what it spooled', () => {
-    const spool = new SurveySpool(join(scratch, 'spool.jsonl'));
+    const folder = join(scratch, 'collector');
+    mkdirSync(folder);
+    const spool = new WorkerSpools(folder);
     try {
       const collector = new FleetCollector(settings, spool);
       for (const outcome of outcomes) collector.add(outcome);
@@ -55,7 +57,7 @@ describe('FleetCollector', () => {
       expect(rows(collected)).toEqual(rows(whole));
       expect(collector.surveyCount).toBe(whole.surveys.length);
     } finally {
-      spool.dispose();
+      spool.close();
     }
   });
 });
@@ -64,16 +66,28 @@ describe('a survey\'s JSON text made by the worker', () => {
   // reference: JSON.stringify(toJsonReport(report), null, 2), the report's bytes when it is written whole
   it('gives, with the fleet\'s summaryModel filled in, the bytes of the whole report', async () => {
     const bases = new Set<string | null>();
-    for (const specs of [settings.specs, []]) {
+    const gapped = new Set<boolean>();
+    for (const [i, specs] of [settings.specs, []].entries()) {
       const plain = { ...settings, specs };
       const report = assembleReport(files.map((path, index) => fitSurveyFile({ index, path }, plain)), plain);
       for (const survey of toJsonReport(report).surveys) bases.add(survey.summaryModel?.basis ?? null);
-      const writes: string[] = [];
-      const stream = new JsonReportStream({ write: (text) => writes.push(text) }, (part) => toJsonReport({ ...part, fleet: report.fleet! }));
-      for (const survey of report.surveys) await stream.surveyText(surveyJsonText(surveyJsonRecord(survey), report));
-      await stream.finish();
-      expect(writes.join('')).toBe(`${JSON.stringify(toJsonReport(report), null, 2)}\n`);
+      const folder = join(scratch, `json-${i}`);
+      mkdirSync(folder);
+      const spools = new WorkerSpools(folder);
+      try {
+        const places = report.surveys.map((survey) => spoolSurveyJson(survey, spools.writer()));
+        for (const place of places) gapped.add(place.gap >= 0);
+        const writes: Buffer[] = [];
+        const stream = new JsonReportStream({ write: (text: string | Uint8Array) => writes.push(Buffer.from(text)) }, (part) => toJsonReport({ ...part, fleet: report.fleet! }));
+        await writeSpooledSurveys(stream, places, spools, report);
+        await stream.finish();
+        expect(Buffer.concat(writes).toString('utf8')).toBe(`${JSON.stringify(toJsonReport(report), null, 2)}\n`);
+      } finally {
+        spools.close();
+      }
     }
     expect(bases).toEqual(new Set(['spec', 'coil-history', 'best-physical']));
+    // some surveys' summaryModel waited for the fleet, some did not
+    expect(gapped).toEqual(new Set([true, false]));
   });
 });

@@ -1,10 +1,10 @@
-import { rmSync } from 'node:fs';
-import { join } from 'node:path';
+import { mkdirSync, rmSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import type { Command } from 'commander';
 import { RingfallError } from '../../core/errors';
 import { renderRunText } from '../../core/report/render-text';
-import type { Report } from '../../core/report/report';
+import type { Report, SurveyReport } from '../../core/report/report';
+import type { RunInput } from '../../core/report/run-record';
 import { fitRunSettings } from '../../core/report/run-record';
 import { toJsonReport } from '../../core/report/to-json-report';
 import { readSpecFile } from '../../io/spec';
@@ -12,8 +12,9 @@ import type { BatchSettings } from '../batch/batch-settings';
 import { renderFleetSummary } from '../batch/render-fleet-summary';
 import { runBatchInOrder } from '../batch/run-batch';
 import { FleetCollector } from '../batch/fleet-collector';
-import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
-import { surveyJsonText } from '../batch/survey-json';
+import { scratchFolder } from '../batch/survey-spool';
+import { writeSpooledSurveys, type SurveyJsonPlace } from '../batch/survey-json';
+import { WorkerSpools, type WorkerSpoolPlace } from '../batch/worker-spool';
 import { JsonReportStream, stdoutBackpressure } from '../json-report-stream';
 import { writeHtmlReports } from '../batch/write-html-reports';
 import { claimOutFolder } from '../batch/out-folder-lock';
@@ -80,56 +81,67 @@ export function registerBatch(program: Command, context: CommandContext): void {
       const stop = watchStopSignals();
       try {
         for (const line of skippedLines(skipped)) process.stderr.write(`ringfall batch: ${printable(line)}\n`);
-        // the files' SHA-256 for the run record, read on this thread while the workers fit
-        const hashing = describeFiles(files);
-        // surveys go to a spool on disk as they come (for the JSON report and the pages), as
-        // does what the summary and the fleet history need (the collector keeps their places):
-        // memory stays flat in the number of files
-        const spoolFolder = claim === null ? scratchFolder('batch', 'Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).') : null;
-        const spool = new SurveySpool(claim !== null ? claim.scratchPath('surveys.jsonl') : join(spoolFolder!, 'surveys.jsonl'));
+        // surveys go to spools on disk as they are fitted, each worker writing its own (for the
+        // JSON report and the pages), as does what the summary and the fleet history need (the
+        // collector keeps their places): memory stays flat in the number of files
+        const spoolFolder = claim === null ? scratchFolder('batch', 'Set TMPDIR to a folder you can write, or give --out DIR (the scratch then goes there).') : claim.scratchPath('spools');
+        if (claim !== null) mkdirSync(spoolFolder);
+        const spools = new WorkerSpools(spoolFolder);
         try {
-          const collector = new FleetCollector(settings, spool);
+          // workers send digests: each survey's texts in the worker's spool (the JSON text and the
+          // page's line only when they are written), their places in the message
+          const run: BatchSettings = { ...settings, digest: { pages: flags.out !== undefined, json: flags.json === true, folder: spoolFolder } };
+          const collector = new FleetCollector(run, spools);
           let uncoiled = 0;
-          // each survey's JSON text in the spool, in report order
-          const jsonPlaces: SpoolPlace[] = [];
-          const result = await runBatchInOrder(files, settings, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
+          // each survey's JSON text in the spools, in report order
+          const jsonPlaces: SurveyJsonPlace[] = [];
+          // the files' SHA-256 for the run record, from the bytes each worker read
+          const inputs: (RunInput | undefined)[] = new Array(files.length);
+          // each page's surveys (pageKey) in the spools, in report order
+          const pagePlaces = new Map<string, WorkerSpoolPlace[]>();
+          const result = await runBatchInOrder(files, run, { workers, progress: process.stderr, stop, fileTimeLimit, ...(progressInterval === null ? {} : { progressInterval }) }, (outcome) => {
+            if (outcome.input !== undefined) inputs[outcome.index] = outcome.input;
             const digests = collector.add(outcome);
-            reportUnappliedSpecs({ surveys: digests.map((digest) => digest.row) });
+            reportUnappliedSpecs({ surveys: digests.map((digest) => digest.head) });
             for (const digest of digests) {
-              if (digest.line !== undefined) spool.addLine(pageKey(digest.row, () => uncoiled++), digest.line);
-              if (digest.json !== undefined) jsonPlaces.push(spool.append(digest.json));
+              if (digest.line !== undefined) {
+                const key = pageKey(digest.head, () => uncoiled++);
+                const list = pagePlaces.get(key);
+                if (list === undefined) pagePlaces.set(key, [digest.line]);
+                else list.push(digest.line);
+              }
+              if (digest.json !== undefined) jsonPlaces.push(digest.json);
             }
           });
           const runSettings = fitRunSettings({ fit: settings.fit, thresholds: settings.thresholds, spec: describeSpecFile(flags.spec ?? null), import: settings.import, extra: { skipLists: flags.skip !== false } });
           const summary = collector.report();
           // paths the search could not use (a folder that cannot be listed, a pipe, a broken link) join the files that failed
           const fleet = summary.fleet === undefined ? undefined : { ...summary.fleet, unreadable: [...unusable, ...summary.fleet.unreadable] };
-          const extra = { run: cliRunRecord('batch', time, await hashing, runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
+          const extra = { run: cliRunRecord('batch', time, await withInputs(files, inputs), runSettings), ...(skipped.length > 0 ? { skipped } : {}) };
           const report: Report = { ...summary, ...(fleet ? { fleet } : {}), ...extra };
           const signal = result.interrupted ? stop.signal ?? 'SIGINT' : null;
           const coverage = { filesDone: result.filesDone, filesTotal: result.filesTotal, interrupted: result.interrupted, surveys: collector.surveyCount };
           if (flags.json === true) {
-            // written survey by survey from the spool, each as the worker made its text with the
+            // written survey by survey from the spools, each as the worker made its bytes with the
             // fleet's summaryModel filled in: the same bytes as one JSON.stringify of the whole
             // report, waiting for a slow pipe rather than buffering the report
             const stream = new JsonReportStream(process.stdout, (part: Report) => toJsonReport({ ...part, ...extra, ...(fleet ? { fleet } : {}) }), stdoutBackpressure);
-            const withFleet = fleet ? { fleet } : {};
-            for (const place of jsonPlaces) await stream.surveyText(surveyJsonText(spool.text(place), withFleet));
+            await writeSpooledSurveys(stream, jsonPlaces, spools, fleet ? { fleet } : {});
             await stream.finish({}, signal === null ? {} : { partial: { filesDone: result.filesDone, filesTotal: result.filesTotal, signal } });
           } else {
             process.stdout.write(`${renderFleetSummary(report, coverage)}\n${renderRunText(report.run!)}`);
           }
           if (flags.out !== undefined) {
             let pageUncoiled = 0;
-            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => spool.read(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`));
+            const written = await writeHtmlReports(flags.out, report, coverage, stop, (row) => (pagePlaces.get(row.coil === null ? `survey ${pageUncoiled++}` : `coil ${row.coil}`) ?? []).map((place) => spools.at<SurveyReport>(place)));
             process.stderr.write(`ringfall batch: wrote ${written.filter((path) => path.endsWith('.html')).length} HTML pages and one copy of Chart.js to ${flags.out} (open ${written[0]})\n`);
           }
           const stoppedBy = signal ?? stop.signal;
           if (stoppedBy !== null) context.setExitCode(stoppedStatus(stoppedBy));
           context.setExitCode(worseStatus(collector.checksStatus, batchStatus(report)));
         } finally {
-          spool.dispose();
-          if (spoolFolder !== null) rmSync(spoolFolder, { recursive: true, force: true });
+          spools.close();
+          rmSync(spoolFolder, { recursive: true, force: true });
         }
       } finally {
         stop.dispose();
@@ -151,9 +163,6 @@ async function readBatchSettings(flags: BatchFlags): Promise<BatchSettings> {
     specs: options.spec === null ? [] : await readSpecFile(options.spec),
     thresholds: options.thresholds,
     keepPoints: flags.out !== undefined,
-    // workers send digests: the main thread appends each survey's texts to the spool (the
-    // JSON text and the page's line only when they are written) and keeps their places
-    digest: { pages: flags.out !== undefined, json: flags.json === true },
   };
 }
 
@@ -178,6 +187,13 @@ function readSeconds(text: string | undefined, option: string, least: number, mo
     throw new RingfallError('OPTION_VALUE', `${option}: "${text}" is not usable. Give seconds from ${least} to ${most}, e.g. ${example}.`, { value: text, where: option });
   }
   return seconds;
+}
+
+/** Every file's run-record entry: the workers' (`inputs`, by file), and for a file a worker did not read (a stopped run, a file that could not be read) read here. */
+async function withInputs(files: readonly string[], inputs: readonly (RunInput | undefined)[]): Promise<RunInput[]> {
+  const missing = files.filter((_, i) => inputs[i] === undefined);
+  const read = (await describeFiles(missing)).values();
+  return files.map((_, i) => inputs[i] ?? read.next().value!);
 }
 
 /** The spool key of a survey's page: its coil, or a page of its own when it has no coil id (numbered in report order). */

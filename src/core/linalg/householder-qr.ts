@@ -117,20 +117,33 @@ export function applyQTransposeAndFinishR(
  */
 export function triangularFactor(a: ArrayLike<number>, n: number, k: number): number[] {
   // Column-major working copy: reflections run down columns.
-  const w = new Array<number>(n * k);
+  const w = new Float64Array(n * k);
   for (let i = 0; i < n; i++) for (let j = 0; j < k; j++) w[j * n + i] = a[i * k + j]!;
-  const r = new Array<number>(k * k).fill(0);
+  const r = new Float64Array(k * k);
+  triangularFactorInPlace(w, n, k, r);
+  return Array.from(r);
+}
+
+/**
+ * {@link triangularFactor} of a column-major n×k matrix given as `w` (w[j·n + i] = Aᵢⱼ),
+ * which it overwrites with the reflection vectors, R written into `r` (row-major k×k,
+ * zeros below the diagonal): the same arithmetic without the copies, for a caller that
+ * builds A column-major in scratch space anyway.
+ */
+export function triangularFactorInPlace(w: Float64Array, n: number, k: number, r: Float64Array): void {
+  // x·x, not x ** 2: the same bits (fdlibm's pow returns x·x for y = 2), without a call.
+  r.fill(0, 0, k * k);
   for (let j = 0; j < k; j++) {
     const offset = j * n;
     let norm = 0;
-    for (let i = j; i < n; i++) norm += w[offset + i]! ** 2;
+    for (let i = j; i < n; i++) norm += w[offset + i]! * w[offset + i]!;
     norm = Math.sqrt(norm);
     if (norm !== 0) {
       const alpha = w[offset + j]! > 0 ? -norm : norm;
       // v = x − α·e₁ stored in place; β = 1/(vᵀv/2).
       w[offset + j] = w[offset + j]! - alpha;
       let vv = 0;
-      for (let i = j; i < n; i++) vv += w[offset + i]! ** 2;
+      for (let i = j; i < n; i++) vv += w[offset + i]! * w[offset + i]!;
       for (let c = j + 1; c < k; c++) {
         const other = c * n;
         let dot = 0;
@@ -144,7 +157,6 @@ export function triangularFactor(a: ArrayLike<number>, n: number, k: number): nu
     // what the earlier reflections left in it.
     for (let c = j + 1; c < k; c++) r[j * k + c] = w[c * n + j]!;
   }
-  return r;
 }
 
 const EPSILON = 2.220446049250313e-16;

@@ -56,6 +56,29 @@ export const dipoleModel: FieldModel = {
       out[row + 2] = 1;
     }
   },
+  normalEquations(params, points, weight, columnScale, residuals, gram, gradientOut): void {
+    // jacobian's derivatives, summed in registers (the same products in the same order).
+    const moment = params[0]!;
+    const s0 = columnScale[0]!;
+    const s1 = columnScale[1]!;
+    const s2 = columnScale[2]!;
+    let g00 = 0, g10 = 0, g11 = 0, g20 = 0, g21 = 0, g22 = 0;
+    let b0 = 0, b1 = 0, b2 = 0;
+    for (let i = 0; i < points.n; i++) {
+      dipoleFieldGradient(1, points.distance[i]! + params[1]!, points.radial[i]!, field);
+      const bz = moment * field[0]!;
+      const br = moment * field[1]!;
+      const w = weight[i]!;
+      const r = residuals[i]!;
+      const j0 = fieldReadingDerivative(points.kind, bz, br, field[0]!, field[1]!) * w * s0;
+      const j1 = fieldReadingDerivative(points.kind, bz, br, moment * field[2]!, moment * field[3]!) * w * s1;
+      const j2 = 1 * w * s2;
+      b0 += j0 * r; b1 += j1 * r; b2 += j2 * r;
+      g00 += j0 * j0; g10 += j1 * j0; g11 += j1 * j1; g20 += j2 * j0; g21 += j2 * j1; g22 += j2 * j2;
+    }
+    gram[0] = g00; gram[3] = g10; gram[4] = g11; gram[6] = g20; gram[7] = g21; gram[8] = g22;
+    gradientOut[0] = b0; gradientOut[1] = b1; gradientOut[2] = b2;
+  },
   initialGuess(points: SurveyPoints): Float64Array {
     const r = new Float64Array(points.n);
     const order: number[] = [];

@@ -30,6 +30,11 @@ const SIZE_CANDIDATES = 48;
 const SIZE_STRIDE = 3;
 const gridCosts = new Float64Array(SIZE_CANDIDATES);
 const gridAmplitudes = new Float64Array(SIZE_CANDIDATES);
+/**
+ * scanSize's predictions and 1/y, reused from call to call (a scan runs to completion;
+ * only their first n entries are read). A model's evaluate reads `points.n`, not the length.
+ */
+let sizeScratch = { predicted: new Float64Array(64), inverse: new Float64Array(64) };
 /** Most evaluations of {@link scanSize}'s refinement (Brent's method to 1e-6 in ln s). */
 const SIZE_REFINE = 24;
 
@@ -41,18 +46,18 @@ const SIZE_REFINE = 24;
  * size with the least misfit wins; then Brent's method on ln s (brentMinimum) refines it
  * within a grid step either side. Candidates: `hint` (e.g. the
  * half-value estimate of DOMAIN.md §1.1), the reach, and SIZE_CANDIDATES (48) sizes spaced
- * evenly in ln s from 1 % to 10× the survey's reach. Deterministic, no randomness; four
- * buffers allocated per call (none per candidate).
+ * evenly in ln s from 1 % to 10× the survey's reach. Deterministic, no randomness; one
+ * buffer allocated per call (none per candidate).
  *
  * @returns the winning parameter vector with the amplitude filled in
  */
 export function scanSize(
   model: FieldModel, points: SurveyPoints, shape: (size: number, out: Float64Array) => void, amplitudeIndex: number, hint?: number,
 ): Float64Array {
-  const predicted = new Float64Array(points.n);
+  if (sizeScratch.predicted.length < points.n) sizeScratch = { predicted: new Float64Array(2 * points.n), inverse: new Float64Array(2 * points.n) };
+  const { predicted, inverse } = sizeScratch;
   const params = new Float64Array(model.parameters.length);
   // 1/y of the usable readings (0 marks one to skip): products instead of divisions per candidate.
-  const inverse = new Float64Array(points.n);
   for (let i = 0; i < points.n; i++) {
     const y = points.field[i]!;
     inverse[i] = y === 0 || !Number.isFinite(y) ? 0 : 1 / y;

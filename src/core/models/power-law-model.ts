@@ -13,6 +13,17 @@ const exponentParameter: ParameterSpec = {
   description: 'apparent exponent n over the surveyed range (not a property of the coil)',
 };
 
+/** r = √((d + δ)² + ρ²), or the signed d + δ on the axis. */
+function distanceFromSource(axial: number, rho: number): number {
+  return rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+}
+
+/** r^−n (exactly 1/r² and 1/r³ for n = 2, 3; exp(−n·ln r) otherwise), NaN for r ≤ 0; logR = ln r. */
+function inversePower(r: number, exponent: number, logR: number): number {
+  const inv = 1 / r;
+  return r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
+}
+
 /**
  * The descriptive power laws of DOMAIN.md §1.9, B = amplitude / r^n + background with
  * r = √((distance + probeOffset)² + ρ²), which on the axis is DESIGN.md's
@@ -65,16 +76,56 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       const offset = params[k - 2]!;
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
-        const rho = points.radial[i]!;
-        const r = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        const r = distanceFromSource(axial, points.radial[i]!);
         const logR = Math.log(r);
-        const inv = 1 / r;
-        const power = r > 0 ? (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR)) : NaN;
+        const power = inversePower(r, exponent, logR);
         const row = k * i;
         out[row] = power;
         if (free) out[row + 1] = -amplitude * power * logR;
         out[row + k - 2] = (-exponent * amplitude * power * axial) / (r * r);
         out[row + k - 1] = 1;
+      }
+    },
+    normalEquations(params, points, weight, columnScale, residuals, gram, gradientOut): void {
+      // jacobian's derivatives, summed in registers (the same products in the same order);
+      // the exponent's column only when it is a parameter.
+      const amplitude = params[0]!;
+      const exponent = free ? params[1]! : fixedExponent;
+      const offset = params[k - 2]!;
+      const sA = columnScale[0]!;
+      const sN = free ? columnScale[1]! : 0;
+      const sD = columnScale[k - 2]!;
+      const sB = columnScale[k - 1]!;
+      let gAA = 0, gNA = 0, gNN = 0, gDA = 0, gDN = 0, gDD = 0, gBA = 0, gBN = 0, gBD = 0, gBB = 0;
+      let bA = 0, bN = 0, bD = 0, bB = 0;
+      for (let i = 0; i < points.n; i++) {
+        const axial = points.distance[i]! + offset;
+        const r = distanceFromSource(axial, points.radial[i]!);
+        const logR = Math.log(r);
+        const power = inversePower(r, exponent, logR);
+        const w = weight[i]!;
+        const res = residuals[i]!;
+        const jA = power * w * sA;
+        const jD = ((-exponent * amplitude * power * axial) / (r * r)) * w * sD;
+        const jB = 1 * w * sB;
+        bA += jA * res; bD += jD * res; bB += jB * res;
+        gAA += jA * jA; gDA += jD * jA; gDD += jD * jD; gBA += jB * jA; gBD += jB * jD; gBB += jB * jB;
+        if (free) {
+          const jN = (-amplitude * power * logR) * w * sN;
+          bN += jN * res;
+          gNA += jN * jA; gNN += jN * jN; gDN += jD * jN; gBN += jB * jN;
+        }
+      }
+      const A = 0;
+      const D = k - 2;
+      const B = k - 1;
+      gram[A * k + A] = gAA;
+      gram[D * k + A] = gDA; gram[D * k + D] = gDD;
+      gram[B * k + A] = gBA; gram[B * k + D] = gBD; gram[B * k + B] = gBB;
+      gradientOut[A] = bA; gradientOut[D] = bD; gradientOut[B] = bB;
+      if (free) {
+        gram[1 * k + A] = gNA; gram[1 * k + 1] = gNN; gram[D * k + 1] = gDN; gram[B * k + 1] = gBN;
+        gradientOut[1] = bN;
       }
     },
     initialGuess(points: SurveyPoints): Float64Array {

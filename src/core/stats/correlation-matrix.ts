@@ -7,8 +7,9 @@
  * @example
  * correlationMatrix(Float64Array.of(4, -3, -3, 9), 2); // [1, −0.5, −0.5, 1]
  */
-export function correlationMatrix(covariance: Float64Array, k: number): Float64Array {
-  const out = new Float64Array(k * k);
+export function correlationMatrix(covariance: ArrayLike<number>, k: number): number[] {
+  // A plain array: a typed array over 64 bytes is allocated off-heap, dearer than the sums.
+  const out = new Array<number>(k * k);
   for (let a = 0; a < k; a++) {
     for (let b = 0; b < k; b++) {
       out[a * k + b] = a === b ? 1 : covariance[a * k + b]! / Math.sqrt(covariance[a * k + a]! * covariance[b * k + b]!);

@@ -9,7 +9,7 @@
  * // g = θ₁ + θ₂ with Var 1 and 4, covariance −1: 1 + 4 − 2 = 3
  * deltaMethodVariance([1, 1], Float64Array.of(1, -1, -1, 4)); // 3
  */
-export function deltaMethodVariance(gradient: ArrayLike<number>, covariance: Float64Array): number {
+export function deltaMethodVariance(gradient: ArrayLike<number>, covariance: ArrayLike<number>): number {
   const k = gradient.length;
   let sum = 0;
   for (let a = 0; a < k; a++) for (let b = 0; b < k; b++) sum += gradient[a]! * covariance[a * k + b]! * gradient[b]!;

@@ -28,15 +28,17 @@ export interface Identifiability {
  */
 export function identifiability(
   result: CovarianceResult,
-  correlation: Float64Array | null,
+  correlation: ArrayLike<number> | null,
   options: { readonly degenerateCorrelation?: number; readonly warningCorrelation?: number } = {},
 ): Identifiability {
   const degenerate = options.degenerateCorrelation ?? 0.999;
   const warning = options.warningCorrelation ?? 0.95;
   const k = result.columnNorms.length;
   const multipleCorrelation = new Float64Array(k);
+  const flatDirections = result.flatDirections;
   for (let j = 0; j < k; j++) {
-    const flat = result.flatDirections.some((direction) => Math.abs(direction[j]!) > 1e-6);
+    let flat = false;
+    for (let d = 0; d < flatDirections.length && !flat; d++) flat = Math.abs(flatDirections[d]![j]!) > 1e-6;
     if (flat || result.covariance === null) {
       multipleCorrelation[j] = flat ? 1 : NaN;
       continue;
@@ -44,7 +46,8 @@ export function identifiability(
     const inflation = (result.covariance[j * k + j]! * result.columnNorms[j]! ** 2) / result.scaleFactor;
     multipleCorrelation[j] = Math.sqrt(Math.max(0, 1 - 1 / inflation));
   }
-  const determined = Array.from(multipleCorrelation, (r) => !(r >= degenerate));
+  const determined = new Array<boolean>(k);
+  for (let j = 0; j < k; j++) determined[j] = !(multipleCorrelation[j]! >= degenerate);
   const strongPairs: { first: number; second: number; correlation: number }[] = [];
   if (correlation !== null) {
     for (let a = 0; a < k; a++) {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../../test/support/expect-close';
 import { correlationMatrix } from './correlation-matrix';
 import { deltaMethodVariance } from './delta-method-variance';
-import { leastSquaresCovariance } from './least-squares-covariance';
+import { leastSquaresCovariance, WELL_CONDITIONED } from './least-squares-covariance';
 import { parameterIntervals } from './parameter-intervals';
 import { singularValues } from '../linalg/singular-value-decomposition';
 
@@ -80,6 +80,51 @@ describe('leastSquaresCovariance(J, n, k, options)', () => {
     const result = leastSquaresCovariance(lineJacobian([0, 1], [1, 1]), 2, 2, { scale: 'estimated', chiSquare: 0 });
     expect(result.covariance).toBeNull();
     expect(result.rank).toBe(2);
+  });
+});
+
+describe('leastSquaresCovariance(): R⁻¹ when well-conditioned, the SVD otherwise', () => {
+  /** Covariance V·Σ⁻²·Vᵀ from a Jacobi SVD of the whole tall J (no QR, no triangular inverse). */
+  function bySvdOfJ(j: Float64Array, n: number, k: number): { covariance: number[]; condition: number; weakest: number[] } {
+    const norms = Array.from({ length: k }, (_, c) => Math.hypot(...Array.from({ length: n }, (_, i) => j[i * k + c]!)));
+    const { values, vectors } = singularValues(Array.from(j, (v, i) => v / norms[i % k]!), n, k);
+    const covariance = Array.from({ length: k * k }, (_, e) => {
+      const [a, b] = [Math.floor(e / k), e % k];
+      return values.reduce((t, s, c) => t + (vectors[a * k + c]! * vectors[b * k + c]!) / (s * s), 0) / (norms[a]! * norms[b]!);
+    });
+    return { covariance, condition: values[0]! / values[k - 1]!, weakest: Array.from({ length: k }, (_, r) => vectors[r * k + k - 1]!) };
+  }
+  /** Cubic polynomial a + b·x + c·x² + d·x³ on x = x0 … x0 + 1: columns nearly dependent as x0 grows. */
+  function cubic(x0: number): Float64Array {
+    return Float64Array.from(Array.from({ length: 12 }, (_, i) => x0 + i / 11).flatMap((x) => [1, x, x * x, x * x * x]));
+  }
+
+  it('leastSquaresCovariance(): a well-conditioned fit gives the covariance, condition number and weakest direction of the SVD of J', () => {
+    // x in [0, 1]: σ_max/σ_min of the equilibrated J is a few hundred, far below the switch
+    const j = cubic(0);
+    const result = leastSquaresCovariance(j, 12, 4, { scale: 'stated', chiSquare: 1 });
+    const reference = bySvdOfJ(j, 12, 4);
+    expect(reference.condition).toBeLessThan(WELL_CONDITIONED / 100);
+    expect(result.rank).toBe(4);
+    expect(result.flatDirections).toEqual([]);
+    // a triangular inverse is good to about u·κ relative (Higham, Accuracy and Stability, 2nd ed., ch. 8)
+    result.covariance!.forEach((v, e) => expectClose(v, reference.covariance[e]!, { rel: 1e-11, abs: 1e-11 * Math.abs(reference.covariance[0]!) }));
+    expectClose(result.conditionNumber, reference.condition, { rel: 1e-10 });
+    const sign = Math.sign(result.weakestDirection[0]! * reference.weakest[0]!);
+    result.weakestDirection.forEach((v, r) => expectClose(sign * v, reference.weakest[r]!, { abs: 1e-9 }));
+  });
+
+  it('leastSquaresCovariance(): past the switch the SVD decides, and the covariance still matches the SVD of J', () => {
+    // x in [30, 31]: σ_max/σ_min of the equilibrated J is about 1e7, above WELL_CONDITIONED, below the rank tolerance
+    const j = cubic(30);
+    const reference = bySvdOfJ(j, 12, 4);
+    expect(reference.condition).toBeGreaterThan(WELL_CONDITIONED);
+    expect(reference.condition).toBeLessThan(1e10);
+    const result = leastSquaresCovariance(j, 12, 4, { scale: 'stated', chiSquare: 1 });
+    expect(result.rank).toBe(4);
+    expectClose(result.conditionNumber, reference.condition, { rel: 1e-6 });
+    // error grows with κ (Golub & Van Loan, 4th ed., §5.3): compare the well-determined diagonal
+    for (let a = 0; a < 4; a++) expectClose(result.covariance![a * 4 + a]!, reference.covariance[a * 4 + a]!, { rel: 1e-6 });
   });
 });
 

@@ -23,30 +23,39 @@ export interface ParameterIntervals {
  */
 export function parameterIntervals(
   values: ArrayLike<number>,
-  covariance: Float64Array,
+  covariance: ArrayLike<number>,
   degreesOfFreedom: number,
   level = 0.95,
 ): ParameterIntervals {
   const k = values.length;
   const coverageFactor = coverageQuantile((1 + level) / 2, degreesOfFreedom);
-  const standardErrors = Float64Array.from({ length: k }, (_, j) => Math.sqrt(Math.max(0, covariance[j * k + j]!)));
-  const intervals = Array.from({ length: k }, (_, j): readonly [number, number] => {
-    const half = coverageFactor * standardErrors[j]!;
-    return [values[j]! - half, values[j]! + half];
-  });
+  const standardErrors = new Float64Array(k);
+  const intervals = new Array<readonly [number, number]>(k);
+  for (let j = 0; j < k; j++) {
+    const se = Math.sqrt(Math.max(0, covariance[j * k + j]!));
+    standardErrors[j] = se;
+    const half = coverageFactor * se;
+    intervals[j] = [values[j]! - half, values[j]! + half];
+  }
   return { standardErrors, intervals, coverageFactor };
 }
 
-// One-entry memo: fits of one survey ask for the same quantile over and over.
-let memoProbability = NaN;
-let memoFreedom = NaN;
-let memoValue = NaN;
+// Quantiles kept per (probability, ν): the fits of a batch ask for a few values over and
+// over (one per model's n − k), each an iterative inversion (student-t-quantile.ts).
+const quantiles = new Map<number, Map<number, number>>();
 
 function coverageQuantile(probability: number, degreesOfFreedom: number): number {
-  if (probability !== memoProbability || degreesOfFreedom !== memoFreedom) {
-    memoValue = studentTQuantile(probability, degreesOfFreedom);
-    memoProbability = probability;
-    memoFreedom = degreesOfFreedom;
+  let byFreedom = quantiles.get(probability);
+  if (byFreedom === undefined) {
+    if (quantiles.size >= 8) quantiles.clear();
+    byFreedom = new Map<number, number>();
+    quantiles.set(probability, byFreedom);
   }
-  return memoValue;
+  let value = byFreedom.get(degreesOfFreedom);
+  if (value === undefined) {
+    value = studentTQuantile(probability, degreesOfFreedom);
+    if (byFreedom.size >= 256) byFreedom.clear();
+    byFreedom.set(degreesOfFreedom, value);
+  }
+  return value;
 }

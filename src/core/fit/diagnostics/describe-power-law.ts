@@ -83,7 +83,11 @@ export interface PowerLawContext {
  */
 export function powerLawContext(any: FitResult, physical: FitResult | null, modelOf: (id: ModelId) => FieldModel, units: SurveyUnitChoice = surveyUnits(null)): PowerLawContext {
   const points = any.points;
-  const order = points.map((_, i) => i).sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
+  const order = points.map((_, i) => i);
+  // Most surveys are already in order of distance: sort only when not (the same order either way).
+  let ordered = true;
+  for (let i = 1; i < points.length && ordered; i++) ordered = points[i - 1]!.distance <= points[i]!.distance;
+  if (!ordered) order.sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
   const positive = order.filter((i) => points[i]!.distance > 0);
   const distance = new Float64Array(positive.length);
   const field = new Float64Array(positive.length);
@@ -112,8 +116,14 @@ function side(residuals: readonly number[], where: string): string {
 /** A fit's predicted on-axis reading at one stated distance with the background left out (T). */
 function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distance: number): number {
   const model = modelOf(fit.model);
-  const values = Float64Array.from(model.parameters, (p) => (p.role === 'background' ? 0 : fit.params[p.name]?.value ?? NaN));
-  const points: SurveyPoints = { n: 1, distance: Float64Array.of(distance), radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' };
+  const values = new Float64Array(model.parameters.length);
+  for (let j = 0; j < values.length; j++) {
+    const p = model.parameters[j]!;
+    values[j] = p.role === 'background' ? 0 : fit.params[p.name]?.value ?? NaN;
+  }
+  const at = new Float64Array(1);
+  at[0] = distance;
+  const points: SurveyPoints = { n: 1, distance: at, radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' };
   const out = new Float64Array(1);
   model.evaluate(values, points, out);
   return out[0]!;

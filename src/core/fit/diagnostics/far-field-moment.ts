@@ -102,7 +102,7 @@ export function momentEstimate(
     moved[j] = x;
     return (up - down) / (2 * h);
   });
-  const variance = deltaMethodVariance(gradient, Float64Array.from(covariance));
+  const variance = deltaMethodVariance(gradient, covariance);
   if (!(variance >= 0) || !Number.isFinite(variance)) return { value, stderr: null, ci95: null };
   const stderr = Math.sqrt(variance);
   return { value, stderr, ci95: [value - coverageFactor * stderr, value + coverageFactor * stderr] };

@@ -25,23 +25,33 @@ export interface RunsTest {
  * @example runsTest([1, 1, 1, -1, -1, -1]) // runs 2, P(R ≤ 2) = 2/C(6, 3) = 0.1
  */
 export function runsTest(values: ArrayLike<number>): RunsTest {
-  const signs: number[] = [];
-  for (let i = 0; i < values.length; i++) if (values[i]! !== 0 && !Number.isNaN(values[i]!)) signs.push(Math.sign(values[i]!));
-  const positives = signs.filter((s) => s > 0).length;
-  const negatives = signs.length - positives;
-  let runs = signs.length > 0 ? 1 : 0;
-  for (let i = 1; i < signs.length; i++) if (signs[i] !== signs[i - 1]) runs += 1;
-  const total = signs.length;
+  // One pass: count the signs and the runs (a run ends where the sign changes), zeros dropped.
+  let positives = 0;
+  let total = 0;
+  let runs = 0;
+  let previous = 0;
+  for (let i = 0; i < values.length; i++) {
+    const value = values[i]!;
+    if (value === 0 || Number.isNaN(value)) continue;
+    const sign = Math.sign(value);
+    if (sign > 0) positives += 1;
+    if (sign !== previous) runs += 1;
+    previous = sign;
+    total += 1;
+  }
+  const negatives = total - positives;
   const expected = total === 0 ? 0 : 1 + (2 * positives * negatives) / total;
   if (positives === 0 || negatives === 0) return { runs, expected, positives, negatives, probability: 1 };
   const logAll = logChoose(total, positives);
   let probability = 0;
   for (let r = 2; r <= runs; r++) {
     const k = r >> 1;
-    const terms = r % 2 === 0
-      ? [Math.LN2 + logChoose(positives - 1, k - 1) + logChoose(negatives - 1, k - 1)]
-      : [logChoose(positives - 1, k - 1) + logChoose(negatives - 1, k), logChoose(positives - 1, k) + logChoose(negatives - 1, k - 1)];
-    for (const term of terms) probability += Math.exp(term - logAll);
+    if (r % 2 === 0) {
+      probability += Math.exp(Math.LN2 + logChoose(positives - 1, k - 1) + logChoose(negatives - 1, k - 1) - logAll);
+    } else {
+      probability += Math.exp(logChoose(positives - 1, k - 1) + logChoose(negatives - 1, k) - logAll);
+      probability += Math.exp(logChoose(positives - 1, k) + logChoose(negatives - 1, k - 1) - logAll);
+    }
   }
   return { runs, expected, positives, negatives, probability: Math.min(1, probability) };
 }

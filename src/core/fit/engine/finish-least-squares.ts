@@ -17,8 +17,12 @@ function isConverged(code: StopCode): boolean {
 
 /**
  * Package the state of a finished {@link fitLeastSquares} run: copy θ̂, predictions and
- * residuals out of the workspace, evaluate the weighted Jacobian in the ORIGINAL
- * parameters at θ̂ (for the covariance), flag parameters on a bound, word the stop reason.
+ * residuals out of the workspace, flag parameters on a bound, and keep what the weighted
+ * Jacobian in the ORIGINAL parameters at θ̂ (for the covariance) and the stop sentence
+ * need. With an analytic Jacobian both are worked out on first read, from copies of θ̂
+ * and the weights (the workspace and the caller's σ may change meanwhile): a start the
+ * multi-start search throws away never pays for them. By finite differences the
+ * Jacobian is evaluated here, its evaluations counted in `evaluations`.
  */
 export function finishLeastSquares(
   problem: LeastSquaresProblem,
@@ -32,25 +36,24 @@ export function finishLeastSquares(
   const k = map.count;
   const warnings = setup.warnings;
   let spent = evaluations;
+  const freeIndices = new Array<number>(k);
+  for (let j = 0; j < k; j++) freeIndices[j] = map.index[j]!;
   // Plain arrays filled by index: far cheaper than off-heap typed arrays for a per-fit result.
-  let jacobian: number[] = [];
+  let jacobian: number[] | null = [];
+  let weights: number[] = [];
   if (stopCode !== 'non-finite-start' && k > 0) {
-    jacobian = new Array<number>(m * k);
     if (problem.jacobian !== undefined) {
-      // Straight from the model's row-major Jacobian: weightedJacobian's products, one pass fewer.
-      const full = ws.modelJacobian;
-      const weight = ws.inverseUncertainty;
-      problem.jacobian(ws.params, full);
-      for (let i = 0; i < m; i++) for (let j = 0; j < k; j++) jacobian[i * k + j] = full[i * p + map.index[j]!]! * weight[i]!;
+      jacobian = null;
+      weights = new Array<number>(m);
+      for (let i = 0; i < m; i++) weights[i] = ws.inverseUncertainty[i]!;
     } else {
+      jacobian = new Array<number>(m * k);
       spent += weightedJacobian(problem, map, ws, settings.differenceStep, ws.jacobian);
       for (let i = 0; i < m; i++) for (let j = 0; j < k; j++) jacobian[i * k + j] = ws.jacobian[i + j * m]!;
     }
   }
   const atBound = new Array<boolean>(p);
   for (let j = 0; j < p; j++) atBound[j] = false;
-  const freeIndices = new Array<number>(k);
-  for (let j = 0; j < k; j++) freeIndices[j] = map.index[j]!;
   for (let j = 0; map.bounded && j < k; j++) {
     const at = map.index[j]!;
     if (onBound(map, j, ws.params[at]!)) {
@@ -71,26 +74,77 @@ export function finishLeastSquares(
     const z = r * ws.inverseUncertainty[i]!;
     chiSquare += z * z;
   }
-  return {
-    converged: isConverged(stopCode),
-    stopCode,
-    stopReason: describeStop(stopCode, setup),
-    iterations,
-    evaluations: spent,
-    params: ws.params.slice(),
-    freeIndices,
-    chiSquare,
-    rss,
-    predicted,
-    residuals,
-    jacobian,
-    atBound,
-    warnings,
-  };
+  return new FinishedSolution(
+    isConverged(stopCode), stopCode, iterations, spent, ws.params.slice(), freeIndices, chiSquare, rss, predicted, residuals,
+    atBound, warnings, problem, settings, jacobian, weights,
+  );
 }
 
-function describeStop(code: StopCode, setup: PreparedLeastSquares): string {
-  const s = setup.settings;
+/** A {@link LeastSquaresSolution} whose Jacobian and stop sentence are made on first read. */
+class FinishedSolution implements LeastSquaresSolution {
+  #jacobian: number[] | null;
+  #stopReason: string | null = null;
+  readonly #problem: LeastSquaresProblem;
+  readonly #settings: PreparedLeastSquares['settings'];
+  /** 1/σᵢ as the fit ended, and θ̂ (own copies; `params` is the caller's to change). */
+  readonly #weights: readonly number[];
+  readonly #at: Float64Array;
+
+  constructor(
+    readonly converged: boolean,
+    readonly stopCode: StopCode,
+    readonly iterations: number,
+    readonly evaluations: number,
+    readonly params: Float64Array,
+    readonly freeIndices: readonly number[],
+    readonly chiSquare: number,
+    readonly rss: number,
+    readonly predicted: readonly number[],
+    readonly residuals: readonly number[],
+    readonly atBound: readonly boolean[],
+    readonly warnings: readonly string[],
+    problem: LeastSquaresProblem,
+    settings: PreparedLeastSquares['settings'],
+    jacobian: number[] | null,
+    weights: readonly number[],
+  ) {
+    this.#problem = problem;
+    this.#settings = settings;
+    this.#jacobian = jacobian;
+    this.#weights = weights;
+    this.#at = jacobian === null ? params.slice() : params;
+  }
+
+  get stopReason(): string {
+    if (this.#stopReason === null) this.#stopReason = describeStop(this.stopCode, this.#settings);
+    return this.#stopReason;
+  }
+
+  get jacobian(): readonly number[] {
+    if (this.#jacobian === null) this.#jacobian = this.weightedJacobian();
+    return this.#jacobian;
+  }
+
+  /** (∂fᵢ/∂θⱼ)·(1/σᵢ) of the free columns, row-major, from the model's row-major Jacobian at θ̂. */
+  private weightedJacobian(): number[] {
+    const m = this.residuals.length;
+    const p = this.params.length;
+    const k = this.freeIndices.length;
+    if (scratch.length < m * p) scratch = new Float64Array(m * p);
+    const full = scratch;
+    this.#problem.jacobian!(this.#at, full);
+    const weight = this.#weights;
+    const index = this.freeIndices;
+    const out = new Array<number>(m * k);
+    for (let i = 0; i < m; i++) for (let j = 0; j < k; j++) out[i * k + j] = full[i * p + index[j]!]! * weight[i]!;
+    return out;
+  }
+}
+
+/** The model's row-major Jacobian, reused from solution to solution (read synchronously). */
+let scratch = new Float64Array(256);
+
+function describeStop(code: StopCode, s: PreparedLeastSquares['settings']): string {
   switch (code) {
     case 'cost-tolerance':
       return `converged: relative reduction of χ² below ${s.costTolerance}`;

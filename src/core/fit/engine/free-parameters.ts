@@ -97,7 +97,9 @@ export function freeParameters(
     if (kind !== UNBOUNDED) bounded = true;
     k += 1;
   }
-  return { count: k, bounded, ...buffers };
+  // Spelled out, not spread: this runs once per fit.
+  const b = buffers;
+  return { count: k, bounded, index: b.index, kind: b.kind, lower: b.lower, upper: b.upper, scale: b.scale, typicalSize: b.typicalSize };
 }
 
 function checkLength(name: string, array: ArrayLike<unknown> | undefined, p: number): void {

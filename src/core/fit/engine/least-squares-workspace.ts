@@ -16,11 +16,14 @@ export interface LeastSquaresWorkspace {
   readonly modelJacobian: Float64Array;
   /** Weighted Jacobian of the free internal variables, column-major m×k (k ≤ p). */
   readonly jacobian: Float64Array;
-  /** Weighted residuals (f − y)/σ at the current and the trial point, length m. */
-  readonly residuals: Float64Array;
-  readonly trialResiduals: Float64Array;
-  readonly predicted: Float64Array;
-  readonly trialPredicted: Float64Array;
+  /**
+   * Weighted residuals (f − y)/σ and predictions at the current and the trial point,
+   * length m; each trades places with its trial twin when a step is taken (not copied).
+   */
+  residuals: Float64Array;
+  trialResiduals: Float64Array;
+  predicted: Float64Array;
+  trialPredicted: Float64Array;
   /** Finite-difference evaluations, length m. */
   readonly plus: Float64Array;
   readonly minus: Float64Array;

@@ -153,8 +153,13 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
       if (ratio >= 1e-4) {
         for (let j = 0; j < k; j++) internal[j] = trialInternal[j]!;
         ws.params.set(ws.trialParams);
-        ws.predicted.set(ws.trialPredicted);
-        ws.residuals.set(ws.trialResiduals);
+        // The trial's predictions and residuals become the current ones by swapping buffers.
+        const predicted = ws.predicted;
+        ws.predicted = ws.trialPredicted;
+        ws.trialPredicted = predicted;
+        const residuals = ws.residuals;
+        ws.residuals = ws.trialResiduals;
+        ws.trialResiduals = residuals;
         xnorm = scaledNorm(scale, internal, k);
         fnorm = fnorm1;
         iterations += 1;

@@ -22,15 +22,16 @@ export function fusedNormalEquations(problem: LeastSquaresProblem, map: FreePara
   const { m, p } = ws;
   const k = map.count;
   const scale = ws.columnScale;
-  scale.fill(1);
+  // Loops, not fill(): a builtin call costs more than these few stores.
+  for (let j = 0; j < p; j++) scale[j] = 1;
   if (map.bounded) for (let j = 0; j < k; j++) scale[map.index[j]!] = ws.derivative[j]!;
   const gram = ws.gram;
   const gradient = ws.work;
   if (problem.normalEquations !== undefined) {
     const full = ws.fullGram;
     const fullGradient = ws.fullGradient;
-    full.fill(0);
-    fullGradient.fill(0);
+    for (let e = 0; e < p * p; e++) full[e] = 0;
+    for (let j = 0; j < p; j++) fullGradient[j] = 0;
     problem.normalEquations(ws.params, ws.inverseUncertainty, scale, ws.residuals, full, fullGradient);
     for (let a = 0; a < k; a++) {
       const u = map.index[a]!;

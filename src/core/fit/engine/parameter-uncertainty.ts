@@ -13,15 +13,14 @@ export interface ParameterUncertainty {
   /** χ²/ν when σ were stated (≈ 1 if σ and model are right, SD √(2/ν)); null when estimated. */
   readonly reducedChiSquare: number | null;
   /** Row-major k×k, or null when singular or ν = 0 with an estimated scale. */
-  readonly covariance: Float64Array | null;
-  readonly correlation: Float64Array | null;
+  readonly covariance: readonly number[] | null;
+  readonly correlation: readonly number[] | null;
   /** √Cⱼⱼ, or null with the covariance. */
   readonly standardErrors: Float64Array | null;
   /** Intervals at `level`: normal quantile when σ were stated, t with ν = n − k when estimated; or null. */
   readonly intervals: readonly (readonly [number, number])[] | null;
+  /** Of the column-equilibrated weighted Jacobian (its condition number: leastSquaresCovariance, on demand). */
   readonly rank: number;
-  /** Of the column-equilibrated weighted Jacobian. */
-  readonly conditionNumber: number;
   readonly identifiability: Identifiability;
 }
 
@@ -30,7 +29,7 @@ export interface ParameterUncertainty {
  * solution's weighted Jacobian in the original parameters (c = 1 for stated σ, s² =
  * χ²/(n − k) otherwise), standard errors, intervals (θ̂ ± z·se for stated σ, where the
  * pivot is normal; θ̂ ± t_{n−k}·se when s² is estimated, DOMAIN.md §7.5), correlations,
- * rank, conditioning and which parameters the data determine.
+ * rank and which parameters the data determine.
  *
  * @param level coverage of the intervals (default 0.95).
  */
@@ -49,7 +48,8 @@ export function parameterUncertainty(
   let standardErrors: Float64Array | null = null;
   let intervals: readonly (readonly [number, number])[] | null = null;
   if (covariance !== null && degreesOfFreedom > 0) {
-    const values = solution.freeIndices.map((j) => solution.params[j]!);
+    const values = new Array<number>(k);
+    for (let j = 0; j < k; j++) values[j] = solution.params[solution.freeIndices[j]!]!;
     const intervalFreedom = uncertaintyScale === 'stated' ? Infinity : degreesOfFreedom;
     ({ standardErrors, intervals } = parameterIntervals(values, covariance, intervalFreedom, level));
   }
@@ -62,7 +62,6 @@ export function parameterUncertainty(
     standardErrors,
     intervals,
     rank: result.rank,
-    conditionNumber: result.conditionNumber,
     identifiability: identifiability(result, correlation),
   };
 }

@@ -66,5 +66,9 @@ export function withAkaikeWeights(fits: readonly FitResult[]): FitResult[] {
   const weights = exact > 0
     ? fits.map((fit) => (usable(fit) && fit.stats.aicc === -Infinity ? 1 / exact : 0))
     : akaikeWeights(fits.map((fit) => (usable(fit) ? fit.stats.aicc : Infinity)));
-  return fits.map((fit, i) => ({ ...fit, stats: { ...fit.stats, akaikeWeight: Number.isNaN(weights[i]!) ? null : weights[i]! } }));
+  return fits.map((fit, i) => {
+    const akaikeWeight = Number.isNaN(weights[i]!) ? null : weights[i]!;
+    // Fits that already carry this weight (fitSurvey's, compared again for the report) are kept as they are.
+    return fit.stats.akaikeWeight === akaikeWeight ? fit : { ...fit, stats: { ...fit.stats, akaikeWeight } };
+  });
 }

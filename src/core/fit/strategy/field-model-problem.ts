@@ -1,3 +1,4 @@
+import { scratchArray } from './scratch-array';
 import type { FieldModel, SurveyPoints } from '../../models/field-model';
 import type { LeastSquaresProblem } from '../engine/least-squares-types';
 
@@ -40,10 +41,11 @@ export function fieldModelProblem(model: FieldModel, points: SurveyPoints): Leas
  */
 export function distanceSlope(model: FieldModel, params: Float64Array, points: SurveyPoints, out: Float64Array): void {
   const n = points.n;
-  const shifted = new Float64Array(n);
-  const step = new Float64Array(n);
-  const plus = new Float64Array(n);
-  const minus = new Float64Array(n);
+  // Scratch slots 3–6 (scratch-array.ts): a call runs to completion and models do not call back here.
+  const shifted = scratchArray(n, 3);
+  const step = scratchArray(n, 4);
+  const plus = scratchArray(n, 5);
+  const minus = scratchArray(n, 6);
   for (let i = 0; i < n; i++) {
     const d = points.distance[i]!;
     const h = Math.cbrt(2.220446049250313e-16) * Math.max(Math.abs(d), 1e-3);

@@ -63,16 +63,18 @@ export function fitModel(
   const criteria = stated ? chiSquareCriteria(n, k, chiSquare + logScale) : leastSquaresCriteria(n, k + 1, solution.rss);
   const coverage = coverageFactor(stated ? Infinity : Math.max(1, freedom));
   const moment = momentEstimate(model, solution.params, solution.freeIndices, uncertainty.covariance, coverage);
-  const fitPoints = survey.readings.map((reading, i) => ({
-    line: reading.line,
-    distance: reading.distance,
-    radial: reading.radial,
-    field: reading.field,
-    predicted: solution.predicted[i]!,
-    residual: solution.residuals[i]!,
-    standardUncertainty: stated ? sigma[i]! : null,
-    ...(search.outliers === null ? {} : { outlier: search.outliers[i] === true }),
-  }));
+  // One object literal per reading (no spread): the outlier flag only after a robust fit.
+  const outliers = search.outliers;
+  const fitPoints = survey.readings.map((reading, i) => outliers === null
+    ? {
+        line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
+        predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
+      }
+    : {
+        line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
+        predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
+        outlier: outliers[i] === true,
+      });
   const warnings = fitWarnings({ model, survey, points, solution, uncertainty, params, moment, search, chiSquare, options });
   return {
     model: model.id,
@@ -81,8 +83,8 @@ export function fitModel(
     iterations: solution.iterations,
     params,
     freeParameters: solution.freeIndices.map((j) => model.parameters[j]!.name),
-    covariance: uncertainty.covariance === null ? null : Array.from(uncertainty.covariance),
-    correlation: uncertainty.correlation === null ? null : Array.from(uncertainty.correlation),
+    covariance: uncertainty.covariance,
+    correlation: uncertainty.correlation,
     uncertaintyScale: stated ? 'stated' : 'estimated',
     stats: {
       n,

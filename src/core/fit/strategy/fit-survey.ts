@@ -62,8 +62,10 @@ export function fitSurvey(survey: Survey, options: FitSurveyOptions = {}): FitRe
  * the scatter of the residuals (DOMAIN.md §7.4).
  */
 export function fitSurveyNotes(survey: Survey, options: FitSurveyOptions = {}): string[] {
-  const uncertainty = readingUncertainty(surveyProblem(survey, []).survey, options.instrumentUncertainty);
-  const notes = [...uncertainty.notes, ...omittedModelNote(surveyProblem(survey, options.models ?? defaultModels).omitted)];
+  // Only a 3-D map is fitted as other readings than its own, and only a map leaves models out.
+  const map = survey.axis === 'map';
+  const uncertainty = readingUncertainty(map ? surveyProblem(survey, []).survey : survey, options.instrumentUncertainty);
+  const notes = [...uncertainty.notes, ...omittedModelNote(map ? surveyProblem(survey, options.models ?? defaultModels).omitted : [])];
   if (uncertainty.standardUncertainty === null) {
     notes.push('No uncertainty was given for the readings: every reading weighs the same and the intervals are scaled by the scatter of the residuals. Give the meter\'s accuracy (--uncertainty 1.5%+2µT) to weight readings and test the scatter against it.');
   } else if ((options.positionUncertainty ?? 0) > 0 && survey.axis === 'map') {

@@ -67,7 +67,7 @@ export function profileStart(
   const exponent = specs.findIndex((p) => p.role === 'exponent');
   const n = points.n;
   const shape = scratchArray(n, 0);
-  const trial = Float64Array.from(start);
+  const trial = start.slice();
   const freeAmplitude = amplitude >= 0 && !fixed[amplitude];
   const freeBackground = background >= 0 && !fixed[background];
   const freeExponent = exponent >= 0 && !fixed[exponent];
@@ -78,7 +78,13 @@ export function profileStart(
 
   const logField = scratchArray(n, 1);
   for (let i = 0; i < n; i++) logField[i] = Math.log(Math.abs(points.field[i]!));
-  const best = Float64Array.from(start);
+  // The weights 1/σ², worked out once for every offset tried.
+  const weights = scratchArray(n, 2);
+  for (let i = 0; i < n; i++) {
+    const s = sigma === null ? 1 : sigma[i]!;
+    weights[i] = 1 / (s * s);
+  }
+  const best = start.slice();
   let bestCost = Infinity;
   /** χ² at offset δ with A, b solved and the exponent given or re-read; the winner is copied to best. */
   const profile = (delta: number, power?: number): number => {
@@ -88,7 +94,7 @@ export function profileStart(
       const slope = power === undefined ? logLogSlope(points, logField, offset >= 0 ? delta : 0) : -power;
       if (slope < 0 && -slope < upper[exponent]!) trial[exponent] = -slope;
     }
-    const cost = solveLinear(model, points, trial, shape, sigma, amplitude, background, freeAmplitude, freeBackground, sign);
+    const cost = solveLinear(model, points, trial, shape, sigma, weights, amplitude, background, freeAmplitude, freeBackground, sign);
     if (cost < bestCost) {
       bestCost = cost;
       best.set(trial);
@@ -115,13 +121,13 @@ export function profileStart(
     range = [grid[0]!, grid[GRID - 1]!];
     let bestIndex = -1;
     let gridCost = Infinity;
-    grid.forEach((delta, g) => {
-      const cost = profile(delta);
+    for (let g = 0; g < GRID; g++) {
+      const cost = profile(grid[g]!);
       if (cost < gridCost) {
         gridCost = cost;
         bestIndex = g;
       }
-    });
+    }
     if (bestIndex >= 0 && Number.isFinite(gridCost)) {
       const left = grid[Math.max(0, bestIndex - 1)]!;
       const right = grid[Math.min(grid.length - 1, bestIndex + 1)]!;
@@ -184,10 +190,10 @@ function logLogSlope(points: SurveyPoints, logField: Float64Array, delta: number
 
 /**
  * Weighted least-squares amplitude A and background b for the shape at θ, written into θ;
- * returns χ². The shape is the model at θ with A = 1 (or the fixed A) and b = 0 (or the fixed b).
+ * returns χ². `weights` holds 1/σᵢ² (1 when sigma is null). The shape is the model at θ with A = 1 (or the fixed A) and b = 0 (or the fixed b).
  */
 function solveLinear(
-  model: FieldModel, points: SurveyPoints, theta: Float64Array, shape: Float64Array, sigma: ArrayLike<number> | null,
+  model: FieldModel, points: SurveyPoints, theta: Float64Array, shape: Float64Array, sigma: ArrayLike<number> | null, weights: Float64Array,
   amplitude: number, background: number, freeAmplitude: boolean, freeBackground: boolean, sign: number,
 ): number {
   if (freeAmplitude) theta[amplitude] = 1;
@@ -202,8 +208,7 @@ function solveLinear(
   for (let i = 0; i < points.n; i++) {
     const g = shape[i]!;
     if (!Number.isFinite(g)) return Infinity;
-    const s = sigma === null ? 1 : sigma[i]!;
-    const w = 1 / (s * s);
+    const w = weights[i]!;
     const y = points.field[i]! - (freeBackground ? 0 : fixedBackground);
     sw += w;
     sg += w * g;

@@ -29,7 +29,9 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
   const readings = survey.readings;
   const inFile = readings.filter((r) => r.standardUncertainty !== undefined && r.standardUncertainty > 0).length;
   if (instrument) {
-    const sigma = Float64Array.from(readings, (r) => instrument.relative * Math.abs(r.field) + instrument.absolute);
+    // Plain loops: Float64Array.from with a map function goes through the iterator protocol.
+    const sigma = new Float64Array(readings.length);
+    for (let i = 0; i < readings.length; i++) sigma[i] = instrument.relative * Math.abs(readings[i]!.field) + instrument.absolute;
     const zero = readings.findIndex((_, i) => !(sigma[i]! > 0));
     if (zero >= 0 && !(instrument.relative >= 0 && instrument.absolute >= 0)) {
       // A negative part gives σ ≤ 0 too; say so rather than blame a zero reading.
@@ -50,7 +52,9 @@ export function readingUncertainty(survey: Survey, instrument?: RelativePlusAbso
     return { standardUncertainty: sigma, source: 'option', notes };
   }
   if (inFile === readings.length && inFile > 0) {
-    return { standardUncertainty: Float64Array.from(readings, (r) => r.standardUncertainty!), source: 'file', notes: [] };
+    const sigma = new Float64Array(readings.length);
+    for (let i = 0; i < readings.length; i++) sigma[i] = readings[i]!.standardUncertainty!;
+    return { standardUncertainty: sigma, source: 'file', notes: [] };
   }
   const notes = inFile > 0
     ? [`Only ${inFile} of ${readings.length} readings state an uncertainty, so none are used as stated; give one for all (--uncertainty) to get intervals from them.`]

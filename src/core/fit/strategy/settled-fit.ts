@@ -34,7 +34,8 @@ export function settledFit(
   if (!fit.converged || fit.stopCode === 'no-free-parameters') return false;
   const k = fit.freeIndices.length;
   const n = fit.residuals.length;
-  if (fit.jacobian.length !== n * k) return false;
+  const jacobian = fit.jacobian;
+  if (jacobian.length !== n * k) return false;
   const background = model.parameters.findIndex((p) => p.role === 'background');
   const level = background >= 0 ? fit.params[background]! : 0;
   let largest = 0;
@@ -56,7 +57,7 @@ export function settledFit(
     let dot = 0;
     let column = 0;
     for (let i = 0; i < n; i++) {
-      const a = fit.jacobian[i * k + c]!;
+      const a = jacobian[i * k + c]!;
       dot += (a * fit.residuals[i]!) / (sigma === null ? 1 : sigma[i]!);
       column += a * a;
     }
