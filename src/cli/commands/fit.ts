@@ -156,7 +156,9 @@ export const fitWorkersFrom = 200;
  * other work): one thread 2.4–4.2 s wall, 2.7–2.8 s CPU, 143–149 MB peak RSS; two workers
  * 4.1–10.5 s wall, 6.8–7.7 s CPU, 228–248 MB (each worker loads and warms up the code again,
  * and again when recycled every 2,000 files; not recycled: 4.5–5.5 s wall, 4.7–4.8 s CPU,
- * 265–274 MB), past the 200 MB target too; so two cores fit on one thread. --html, --csv
+ * 265–274 MB), past the 200 MB target too. Again with main's faster engine (load 2–3): one
+ * thread 2.1–2.3 s wall, 2.3 s CPU, 119 MB; two workers 2.9–3.8 s, 3.8 s CPU, 235–237 MB.
+ * So two cores fit on one thread. --html, --csv
  * and the text report need the whole report in hand and are always made on the main thread.
  */
 export function fitWorkers(files: number, cores: number = availableParallelism()): number {
