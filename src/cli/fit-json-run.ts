@@ -110,7 +110,9 @@ export async function fitJsonOnWorkers(
   // writing waits for stdout; outcomes come in order, so each write starts after the one before
   let writing: Promise<void> = Promise.resolve();
   const silent = { write: () => true };
-  const result = await runBatchInOrder(paths, settings, { workers, progress: silent, stop }, (outcome) => {
+  // workers get more files only once what they gave is written: a slow reader of stdout holds the run back, not memory
+  const holdBack = () => writing;
+  const result = await runBatchInOrder(paths, settings, { workers, progress: silent, stop, holdBack }, (outcome) => {
     const fit = outcome.fit;
     if (fit === undefined) {
       broken ??= outcome.unreadable.map((entry) => entry.reason).join(' ') || `${outcome.source}: not fitted`;
