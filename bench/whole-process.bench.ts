@@ -76,6 +76,12 @@ try {
   const speedup = one.seconds / two.seconds;
   console.log(`  batch --workers 2 speed-up over 1: ${speedup.toFixed(2)}× (target ≥ ${targets.workerSpeedup}×, idle machine) ${verdict(speedup >= targets.workerSpeedup)}`);
   missed ||= speedup < targets.workerSpeedup;
+  if (one.cpuSeconds !== null) {
+    // --workers 1 runs the main thread and a worker at once (and V8's compiler and GC threads):
+    // the cores it already keeps busy bound what a second worker can gain on this machine
+    const busy = one.cpuSeconds / one.seconds;
+    console.log(`    (--workers 1 already keeps ${busy.toFixed(2)} cores busy; on ${availableParallelism()} cores a second worker can gain at most ${(availableParallelism() / busy).toFixed(2)}×)`);
+  }
   if (loop.peakMb === null) {
     console.log('  fit peak RSS: not measured (needs Linux /proc)');
   } else {

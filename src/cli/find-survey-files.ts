@@ -150,7 +150,8 @@ function walk(folder: string, search: Search, lists: readonly SkipList[] | null)
       continue;
     }
     if (kind === 'folder') walk(path, search, active);
-    else if (kind === 'file') addFile(path, search.found);
+    // a file that is not a link is where its folder really is: its real path needs no system call
+    else if (kind === 'file') addFile(path, search.found, entry.isSymbolicLink() ? undefined : join(real, entry.name));
     else search.unusable.push(notRegular(path, statOrNull(path)));
   }
 }
@@ -178,13 +179,15 @@ function statOrNull(path: string): Stats | null {
   }
 }
 
-/** Keep the first path (in sorted walk order) of each real file. */
-function addFile(path: string, found: Map<string, string>): void {
-  let real: string;
-  try {
-    real = realpathSync(path);
-  } catch {
-    real = path;
+/** Keep the first path (in sorted walk order) of each real file; `known` is its real path when the caller knows it. */
+function addFile(path: string, found: Map<string, string>, known?: string): void {
+  let real = known;
+  if (real === undefined) {
+    try {
+      real = realpathSync(path);
+    } catch {
+      real = path;
+    }
   }
   if (!found.has(real)) found.set(real, path);
 }

@@ -7,6 +7,7 @@ import { toJsonReport } from '../core/report/to-json-report';
 import { importSurveys, type ImportOptions } from '../io';
 import { checksStatus } from './checks-status';
 import { exitStatus, worseStatus } from './exit-codes';
+import { reportSurveyText } from './json-report-stream';
 import { readSurveyBytes } from './read-survey-bytes';
 import { describeBytes, unreadableInput } from './run-record';
 
@@ -25,9 +26,23 @@ export function fitFile(path: string, importOptions: Omit<ImportOptions, 'source
     inputs.push(describeBytes(path, bytes));
     text = bytes.toString('utf8');
   } catch (error) {
-    inputs.push(unreadableInput(path, `could not be read: ${isRingfallError(error) ? error.code : (error as Error).message}`));
+    inputs.push(unreadableInput(path, readProblemNote(error)));
     throw error;
   }
+  return fitSurveyText(path, text, importOptions, settings, rejected);
+}
+
+/** The note of a file's `inputs` entry when it could not be read (readSurveyBytes threw `error`). */
+export function readProblemNote(error: unknown): string {
+  return `could not be read: ${isRingfallError(error) ? error.code : (error as Error).message}`;
+}
+
+/**
+ * fitFile for a file already read: its text (`path` names it in the reports) imported,
+ * every survey analysed, rows outside any survey added to `rejected`.
+ * @throws RingfallError when the text cannot be imported
+ */
+export function fitSurveyText(path: string, text: string, importOptions: Omit<ImportOptions, 'source'>, settings: SurveyAnalysisSettings, rejected: SetAsideRow[]): SurveyReport[] {
   const imported = importSurveys(text, { source: path, ...importOptions });
   // each survey's notes already hold the file's (units read, columns ignored, …)
   const reports = imported.surveys.map((survey) => analyseSurvey(survey, settings));
@@ -42,7 +57,7 @@ export function fitFile(path: string, importOptions: Omit<ImportOptions, 'source
 
 /** A file's part of `fit --json` made where it was fitted (a worker): text and small records only. */
 export interface FitFileTexts {
-  /** Each survey's JSON text, as JSON.stringify(survey, null, 2) of toJsonReport's mapping (no fleet section: nothing else is needed). */
+  /** Each survey's JSON text at the report's indentation (reportSurveyText) of toJsonReport's mapping (no fleet section: nothing else is needed). */
   readonly json: readonly string[];
   /** checksStatus of the file's surveys. */
   readonly status: number;
@@ -73,7 +88,7 @@ export function surveyTexts(reports: readonly SurveyReport[]): Pick<FitFileTexts
   const json = reports.map((survey) => {
     status = worseStatus(status, checksStatus({ surveys: [survey] }));
     if (survey.spec?.applied === false) unapplied.push({ source: survey.source, coil: survey.coil, spec: survey.spec });
-    return JSON.stringify(toJsonReport({ surveys: [survey] }).surveys[0], null, 2);
+    return reportSurveyText(toJsonReport({ surveys: [survey] }).surveys[0]!);
   });
   return { json, status, unapplied };
 }

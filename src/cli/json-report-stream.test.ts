@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { jsonPieces } from './json-pieces';
-import { JsonReportStream } from './json-report-stream';
+import { JsonReportStream, reportSurveyText } from './json-report-stream';
 import type { Report } from '../core/report/report';
 
 /** A value JSON.stringify must write, with large arrays (opened up by jsonPieces) and values it leaves out or turns to null. */
@@ -44,6 +44,15 @@ describe('JSON in pieces', () => {
   });
 });
 
+describe('a survey\'s text at the report\'s indentation', () => {
+  // reference: JSON.stringify(value, null, 2) with every line after the first indented by four spaces, and four before the first
+  it('reportSurveyText(value) is "    " + JSON.stringify(value, null, 2) indented by four spaces', () => {
+    fc.assert(fc.property(jsonish.object, (value) => {
+      expect(reportSurveyText(value)).toBe(`    ${JSON.stringify(value, null, 2).replace(/\n/g, '\n    ')}`);
+    }), { numRuns: 300, seed: 17 });
+  });
+});
+
 describe('the streamed JSON report', () => {
   const report = {
     schema: 'test/1',
@@ -64,6 +73,23 @@ describe('the streamed JSON report', () => {
     expect(writes.join('')).toBe(`${JSON.stringify({ ...report, partial: { signal: 'SIGTERM' } }, null, 2)}\n`);
     expect(Math.max(...writes.map((text) => text.length))).toBeLessThan(80_000);
     expect(waits).toBeGreaterThan(0);
+  });
+
+  // reference: JSON.stringify of the whole report, encoded as UTF-8 by Buffer.from
+  it('gives the same bytes into a byte sink, in buffers of about 1 MB (a survey larger than that in one of its own)', async () => {
+    const surveys = [
+      ...Array.from({ length: 400 }, (_, i) => ({ source: `s${i}.csv`, stopReason: 'relative reduction of χ² below 1e-10', note: '😀'.repeat(i % 7), values: Array.from({ length: 40 }, (_, j) => i * j * 1e-7) })),
+      // one survey larger than a buffer on its own
+      { source: 'big.csv', text: 'ρ µ'.repeat(400_000) },
+    ];
+    const whole = { ...report, surveys };
+    const pieces: Uint8Array[] = [];
+    const stream = new JsonReportStream({ write: (bytes: Uint8Array) => pieces.push(bytes) }, (part: Report) => ({ ...report, surveys: part.surveys }), undefined, { bytes: true });
+    for (const survey of surveys) await stream.surveyJson(reportSurveyText(survey));
+    await stream.finish();
+    expect(Buffer.concat(pieces).equals(Buffer.from(`${JSON.stringify(whole, null, 2)}\n`, 'utf8'))).toBe(true);
+    expect(pieces.length).toBeGreaterThanOrEqual(3);
+    expect(Math.max(...pieces.map((piece) => piece.length))).toBeLessThan(4_000_000);
   });
 
   it('gives an empty survey list when no survey came', async () => {

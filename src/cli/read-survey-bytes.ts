@@ -1,4 +1,4 @@
-import { closeSync, constants, fstatSync, openSync, readFileSync } from 'node:fs';
+import { closeSync, constants, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
 import { RingfallError } from '../core/errors';
 import { kindOf } from './find-survey-files';
 
@@ -23,7 +23,7 @@ export function readSurveyBytes(path: string): Buffer {
     if (!stats.isFile()) {
       throw new RingfallError('INPUT_NOT_REGULAR', `Cannot read "${path}": it is ${kindOf(stats)}, not a regular file; only regular files are read. Copy the survey into a file and name that.`, { value: path });
     }
-    return readFileSync(fd);
+    return readOpenFile(fd, stats.size);
   } catch (cause) {
     if (cause instanceof RingfallError) throw cause;
     throw readError(path, cause);
@@ -31,6 +31,27 @@ export function readSurveyBytes(path: string): Buffer {
     closeSync(fd);
   }
 }
+
+/**
+ * The `size` bytes of an open regular file, as readFileSync(fd) reads them but without its
+ * second fstat (one system call less per file), fewer when the file ended sooner. A size of
+ * 0 (a file the system cannot size, as under /proc) or past one read (2 GiB) is left to
+ * readFileSync, with its errors.
+ */
+function readOpenFile(fd: number, size: number): Buffer {
+  if (size === 0 || size > largestRead) return readFileSync(fd);
+  const bytes = Buffer.allocUnsafe(size);
+  let got = 0;
+  while (got < size) {
+    const read = readSync(fd, bytes, got, size - got, null);
+    if (read === 0) break;
+    got += read;
+  }
+  return got === size ? bytes : bytes.subarray(0, got);
+}
+
+/** Bytes one readSync may read (Node's kIoMaxLength, 2^31 - 1). */
+const largestRead = 2 ** 31 - 1;
 
 function readError(path: string, cause: unknown): RingfallError {
   const code = (cause as NodeJS.ErrnoException | null)?.code;

@@ -72,7 +72,7 @@ describe('a run stopped by SIGTERM (as a service manager stops it)', () => {
     expect(report.surveys.length).toBeGreaterThan(0);
   });
 
-  it('fit stops between files on the signal and reports the files done (fitFilesUntilStopped, the loop fit --json runs)', async () => {
+  it('fit stops between files on the signal and reports the files done (fitFilesUntilStopped, the loop of the text report, --html and --csv; fit-json.test.ts checks --json)', async () => {
     const { fitFilesUntilStopped } = await import('../../src/cli/commands/fit');
     const { readFitFlags } = await import('../../src/cli/fit-options');
     // a stop request that arrives while the third file is being fitted

@@ -138,7 +138,7 @@ describe('ringfall fit (CONTRACT.md)', () => {
     }
   });
 
-  it('ringfall fit --json on many files (written survey by survey from a spool) prints the bytes, stderr and exit status of the report built whole (as with --csv)', () => {
+  it('ringfall fit --json on many files (written survey by survey as they are fitted) prints the bytes, stderr and exit status of the report built whole (as with --csv)', () => {
     // the in-memory path, kept for --html/--csv, is the independent reference: one JSON.stringify of the whole report
     const folder = mkdtempSync(join(tmpdir(), 'ringfall-fit-stream-'));
     try {

@@ -18,6 +18,8 @@ export interface BatchRunOptions {
   readonly stop?: Pick<StopSignals, 'onStop'>;
   /** Seconds one file may take before it is left out with BATCH_FILE_TIMEOUT (worker-pool.ts). */
   readonly fileTimeLimit?: number;
+  /** Backpressure from the consumer of the outcomes (WorkerPoolOptions.holdBack). */
+  readonly holdBack?: () => Promise<unknown> | null;
 }
 
 /** A finished (or stopped) batch: the Report with its fleet section, and how far it got. */
@@ -76,6 +78,7 @@ export async function runBatchInOrder(
     workers,
     chunkSize,
     ...(options.fileTimeLimit === undefined ? {} : { fileTimeLimit: options.fileTimeLimit }),
+    ...(options.holdBack === undefined ? {} : { holdBack: options.holdBack }),
     entry: batchWorkerEntry(),
     workerData: settings,
     onOutcomes: (finished) => {

@@ -51,6 +51,28 @@ describe('runWorkerPool()', () => {
     expect(lost[0]!.unreadable[0]!.reason).toContain('exited with status 3');
   });
 
+  it('runWorkerPool() gives a worker no more files while holdBack keeps it waiting, and finishes every file once it is released', async () => {
+    const outcomes: FileOutcome[] = [];
+    let release: () => void = () => undefined;
+    let held = true;
+    const gate = new Promise<void>((resolve) => { release = resolve; });
+    const pool = runWorkerPool(Array.from({ length: 60 }, (_, index) => ({ index, path: `f${index}.csv` })), {
+      workers: 2, chunkSize: 3, entry, workerData: null,
+      onOutcomes: (finished) => outcomes.push(...finished),
+      holdBack: () => (held ? gate : null),
+    });
+    // long enough for unpaused workers to answer all 20 chunks many times over
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    const whileHeld = outcomes.length;
+    // each worker finishes only the chunks it was given before its first answer: at most 2 workers x 2 in flight x 3 files
+    expect(whileHeld).toBeGreaterThan(0);
+    expect(whileHeld).toBeLessThanOrEqual(12);
+    held = false;
+    release();
+    await pool.done;
+    expect(outcomes.map((o) => o.index).sort((a, b) => a - b)).toEqual(Array.from({ length: 60 }, (_, i) => i));
+  });
+
   it('runWorkerPool() rejects when a worker dies before it is ready, rather than starting workers without end', async () => {
     await expect(run(['a.csv'], 2, 'fail-to-start')).rejects.toThrow('A batch worker could not start: cannot load');
   });

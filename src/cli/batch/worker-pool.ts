@@ -23,8 +23,15 @@ export interface WorkerPoolOptions {
    * the outcome BATCH_FILE_TIMEOUT. Default: no limit.
    */
   readonly fileTimeLimit?: number;
-  /** Files one worker fits before a fresh one replaces it (default filesPerWorker, 2,000). */
+  /** Files one worker fits before a fresh one replaces it (default defaultFilesPerWorker). */
   readonly filesPerWorker?: number;
+  /**
+   * Asked after each chunk's outcomes are handed over: a promise to wait for before the
+   * worker is given more files (e.g. until the consumer has written what it holds), or null
+   * to go on. Without it a consumer slower than the workers (a slow reader of stdout) would
+   * hold finished outcomes in memory without bound.
+   */
+  readonly holdBack?: () => Promise<unknown> | null;
 }
 
 /** A running pool: `done` settles when every file has an outcome or the pool was stopped. */
@@ -98,8 +105,10 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
     let given = 0;
     let retiring = false;
     workers.add(worker);
+    // set when the worker has exited: a feed delayed by holdBack must give it nothing
+    let exited = false;
     const feed = () => {
-      while (!stopped && inFlight.size < inFlightPerWorker && queue.length > 0 && given < filesPerWorker) {
+      while (!stopped && !exited && inFlight.size < inFlightPerWorker && queue.length > 0 && given < filesPerWorker) {
         const chunk = queue.shift()!;
         given += chunk.files.length;
         const id = nextChunk++;
@@ -133,13 +142,18 @@ export function runWorkerPool(tasks: readonly FileTask[], options: WorkerPoolOpt
         // a fresh worker starts with a small heap; this one has done its share
         retiring = true;
         void worker.terminate();
-      } else feed();
+      } else {
+        const wait = options.holdBack?.() ?? null;
+        if (wait === null) feed();
+        else void wait.then(feed, feed);
+      }
     });
     let failure: Error | null = null;
     worker.on('error', (error) => {
       failure = error;
     });
     worker.on('exit', (code) => {
+      exited = true;
       if (watch !== null) clearInterval(watch);
       workers.delete(worker);
       if (stopped || settle === null) return;

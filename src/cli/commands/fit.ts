@@ -1,6 +1,6 @@
-import { rmSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
+import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { Spec } from '../../core/analysis/spec/spec';
 import { isRingfallError, RingfallError } from '../../core/errors';
@@ -21,14 +21,12 @@ import { stoppedStatus, watchStopSignals, yieldToEvents, type StopSignals } from
 import { writeFileAtomic } from '../write-file-atomic';
 import type { CommandContext } from './command-context';
 import { checksStatus } from '../checks-status';
-import { exitStatus, worseStatus } from '../exit-codes';
-import { JsonReportStream, stdoutBackpressure, type TextSink } from '../json-report-stream';
-import { scratchFolder, SurveySpool, type SpoolPlace } from '../batch/survey-spool';
+import type { ByteSink } from '../json-report-stream';
 import { cliRunRecord, describeSpecFile, runTime } from '../run-record';
-import { fitFile, surveyTexts, type FitFileTexts } from '../fit-file';
-import type { BatchSettings } from '../batch/batch-settings';
-import { runBatchInOrder } from '../batch/run-batch';
-import { fitRunSettings, type RunInput } from '../../core/report/run-record';
+import { fitFile } from '../fit-file';
+import { fitRunSettings, type RunInput, type RunRecord } from '../../core/report/run-record';
+import { hashRunFiles, keptBytesBudget } from '../hash-run-files';
+import { fitJsonOnThread, fitJsonOnWorkers, FitJsonOutput } from '../fit-json-run';
 
 /**
  * `ringfall fit FILE... [options]` (CONTRACT.md): import every survey in the files (folders
@@ -63,13 +61,14 @@ export function registerFit(program: Command, context: CommandContext): void {
     if (unusable.length > 0) context.setExitCode(2);
     // Ctrl-C or SIGTERM between files: the files done are reported, marked partial
     const stop = watchStopSignals();
-    // --json alone is written survey by survey from a spool on disk, so memory stays flat in the number of files
-    const spool = options.json && options.html === null && options.csv === null ? openScratchSpool() : null;
     try {
-      const streamed = spool === null ? null : new StreamedSurveys(spool.spool);
-      const { reports, problems, rejected, inputs, filesDone } = streamed !== null && fitWorkers(paths.length) > 1
-        ? await fitFilesOnWorkers(paths, options, specs, stop, streamed)
-        : await fitFilesUntilStopped(paths, options, specs, stop, streamed?.add);
+      const settings = fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } });
+      // --json alone is written survey by survey as the files are fitted, so memory stays flat in the number of files
+      if (options.json && options.html === null && options.csv === null) {
+        await printJsonReport(paths, options, specs, { stop, context, runFor: (inputs) => cliRunRecord('fit', time, inputs, settings), skipped });
+        return;
+      }
+      const { reports, problems, rejected, inputs, filesDone } = await fitFilesUntilStopped(paths, options, specs, stop);
       for (const problem of problems) process.stderr.write(`ringfall: ${printable(problem)}\n`);
       if (problems.length > 0) context.setExitCode(2);
       const signal = stop.signal;
@@ -77,15 +76,8 @@ export function registerFit(program: Command, context: CommandContext): void {
         process.stderr.write(`ringfall: ${signal}: stopped after ${filesDone} of ${paths.length} files; the report covers those only.\n`);
         context.setExitCode(stoppedStatus(signal));
       }
-      if ((streamed?.count ?? reports.length) === 0) return;
-      const run = cliRunRecord('fit', time, inputs, fitRunSettings({ fit: options.fit, thresholds: options.thresholds, spec: describeSpecFile(options.spec), import: options.import, extra: { skipLists: flags.skip !== false } }));
-      const partial = signal === null ? {} : { partial: { filesDone, filesTotal: paths.length, signal } };
-      if (streamed !== null) {
-        await streamed.write({ rejected, run, ...(skipped.length > 0 ? { skipped } : {}) }, partial);
-        reportUnappliedSpecs({ surveys: streamed.unapplied });
-        context.setExitCode(streamed.status);
-        return;
-      }
+      if (reports.length === 0) return;
+      const run = cliRunRecord('fit', time, inputs, settings);
       const report: Report = { surveys: reports, rejected, run, ...(skipped.length > 0 ? { skipped } : {}) };
       writeSideFiles(report, options);
       if (options.json) {
@@ -99,62 +91,57 @@ export function registerFit(program: Command, context: CommandContext): void {
       context.setExitCode(checksStatus(report));
     } finally {
       stop.dispose();
-      spool?.dispose();
     }
   });
 }
 
 /**
- * A spool for `fit --json` in a scratch folder of the system's temporary folder, or null
- * when none can be made there (a read-only TMPDIR): the report is then built whole in
- * memory as before, so a run never fails for want of scratch space.
+ * `fit --json` without --html/--csv, in two passes so that neither the report nor its
+ * surveys are ever held whole: first every file is read and hashed (hashRunFiles; the run
+ * record, with every file's hash, comes before the surveys in the report), then the head
+ * of the report is written and each file is fitted and its surveys written at once (on
+ * this thread, or on workers: fitWorkers). Problem lines, the stop line and the unapplied
+ * specs go to stderr as fit always wrote them, once the report is closed; a run that gave
+ * no survey prints no report.
+ * A stopped run's `inputs` lists every file hashed in the first pass, fitted or not
+ * (`partial.filesDone` says how many were fitted); a stop during the first pass fits none.
  */
-function openScratchSpool(): { spool: SurveySpool; dispose(): void } | null {
-  let folder: string;
-  try {
-    folder = scratchFolder('fit --json', 'Set TMPDIR to a folder you can write.', 'ringfall-fit-');
-  } catch {
-    return null;
+export async function printJsonReport(paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], run: JsonRunOptions): Promise<FitJsonOutput> {
+  const { stop, context } = run;
+  const stderr = run.stderr ?? process.stderr;
+  const workers = run.workers ?? fitWorkers(paths.length);
+  // workers read the files again themselves: keep no bytes for them
+  const first = await hashRunFiles(paths, stop, workers > 1 ? 0 : run.keepBytes ?? keptBytesBudget);
+  const out = new FitJsonOutput(run.runFor(first.files.inputs()), run.skipped, run.sink);
+  if (!first.stopped) {
+    if (workers > 1) await fitJsonOnWorkers(paths, first.files, options, specs, stop, out, workers);
+    else await fitJsonOnThread(paths, first.files, options, specs, stop, out);
   }
-  const spool = new SurveySpool(join(folder, 'surveys.jsonl'));
-  return { spool, dispose: () => { spool.dispose(); rmSync(folder, { recursive: true, force: true }); } };
+  const signal = stop.signal;
+  // the report is closed first, so stderr lines never land inside it when both streams go to one place
+  if (out.surveyCount > 0) await out.finish(signal === null ? {} : { partial: { filesDone: out.filesDone, filesTotal: paths.length, signal } });
+  for (const problem of out.problems) stderr.write(`ringfall: ${printable(problem)}\n`);
+  if (out.problems.length > 0) context.setExitCode(2);
+  if (signal !== null) {
+    stderr.write(`ringfall: ${signal}: stopped after ${out.filesDone} of ${paths.length} files; the report covers those only.\n`);
+    context.setExitCode(stoppedStatus(signal));
+  }
+  if (out.surveyCount === 0) return out;
+  reportUnappliedSpecs({ surveys: out.unapplied }, stderr);
+  context.setExitCode(out.status);
+  return out;
 }
 
-/**
- * The surveys of `fit --json` as they are fitted: each survey's JSON text (surveyTexts:
- * with no fleet section a survey's JSON needs nothing of the others) appended to the
- * spool, and kept in memory only what the exit status and the stderr lines about
- * unapplied specs need. `write` then prints the report with JsonReportStream: the same
- * bytes as one JSON.stringify of the whole report.
- */
-export class StreamedSurveys {
-  private readonly places: SpoolPlace[] = [];
-  /** The exit status from the checks so far (checksStatus of the surveys seen). */
-  status: number = exitStatus.passed;
-  /** Surveys no given spec applies to, with what their stderr line reads. */
-  readonly unapplied: Pick<SurveyReport, 'source' | 'coil' | 'spec'>[] = [];
-
-  constructor(private readonly spool: SurveySpool) {}
-
-  get count(): number {
-    return this.places.length;
-  }
-
-  readonly add = (reports: readonly SurveyReport[]): void => this.addTexts(surveyTexts(reports));
-
-  /** Surveys already made into text (a worker's FitFileTexts). */
-  addTexts(texts: Pick<FitFileTexts, 'json' | 'status' | 'unapplied'>): void {
-    for (const text of texts.json) this.places.push(this.spool.append(text));
-    this.status = worseStatus(this.status, texts.status);
-    this.unapplied.push(...texts.unapplied);
-  }
-
-  /** Print the report: the keys of `rest` around the surveys (toJsonReport's order), then `extra` (the partial marker). */
-  async write(rest: Omit<Report, 'surveys'>, extra: Record<string, unknown>, sink: TextSink = process.stdout): Promise<void> {
-    const stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...rest }), sink === process.stdout ? stdoutBackpressure : undefined);
-    for (const place of this.places) await stream.surveyText(this.spool.text(place));
-    await stream.finish({}, extra);
-  }
+/** How printJsonReport runs: stop signals, where the exit status goes, the run record for the inputs hashed, the skipped files; for tests, where the report and the stderr lines go, the workers and the bytes kept. */
+export interface JsonRunOptions {
+  readonly stop: Pick<StopSignals, 'signal' | 'onStop'>;
+  readonly context: Pick<CommandContext, 'setExitCode'>;
+  readonly runFor: (inputs: readonly RunInput[]) => RunRecord;
+  readonly skipped: readonly SkippedFiles[];
+  readonly sink?: ByteSink;
+  readonly workers?: number;
+  readonly keepBytes?: number;
+  readonly stderr?: { write(text: string): unknown };
 }
 
 /** Files from which `fit --json` may fit on worker threads: below it, starting the workers (0.1–0.4 s each) costs more than it saves. */
@@ -163,49 +150,25 @@ export const fitWorkersFrom = 200;
 /**
  * Worker threads for `fit --json` on `files` files on a machine with `cores` cores: all of
  * them (as batch) from fitWorkersFrom files on when there are more than two, else 1 (fit on
- * the main thread). Measured on 2 cores, 10,000 thirty-reading files, `--model loop`
- * (DEVELOPERS.md): two workers took 0.7–1.3× the main thread's wall time for 1.5–1.9× its
- * CPU (each worker loads and warms up the code again, and again when recycled) and
- * 230–270 MB peak RSS against 140–190 MB, past the 200 MB target; so two cores fit on one
- * thread. --html, --csv and the text report need the whole report in hand and are always
- * made on the main thread.
+ * the main thread). Measured on 2 cores, 10,000 thirty-reading files, `--model loop`, dist
+ * (DEVELOPERS.md). With the spool: two workers took 0.7–1.3× the main thread's wall time for
+ * 1.5–1.9× its CPU. Without it (the main thread only hashes and writes; load 4.9–5.5 from
+ * other work): one thread 2.4–4.2 s wall, 2.7–2.8 s CPU, 143–149 MB peak RSS; two workers
+ * 4.1–10.5 s wall, 6.8–7.7 s CPU, 228–248 MB (each worker loads and warms up the code again,
+ * and again when recycled every 2,000 files; not recycled: 4.5–5.5 s wall, 4.7–4.8 s CPU,
+ * 265–274 MB), past the 200 MB target too. Again with main's faster engine (load 2–3): one
+ * thread 2.1–2.3 s wall, 2.3 s CPU, 119 MB; two workers 2.9–3.8 s, 3.8 s CPU, 235–237 MB.
+ * So two cores fit on one thread. --html, --csv
+ * and the text report need the whole report in hand and are always made on the main thread.
  */
 export function fitWorkers(files: number, cores: number = availableParallelism()): number {
   return files >= fitWorkersFrom && cores > 2 ? cores : 1;
 }
 
-/**
- * fitFilesUntilStopped on batch's worker pool (runBatchInOrder): each worker reads, hashes,
- * imports and fits its files and returns them as `fit --json` text (fitFileTexts), handed
- * over in file order, so the report is the same byte for byte as on one thread. A stop
- * signal ends the workers; the files finished are reported. A file that breaks a worker
- * (a bug, not a RingfallError) ends the run as an internal error, as it would on one thread.
- */
-export async function fitFilesOnWorkers(
-  paths: readonly string[], options: FitCommandOptions, specs: readonly Spec[], stop: Pick<StopSignals, 'onStop'>, streamed: StreamedSurveys, workers: number = fitWorkers(paths.length),
-): Promise<ReturnType<typeof fitFiles> & { filesDone: number }> {
-  const all: ReturnType<typeof fitFiles> = { reports: [], problems: [], rejected: [], inputs: [] };
-  const settings: BatchSettings = { fit: options.fit, specs, thresholds: options.thresholds, import: options.import, keepPoints: true, fitTexts: true };
-  let broken: string | null = null;
-  const silent = { write: () => true };
-  const result = await runBatchInOrder(paths, settings, { workers, progress: silent, stop }, (outcome) => {
-    if (outcome.fit === undefined) {
-      broken ??= outcome.unreadable.map((entry) => entry.reason).join(' ') || `${outcome.source}: not fitted`;
-      return;
-    }
-    streamed.addTexts(outcome.fit);
-    if (outcome.fit.problem !== null) all.problems.push(outcome.fit.problem);
-    all.rejected.push(...outcome.fit.rejected);
-    all.inputs.push(...outcome.fit.inputs);
-  });
-  if (broken !== null) throw new Error(broken);
-  return { ...all, filesDone: result.filesDone };
-}
-
 /** One line on stderr per survey that no given spec applies to (the report says it too; exit 2). */
-export function reportUnappliedSpecs(report: { readonly surveys: readonly Pick<SurveyReport, 'source' | 'coil' | 'spec'>[] }): void {
+export function reportUnappliedSpecs(report: { readonly surveys: readonly Pick<SurveyReport, 'source' | 'coil' | 'spec'>[] }, stderr: { write(text: string): unknown } = process.stderr): void {
   for (const survey of report.surveys) {
-    if (survey.spec?.applied === false) process.stderr.write(`ringfall: ${survey.source}${survey.coil ? ` (${survey.coil})` : ''}: ${survey.spec.reason ?? 'no spec applies'}\n`);
+    if (survey.spec?.applied === false) stderr.write(`ringfall: ${survey.source}${survey.coil ? ` (${survey.coil})` : ''}: ${survey.spec.reason ?? 'no spec applies'}\n`);
   }
 }
 
