@@ -17,6 +17,7 @@ describe('a header read once is not detected again, with the same result', () =>
       expect(result.detection.columns).toEqual(fresh.columns);
       expect(result.detection.notes).toEqual(fresh.notes);
       expect(result.surveys[0]?.source).toBe(source);
+      // SI prefix milli = 1e-3 (BIPM, The International System of Units, 9th ed., table 7): 2.7 mT = 0.0027 T
       expect(result.surveys[0]?.readings.map((r) => r.field)).toEqual([0.0027, 0.0026, 0.0023]);
       // the bad cell is named with this file's line, not the first file's
       expect(result.surveys[0]?.rejected.map((row) => [row.line, row.value])).toEqual([[6, 'oops']]);
@@ -27,6 +28,7 @@ describe('a header read once is not detected again, with the same result', () =>
     const bad = 'distance (mm),B\n0,1\n10,1\n20,1\n';
     for (const source of ['x.csv', 'y.csv']) expect(() => importSurveys(bad, { source })).toThrow(source);
     // the same header with the unit given as an option is read, and the learnt layout of that does not leak to a run without it
+    // 1 mT = 0.001 T (SI prefix milli, as above)
     expect(importSurveys(bad, { source: 'z.csv', fieldUnit: 'mT' }).surveys[0]?.readings[0]?.field).toBe(0.001);
     expect(() => importSurveys(bad, { source: 'w.csv' })).toThrow('w.csv');
   });
