@@ -40,7 +40,8 @@ export class FitJsonOutput {
 
   constructor(run: RunRecord, skipped: readonly SkippedFiles[], sink: ByteSink = process.stdout, backpressure: SinkBackpressure | undefined = sink === process.stdout ? stdoutBackpressure : undefined) {
     this.rest = { rejected: this.rejected, run, ...(skipped.length > 0 ? { skipped: [...skipped] } : {}) };
-    this.stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...this.rest }), backpressure, { bytes: true });
+    // stdout calls a write's callback once it holds the bytes no longer (Node's Writable), so its buffers are reused
+    this.stream = new JsonReportStream(sink, (part: Report) => toJsonReport({ ...part, ...this.rest }), backpressure, { bytes: true, reuse: sink === process.stdout });
   }
 
   /** Surveys written so far: none means no report is printed (as when no file gave a survey). */

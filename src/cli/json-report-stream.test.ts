@@ -93,6 +93,38 @@ describe('the streamed JSON report', () => {
     expect(Math.max(...pieces.map((piece) => piece.length))).toBeLessThan(4_000_000);
   });
 
+  // reference: JSON.stringify of the whole report, encoded as UTF-8 by Buffer.from
+  it('with reuse, writes into a buffer again only after the sink said it was done with it, and the bytes stay the same', async () => {
+    const surveys = Array.from({ length: 3000 }, (_, i) => ({ source: `s${i}.csv`, stopReason: 'relative reduction of χ² below 1e-10', values: Array.from({ length: 40 }, (_, j) => i * j * 1e-7) }));
+    const copies: Buffer[] = [];
+    const held = new Set<ArrayBufferLike>();
+    const seen = new Set<ArrayBufferLike>();
+    // as a Writable: the bytes are taken (copied here) later, then `done` is called; a buffer written into while held would corrupt the copy
+    const sink = {
+      write: (bytes: Uint8Array, done?: (error?: Error | null) => void) => {
+        expect(held.has(bytes.buffer)).toBe(false);
+        held.add(bytes.buffer);
+        seen.add(bytes.buffer);
+        setImmediate(() => {
+          copies.push(Buffer.from(bytes));
+          held.delete(bytes.buffer);
+          done?.();
+        });
+      },
+    };
+    const stream = new JsonReportStream(sink, (part: Report) => ({ ...report, surveys: part.surveys }), undefined, { bytes: true, reuse: true });
+    for (const [i, survey] of surveys.entries()) {
+      await stream.surveyJson(reportSurveyText(survey));
+      // let the sink take what it was given now and then, as stdout does between files
+      if (i % 50 === 0) await new Promise((resolve) => setImmediate(resolve));
+    }
+    await stream.finish();
+    await new Promise((resolve) => setImmediate(resolve));
+    expect(Buffer.concat(copies).equals(Buffer.from(`${JSON.stringify({ ...report, surveys }, null, 2)}\n`, 'utf8'))).toBe(true);
+    // more writes than buffers: buffers were written into again
+    expect(seen.size).toBeLessThan(copies.length);
+  });
+
   it('gives an empty survey list when no survey came', async () => {
     const writes: string[] = [];
     const stream = new JsonReportStream({ write: (text) => writes.push(text) }, (part: Report) => ({ schema: 'test/1', surveys: part.surveys }));
