@@ -1,9 +1,8 @@
-import { createHash } from 'node:crypto';
 import { isRingfallError } from '../core/errors';
 import type { RunInput } from '../core/report/run-record';
 import { readProblemNote } from './fit-file';
 import { readSurveyBytes } from './read-survey-bytes';
-import { unreadableInput } from './run-record';
+import { sha256, unreadableInput } from './run-record';
 import { yieldToEvents, type StopSignals } from './stop-signals';
 
 /**
@@ -65,7 +64,7 @@ export class FirstPass {
       this.unreadable.set(index, { note: readProblemNote(error), problem: error.message });
       return;
     }
-    createHash('sha256').update(bytes).digest().copy(this.digests, index * digestBytes);
+    sha256(bytes).copy(this.digests, index * digestBytes);
     this.sizes[index] = bytes.byteLength;
     if (this.keptTotal + bytes.byteLength <= this.keepBytes) this.keep(index, bytes);
   }
@@ -127,7 +126,7 @@ export class FirstPass {
       if (!isRingfallError(error)) throw error;
       return { problem: `${error.message} It was read and hashed earlier in this run (the run record lists it) but could not be read again to be fitted, so it was not fitted. Run again.` };
     }
-    const digest = createHash('sha256').update(bytes).digest();
+    const digest = sha256(bytes);
     const same = bytes.byteLength === this.sizes[index] && digest.equals(this.digests.subarray(index * digestBytes, (index + 1) * digestBytes));
     return same ? { bytes } : { problem: changedProblem(path) };
   }
