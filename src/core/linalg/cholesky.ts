@@ -40,7 +40,6 @@ export function choleskyFactorize(
       let sum = 0;
       for (let i = 0; i < m; i++) sum += J[ca + i]! * J[cb + i]!;
       gram[a * k + b] = sum;
-      gram[b * k + a] = sum;
     }
   }
   return choleskyFromNormalEquations(m, k, J, pivot, columnNorms, qtf, gram, gradient, minimumRatio);
@@ -49,7 +48,7 @@ export function choleskyFactorize(
 /**
  * The second half of {@link choleskyFactorize}, for callers that formed the normal
  * equations themselves (a fused pass over the readings): from `gram` = JᵀJ (k×k,
- * row-major, both triangles; destroyed) and `gradient` = Jᵀf (k), the column norms
+ * row-major, lower triangle; only that is read, and it is destroyed) and `gradient` = Jᵀf (k), the column norms
  * √(JᵀJ)ⱼⱼ, the pivoted R into the leading upper triangle of `J` (leading dimension m;
  * nothing else of J is read or written) and Qᵀf into `qtf`. Same acceptance test and
  * return value as choleskyFactorize.
@@ -81,16 +80,17 @@ export function choleskyFromNormalEquations(
 
 /**
  * The one Cholesky factorisation of the project: A = L·Lᵀ in place for a symmetric k×k
- * matrix (row-major, both triangles stored), by the outer-product form (Golub & Van Loan,
- * "Matrix Computations", 4th ed., Alg. 4.2.2) with optional diagonal pivoting (§4.2.8). Each
- * entry is reduced by the products L_im·L_jm in the order m = 0, 1, …, so the rounding is that
- * of the Cholesky–Banachiewicz order (Alg. 4.2.1).
+ * matrix (row-major; only the lower triangle is read or written, the strict upper triangle
+ * is left as it was), by the outer-product form (Golub & Van Loan, "Matrix Computations",
+ * 4th ed., Alg. 4.2.2) with optional diagonal pivoting (§4.2.8). Each entry is reduced by
+ * the products L_im·L_jm in the order m = 0, 1, …, so the rounding is that of the
+ * Cholesky–Banachiewicz order (Alg. 4.2.1).
  *
  * With `pivot` (length k) the largest remaining diagonal is brought forward at each step and
  * `pivot[j]` names the original row and column in position j; with null, no pivoting. A
  * pivot is accepted only when the remaining diagonal exceeds `floor[original index]`;
  * otherwise false is returned with `a` part-way through. On success the lower triangle of
- * `a` holds L (the strict upper triangle keeps the symmetric working values).
+ * `a` holds L.
  */
 export function choleskyInPlace(a: Float64Array, k: number, pivot: Int32Array | null, floor: ArrayLike<number>): boolean {
   if (pivot !== null) for (let j = 0; j < k; j++) pivot[j] = j;
@@ -99,7 +99,7 @@ export function choleskyInPlace(a: Float64Array, k: number, pivot: Int32Array | 
       let q = j;
       for (let i = j + 1; i < k; i++) if (a[i * k + i]! > a[q * k + q]!) q = i;
       if (q !== j) {
-        swapRowsAndColumns(a, k, j, q);
+        swapSymmetricLower(a, k, j, q);
         const t = pivot[j]!;
         pivot[j] = pivot[q]!;
         pivot[q] = t;
@@ -111,11 +111,9 @@ export function choleskyInPlace(a: Float64Array, k: number, pivot: Int32Array | 
     a[j * k + j] = diagonal;
     for (let i = j + 1; i < k; i++) a[i * k + j]! /= diagonal;
     for (let i = j + 1; i < k; i++) {
-      for (let l = j + 1; l <= i; l++) {
-        const value = a[i * k + l]! - a[i * k + j]! * a[l * k + j]!;
-        a[i * k + l] = value;
-        a[l * k + i] = value;
-      }
+      const rowI = i * k;
+      const lij = a[rowI + j]!;
+      for (let l = j + 1; l <= i; l++) a[rowI + l] = a[rowI + l]! - lij * a[l * k + j]!;
     }
   }
   return true;
@@ -171,15 +169,31 @@ export function choleskyInverse(lower: Float64Array, k: number): Float64Array {
   return inverse;
 }
 
-function swapRowsAndColumns(a: Float64Array, k: number, p: number, q: number): void {
-  for (let c = 0; c < k; c++) {
-    const t = a[p * k + c]!;
-    a[p * k + c] = a[q * k + c]!;
-    a[q * k + c] = t;
+/**
+ * Symmetric interchange of rows and columns p < q of a matrix held in its lower triangle
+ * (row-major), as LAPACK's dsyswapr does for uplo = 'L': the rows of the columns before p
+ * (the factor so far), the diagonal entries, the segment between p and q (row of one, column
+ * of the other) and the columns below q. The entry (q, p) stays where it is.
+ */
+function swapSymmetricLower(a: Float64Array, k: number, p: number, q: number): void {
+  const rowP = p * k;
+  const rowQ = q * k;
+  for (let c = 0; c < p; c++) {
+    const t = a[rowP + c]!;
+    a[rowP + c] = a[rowQ + c]!;
+    a[rowQ + c] = t;
   }
-  for (let r = 0; r < k; r++) {
-    const t = a[r * k + p]!;
+  const t = a[rowP + p]!;
+  a[rowP + p] = a[rowQ + q]!;
+  a[rowQ + q] = t;
+  for (let c = p + 1; c < q; c++) {
+    const u = a[c * k + p]!;
+    a[c * k + p] = a[rowQ + c]!;
+    a[rowQ + c] = u;
+  }
+  for (let r = q + 1; r < k; r++) {
+    const u = a[r * k + p]!;
     a[r * k + p] = a[r * k + q]!;
-    a[r * k + q] = t;
+    a[r * k + q] = u;
   }
 }

@@ -7,7 +7,7 @@ export const FUSED_MAX_FREE = 8;
 
 /**
  * The normal equations of the free parameters in the internal variables, in one pass over
- * the readings: `ws.gram` (k×k, row-major, both triangles) = JᵀJ and `ws.work` (k) = Jᵀr,
+ * the readings: `ws.gram` (k×k, row-major, lower triangle) = JᵀJ and `ws.work` (k) = Jᵀr,
  * with J the weighted Jacobian (∂fᵢ/∂θⱼ)/σᵢ times the bound transform's dθⱼ/duⱼ and r the
  * weighted residuals in `ws.residuals`. From the problem's `normalEquations` when it has
  * one; else from its row-major `jacobian`, accumulated row by row. Either way the products
@@ -28,19 +28,22 @@ export function fusedNormalEquations(problem: LeastSquaresProblem, map: FreePara
   const gram = ws.gram;
   const gradient = ws.work;
   if (problem.normalEquations !== undefined) {
-    const full = ws.fullGram;
-    const fullGradient = ws.fullGradient;
-    for (let e = 0; e < p * p; e++) full[e] = 0;
-    for (let j = 0; j < p; j++) fullGradient[j] = 0;
+    // With every parameter free (k = p) the problem's p×p system is the free one: it is
+    // written straight into ws.gram and ws.work, with nothing to pick out and copy.
+    const all = k === p;
+    const full = all ? gram : ws.fullGram;
+    const fullGradient = all ? gradient : ws.fullGradient;
+    // Cleared because a problem may accumulate (+=) into them; the upper triangle is never read.
+    for (let a = 0; a < p; a++) {
+      fullGradient[a] = 0;
+      for (let b = a * p, end = b + a; b <= end; b++) full[b] = 0;
+    }
     problem.normalEquations(ws.params, ws.inverseUncertainty, scale, ws.residuals, full, fullGradient);
+    if (all) return;
     for (let a = 0; a < k; a++) {
       const u = map.index[a]!;
       gradient[a] = fullGradient[u]!;
-      for (let b = 0; b <= a; b++) {
-        const value = full[u * p + map.index[b]!]!;
-        gram[a * k + b] = value;
-        gram[b * k + a] = value;
-      }
+      for (let b = 0; b <= a; b++) gram[a * k + b] = full[u * p + map.index[b]!]!;
     }
     return;
   }
@@ -63,5 +66,4 @@ export function fusedNormalEquations(problem: LeastSquaresProblem, map: FreePara
       for (let b = 0; b <= a; b++) gram[a * k + b]! += value * row[b]!;
     }
   }
-  for (let a = 0; a < k; a++) for (let b = 0; b < a; b++) gram[b * k + a] = gram[a * k + b]!;
 }
