@@ -110,6 +110,11 @@ function checkLength(name: string, array: ArrayLike<unknown> | undefined, p: num
 
 /** Internal variables u from θ (length k from length p). */
 export function internalFromParams(map: FreeParameters, params: Float64Array, internal: Float64Array): void {
+  // Without bounds every transform is the identity (toInternal's default): copy.
+  if (!map.bounded) {
+    for (let j = 0; j < map.count; j++) internal[j] = params[map.index[j]!]!;
+    return;
+  }
   for (let j = 0; j < map.count; j++) {
     internal[j] = toInternal(kindAt(map, j), map.lower[j]!, map.upper[j]!, map.scale[j]!, params[map.index[j]!]!);
   }
@@ -117,6 +122,11 @@ export function internalFromParams(map: FreeParameters, params: Float64Array, in
 
 /** Write θ's free entries from u; fixed entries of `params` are left as they are. */
 export function paramsFromInternal(map: FreeParameters, internal: Float64Array, params: Float64Array): void {
+  // Without bounds every transform is the identity (toBounded's default): copy.
+  if (!map.bounded) {
+    for (let j = 0; j < map.count; j++) params[map.index[j]!] = internal[j]!;
+    return;
+  }
   for (let j = 0; j < map.count; j++) {
     params[map.index[j]!] = toBounded(kindAt(map, j), map.lower[j]!, map.upper[j]!, map.scale[j]!, internal[j]!);
   }

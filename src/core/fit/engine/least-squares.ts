@@ -58,11 +58,11 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
   const { ws, map, settings } = setup;
   const { m } = ws;
   const k = map.count;
-  const { internal, trialInternal, step, scale, qtf, work, jacobian: J, pivot } = ws;
+  const { internal, trialInternal, step, scale, qtf, work, jacobian: J, pivot, params, trialParams } = ws;
   let evaluations = 1;
   let trials = 0;
   let iterations = 0;
-  let fnorm = evaluateCost(problem, ws, ws.params, ws.predicted, ws.residuals);
+  let fnorm = evaluateCost(problem, ws, params, ws.predicted, ws.residuals);
   let stop: StopCode | null = !Number.isFinite(fnorm) ? 'non-finite-start' : k === 0 ? 'no-free-parameters' : null;
   let damping = 0;
   let trustRadius = 0;
@@ -102,11 +102,14 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
     // Largest cosine between the residual vector and a Jacobian column.
     let gnorm = 0;
     if (fnorm !== 0) {
+      // Qᵀf/‖f‖ once into `work` (free until the step's predicted reduction): the same
+      // quotients as dividing inside the sum, k divisions instead of k(k+1)/2.
+      for (let i = 0; i < k; i++) work[i] = qtf[i]! / fnorm;
       for (let j = 0; j < k; j++) {
         const columnNorm = ws.columnNorms[pivot[j]!]!;
         if (columnNorm === 0) continue;
         let sum = 0;
-        for (let i = 0; i <= j; i++) sum += J[i + j * m]! * (qtf[i]! / fnorm);
+        for (let i = 0; i <= j; i++) sum += J[i + j * m]! * work[i]!;
         gnorm = Math.max(gnorm, Math.abs(sum / columnNorm));
       }
     }
@@ -125,8 +128,8 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
       }
       const pnorm = scaledNorm(scale, step, k);
       if (first) trustRadius = Math.min(trustRadius, pnorm);
-      paramsFromInternal(map, trialInternal, ws.trialParams);
-      const fnorm1 = evaluateCost(problem, ws, ws.trialParams, ws.trialPredicted, ws.trialResiduals);
+      paramsFromInternal(map, trialInternal, trialParams);
+      const fnorm1 = evaluateCost(problem, ws, trialParams, ws.trialPredicted, ws.trialResiduals);
       evaluations += 1;
       trials += 1;
       // A non-finite or much larger cost counts as no reduction (actred = −1), as in MINPACK.
@@ -152,7 +155,8 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
       }
       if (ratio >= 1e-4) {
         for (let j = 0; j < k; j++) internal[j] = trialInternal[j]!;
-        ws.params.set(ws.trialParams);
+        // A loop, not set(): a builtin call costs more than a few stores.
+        for (let j = 0; j < params.length; j++) params[j] = trialParams[j]!;
         // The trial's predictions and residuals become the current ones by swapping buffers.
         const predicted = ws.predicted;
         ws.predicted = ws.trialPredicted;

@@ -74,7 +74,7 @@ export function prepareLeastSquares(
   internalFromParams(map, ws.params, ws.internal);
   // Start exactly at the image of u₀ so that θ and u agree to the last bit.
   paramsFromInternal(map, ws.internal, ws.params);
-  ws.trialParams.set(ws.params);
+  for (let j = 0; j < p; j++) ws.trialParams[j] = ws.params[j]!;
   const k = map.count;
   const settings: LeastSquaresSettings = {
     costTolerance: nonNegative(options.costTolerance, 1e-10, 'costTolerance'),
@@ -82,7 +82,7 @@ export function prepareLeastSquares(
     gradientTolerance: nonNegative(options.gradientTolerance, 1e-12, 'gradientTolerance'),
     maxEvaluations: positive(options.maxEvaluations, 200 * (k + 1), 'maxEvaluations'),
     maxIterations: positive(options.maxIterations, Infinity, 'maxIterations'),
-    differenceStep: positive(options.differenceStep, Math.cbrt(2.220446049250313e-16), 'differenceStep'),
+    differenceStep: positive(options.differenceStep, CUBE_ROOT_EPSILON, 'differenceStep'),
     initialStepFactor: positive(options.initialStepFactor, 100, 'initialStepFactor'),
     signal: options.signal,
   };
@@ -111,6 +111,9 @@ export function evaluateCost(
   }
   return Math.sqrt(sum);
 }
+
+/** ε^(1/3), the default relative difference step (computed once, not per fit). */
+const CUBE_ROOT_EPSILON = Math.cbrt(2.220446049250313e-16);
 
 function nonNegative(value: number | undefined, fallback: number, name: string): number {
   if (value === undefined) return fallback;
