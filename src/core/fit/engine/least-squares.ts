@@ -1,4 +1,4 @@
-import { choleskyFactorize, choleskyFromNormalEquations } from '../../linalg/cholesky';
+import { choleskyFactorize } from '../../linalg/cholesky';
 import { dampingParameter } from './damping-parameter';
 import { finishLeastSquares } from './finish-least-squares';
 import { internalDerivatives, paramsFromInternal } from './free-parameters';
@@ -62,7 +62,7 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
   let evaluations = 1;
   let trials = 0;
   let iterations = 0;
-  let fnorm = evaluateCost(problem, ws, params, ws.predicted, ws.residuals);
+  let fnorm = setup.startNorm;
   let stop: StopCode | null = !Number.isFinite(fnorm) ? 'non-finite-start' : k === 0 ? 'no-free-parameters' : null;
   let damping = 0;
   let trustRadius = 0;
@@ -76,7 +76,7 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
     // Normal equations when they are well conditioned (cheap for small k), else Householder
     // QR. With an analytic Jacobian and few free parameters they are formed in one pass
     // (normal-equations.ts) and J itself is built only for the QR fallback.
-    const fused = fusedPass && (fusedNormalEquations(problem, map, ws), choleskyFromNormalEquations(m, k, J, pivot, ws.columnNorms, qtf, ws.gram, work));
+    const fused = fusedPass && fusedNormalEquations(problem, map, ws);
     if (!fused) {
       evaluations += weightedJacobian(problem, map, ws, settings.differenceStep, J);
       if (map.bounded) {
@@ -139,7 +139,7 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
         const temp = step[pivot[j]!]!;
         for (let i = 0; i <= j; i++) work[i]! += J[i + j * m]! * temp;
       }
-      const temp1 = scaledNorm(null, work, k) / fnorm;
+      const temp1 = norm(work, k) / fnorm;
       const temp2 = (Math.sqrt(damping) * pnorm) / fnorm;
       const predicted = temp1 * temp1 + (temp2 * temp2) / 0.5;
       const directional = -(temp1 * temp1 + temp2 * temp2);
@@ -184,13 +184,23 @@ function iterate(problem: LeastSquaresProblem, options: LeastSquaresOptions, wor
   return finishLeastSquares(problem, setup, stop, iterations, evaluations);
 }
 
-/** ‖D·v‖ over the first k entries (D omitted: ‖v‖). Plain sum of squares: weighted residuals are O(1). */
-function scaledNorm(d: Float64Array | null, v: Float64Array, k: number): number {
+/** ‖D·v‖ over the first k entries. Plain sum of squares: weighted residuals are O(1). */
+function scaledNorm(d: Float64Array, v: Float64Array, k: number): number {
   let sum = 0;
   for (let j = 0; j < k; j++) {
-    const x = d === null ? v[j]! : d[j]! * v[j]!;
+    const x = d[j]! * v[j]!;
     sum += x * x;
   }
+  return Math.sqrt(sum);
+}
+
+/**
+ * ‖v‖ over the first k entries, as scaledNorm: a function of its own rather than a null D,
+ * so that each inlined copy is small (V8's inlining budget, prepare-least-squares.ts).
+ */
+function norm(v: Float64Array, k: number): number {
+  let sum = 0;
+  for (let j = 0; j < k; j++) sum += v[j]! * v[j]!;
   return Math.sqrt(sum);
 }
 

@@ -15,17 +15,22 @@ export interface LeastSquaresSettings {
   readonly signal: AbortFlag | undefined;
 }
 
-/** A validated fit ready to iterate: workspace filled with θ₀, u₀ and 1/σ. */
+/** A validated fit ready to iterate: workspace filled with θ₀, u₀, 1/σ and f(θ₀) with its residuals. */
 export interface PreparedLeastSquares {
   readonly ws: LeastSquaresWorkspace;
   readonly map: FreeParameters;
   readonly warnings: string[];
   readonly settings: LeastSquaresSettings;
+  /** √χ² at θ₀ (evaluateCost), NaN or Infinity when the model gave a non-finite value. */
+  readonly startNorm: number;
 }
 
 /**
- * Validate a problem and its options, fill a workspace and resolve defaults
- * (see LeastSquaresOptions). Part of {@link fitLeastSquares}.
+ * Validate a problem and its options, fill a workspace, resolve defaults (see
+ * LeastSquaresOptions) and evaluate the model at the start. Part of {@link fitLeastSquares}.
+ * (The start's evaluation is here, not in the iteration, so that V8's cumulative inlining
+ * budget of the iteration goes to the trial evaluations' call of the model, which run
+ * several times per fit; see also normal-equations.ts.)
  * @throws RingfallError FIT_UNDERDETERMINED (fewer observations than free parameters);
  *   RangeError for malformed input.
  */
@@ -86,7 +91,8 @@ export function prepareLeastSquares(
     initialStepFactor: positive(options.initialStepFactor, 100, 'initialStepFactor'),
     signal: options.signal,
   };
-  return { ws, map, warnings, settings };
+  const startNorm = evaluateCost(problem, ws, ws.params, ws.predicted, ws.residuals);
+  return { ws, map, warnings, settings, startNorm };
 }
 
 /**
