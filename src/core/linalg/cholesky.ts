@@ -96,8 +96,16 @@ export function choleskyInPlace(a: Float64Array, k: number, pivot: Int32Array | 
   if (pivot !== null) for (let j = 0; j < k; j++) pivot[j] = j;
   for (let j = 0; j < k; j++) {
     if (pivot !== null) {
+      // The first largest remaining diagonal (strictly greater replaces).
       let q = j;
-      for (let i = j + 1; i < k; i++) if (a[i * k + i]! > a[q * k + q]!) q = i;
+      let largest = a[j * k + j]!;
+      for (let i = j + 1; i < k; i++) {
+        const d = a[i * k + i]!;
+        if (d > largest) {
+          largest = d;
+          q = i;
+        }
+      }
       if (q !== j) {
         swapSymmetricLower(a, k, j, q);
         const t = pivot[j]!;
@@ -109,10 +117,12 @@ export function choleskyInPlace(a: Float64Array, k: number, pivot: Int32Array | 
     if (!(remaining > floor[pivot === null ? j : pivot[j]!]!)) return false;
     const diagonal = Math.sqrt(remaining);
     a[j * k + j] = diagonal;
-    for (let i = j + 1; i < k; i++) a[i * k + j]! /= diagonal;
+    // Row by row: L_ij, then row i of the trailing update, which needs L_lj only for l ≤ i
+    // (already divided): the same values as dividing the whole column first.
     for (let i = j + 1; i < k; i++) {
       const rowI = i * k;
-      const lij = a[rowI + j]!;
+      const lij = a[rowI + j]! / diagonal;
+      a[rowI + j] = lij;
       for (let l = j + 1; l <= i; l++) a[rowI + l] = a[rowI + l]! - lij * a[l * k + j]!;
     }
   }
