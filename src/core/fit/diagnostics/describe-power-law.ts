@@ -74,6 +74,9 @@ export interface PowerLawContext {
   readonly physicalField: number;
 }
 
+/** powerLawContext's distances and fields of the line, reused from call to call (grown when short; views of the first entries handed on). */
+let lineScratch = { distance: new Float64Array(64), field: new Float64Array(64) };
+
 /**
  * The parts of {@link describePowerLaw} that depend only on the readings and the best
  * physical fit, worked out once for all the power laws of a survey (compareModels).
@@ -89,8 +92,9 @@ export function powerLawContext(any: FitResult, physical: FitResult | null, mode
   for (let i = 1; i < points.length && ordered; i++) ordered = points[i - 1]!.distance <= points[i]!.distance;
   if (!ordered) order.sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
   const positive = order.filter((i) => points[i]!.distance > 0);
-  const distance = new Float64Array(positive.length);
-  const field = new Float64Array(positive.length);
+  if (lineScratch.distance.length < positive.length) lineScratch = { distance: new Float64Array(2 * positive.length), field: new Float64Array(2 * positive.length) };
+  const distance = lineScratch.distance.subarray(0, positive.length);
+  const field = lineScratch.field.subarray(0, positive.length);
   positive.forEach((i, k) => {
     distance[k] = points[i]!.distance;
     field[k] = points[i]!.field;
