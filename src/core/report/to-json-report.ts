@@ -68,7 +68,9 @@ export function summaryModelJson(report: Report, survey: SurveyReport): JsonSurv
 
 function fitToJson(fit: FitResult): JsonFit {
   const params: Record<string, JsonParameter> = {};
-  for (const [name, estimate] of Object.entries(fit.params)) {
+  // for…in over the plain record: its own keys in the same order as Object.entries, without the pairs.
+  for (const name in fit.params) {
+    const estimate = fit.params[name]!;
     params[name] = {
       value: finite(estimate.value),
       unit: estimate.unit,
