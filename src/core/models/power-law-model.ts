@@ -80,7 +80,8 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
         const r = distanceFromSource(axial, points.radial[i]!);
-        const logR = Math.log(r);
+        // ln r only where it is read: the exponent's column, and r^−n for an exponent other than 2 or 3 (a fixed one is 2 or 3).
+        const logR = free ? Math.log(r) : NaN;
         const power = inversePower(r, exponent, logR);
         const row = k * i;
         out[row] = power;
@@ -104,7 +105,7 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
         const r = distanceFromSource(axial, points.radial[i]!);
-        const logR = Math.log(r);
+        const logR = free ? Math.log(r) : NaN;
         const power = inversePower(r, exponent, logR);
         const w = weight[i]!;
         const res = residuals[i]!;
