@@ -56,6 +56,8 @@ export const coilPairModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(coilPairModel, points, (size, out) => out.set([1, size, size, 0, 0]), 0);
+    return scanSize(coilPairModel, points, (size, out) => {
+      out[0] = 1; out[1] = size; out[2] = size; out[3] = 0; out[4] = 0;
+    }, 0);
   },
 };

@@ -5,6 +5,9 @@ import { medianOf } from '../numeric/order-statistics';
 import { radialDistance, readingSign } from './initial-guess';
 import { backgroundParameter, fieldReading, fieldReadingDerivative, probeOffsetParameter } from './model-reading';
 
+/** The dipole start's distances √(d² + ρ²), reused from call to call (grown when short; only the first n read). */
+let dipoleScratch = new Float64Array(64);
+
 const field = new Float64Array(4);
 
 /** Dipole field at z = distance + probeOffset from the datum, ρ = radial. */
@@ -80,13 +83,19 @@ export const dipoleModel: FieldModel = {
     gradientOut[0] = b0; gradientOut[1] = b1; gradientOut[2] = b2;
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    const r = new Float64Array(points.n);
+    if (dipoleScratch.length < points.n) dipoleScratch = new Float64Array(2 * points.n);
+    const r = dipoleScratch;
     const order: number[] = [];
+    // Most surveys are already in order of distance: sort only when not (the same order either way).
+    let ordered = true;
     for (let i = 0; i < points.n; i++) {
       r[i] = radialDistance(points.distance[i]!, points.radial[i]!);
-      if (r[i]! > 0 && Number.isFinite(r[i]!) && Number.isFinite(points.field[i]!)) order.push(i);
+      if (r[i]! > 0 && Number.isFinite(r[i]!) && Number.isFinite(points.field[i]!)) {
+        if (order.length > 0 && r[order[order.length - 1]!]! > r[i]!) ordered = false;
+        order.push(i);
+      }
     }
-    order.sort((i, j) => r[i]! - r[j]! || i - j);
+    if (!ordered) order.sort((i, j) => r[i]! - r[j]! || i - j);
     const farther = order.slice(Math.floor(order.length / 2));
     const moment = medianOf(farther.map((i) => (2 * Math.PI * Math.abs(points.field[i]!) * r[i]! ** 3) / vacuumPermeability));
     return Float64Array.of(readingSign(points) * (Number.isFinite(moment) && moment > 0 ? moment : 1), 0, 0);

@@ -70,7 +70,8 @@ const SIZE_REFINE = 24;
  * within a grid step either side. Candidates: `hint` (e.g. the
  * half-value estimate of DOMAIN.md §1.1), the reach, and SIZE_CANDIDATES (48) sizes spaced
  * evenly in ln s from 1 % to 10× the survey's reach. Deterministic, no randomness; one
- * buffer allocated per call (none per candidate).
+ * buffer allocated per call (none per candidate: the catalog's `shape`s write their entries
+ * into `out` one by one rather than copy an array literal made for each size).
  *
  * @returns the winning parameter vector with the amplitude filled in
  */

@@ -141,6 +141,8 @@ export const loopModel: FieldModel = {
     gradientOut[0] = b0; gradientOut[1] = b1; gradientOut[2] = b2; gradientOut[3] = b3;
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(loopModel, points, (radius, out) => out.set([1, radius, 0, 0]), 0, halfValueRadius(points));
+    return scanSize(loopModel, points, (radius, out) => {
+      out[0] = 1; out[1] = radius; out[2] = 0; out[3] = 0;
+    }, 0, halfValueRadius(points));
   },
 };

@@ -13,6 +13,9 @@ const exponentParameter: ParameterSpec = {
   description: 'apparent exponent n over the surveyed range (not a property of the coil)',
 };
 
+/** The fixed-exponent start's |B|·d^n, reused from call to call (grown when short; a view of the first n handed on). */
+let scaledScratch = new Float64Array(64);
+
 /** r = √((d + δ)² + ρ²), or the signed d + δ on the axis. */
 function distanceFromSource(axial: number, rho: number): number {
   return rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
@@ -77,7 +80,8 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
         const r = distanceFromSource(axial, points.radial[i]!);
-        const logR = Math.log(r);
+        // ln r only where it is read: the exponent's column, and r^−n for an exponent other than 2 or 3 (a fixed one is 2 or 3).
+        const logR = free ? Math.log(r) : NaN;
         const power = inversePower(r, exponent, logR);
         const row = k * i;
         out[row] = power;
@@ -101,7 +105,7 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
       for (let i = 0; i < points.n; i++) {
         const axial = points.distance[i]! + offset;
         const r = distanceFromSource(axial, points.radial[i]!);
-        const logR = Math.log(r);
+        const logR = free ? Math.log(r) : NaN;
         const power = inversePower(r, exponent, logR);
         const w = weight[i]!;
         const res = residuals[i]!;
@@ -137,7 +141,8 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
         amplitude = Math.exp(line.intercept);
       } else {
         // |B|·d^n per reading by a loop (TypedArray map calls back per entry); NaN where d ≤ 0
-        const scaled = new Float64Array(points.distance.length);
+        if (scaledScratch.length < points.distance.length) scaledScratch = new Float64Array(2 * points.distance.length);
+        const scaled = scaledScratch.subarray(0, points.distance.length);
         for (let i = 0; i < scaled.length; i++) {
           const d = points.distance[i]!;
           scaled[i] = d > 0 ? Math.abs(points.field[i]!) * d ** exponent : NaN;

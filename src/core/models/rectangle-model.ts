@@ -97,6 +97,8 @@ export const rectangleModel: FieldModel = {
     return true;
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(rectangleModel, points, (size, out) => out.set([1, 1.25 * size, 0.8 * size, 0, 0]), 0);
+    return scanSize(rectangleModel, points, (size, out) => {
+      out[0] = 1; out[1] = 1.25 * size; out[2] = 0.8 * size; out[3] = 0; out[4] = 0;
+    }, 0);
   },
 };

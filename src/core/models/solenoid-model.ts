@@ -85,6 +85,8 @@ export const solenoidModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(solenoidModel, points, (size, out) => out.set([1, size, size, 0, 0]), 0);
+    return scanSize(solenoidModel, points, (size, out) => {
+      out[0] = 1; out[1] = size; out[2] = size; out[3] = 0; out[4] = 0;
+    }, 0);
   },
 };

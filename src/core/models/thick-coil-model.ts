@@ -95,6 +95,8 @@ export const thickCoilModel: FieldModel = {
     }
   },
   initialGuess(points: SurveyPoints): Float64Array {
-    return scanSize(thickCoilModel, points, (size, out) => out.set([1, 0.5 * size, 1.5 * size, size, 0, 0]), 0);
+    return scanSize(thickCoilModel, points, (size, out) => {
+      out[0] = 1; out[1] = 0.5 * size; out[2] = 1.5 * size; out[3] = size; out[4] = 0; out[5] = 0;
+    }, 0);
   },
 };

@@ -1,6 +1,10 @@
+/** medianOf's copy of the finite values, reused from call to call (grown when short): sorted in place, only its first `count` entries read. */
+let medianScratch = new Float64Array(64);
+
 /** Median of the finite values (NaN when there are none). */
 export function medianOf(values: ArrayLike<number>): number {
-  const finite = new Float64Array(values.length);
+  if (medianScratch.length < values.length) medianScratch = new Float64Array(2 * values.length);
+  const finite = medianScratch;
   let count = 0;
   for (let i = 0; i < values.length; i++) {
     const v = values[i]!;

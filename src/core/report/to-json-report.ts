@@ -68,7 +68,9 @@ export function summaryModelJson(report: Report, survey: SurveyReport): JsonSurv
 
 function fitToJson(fit: FitResult): JsonFit {
   const params: Record<string, JsonParameter> = {};
-  for (const [name, estimate] of Object.entries(fit.params)) {
+  // for…in over the plain record: its own keys in the same order as Object.entries, without the pairs.
+  for (const name in fit.params) {
+    const estimate = fit.params[name]!;
     params[name] = {
       value: finite(estimate.value),
       unit: estimate.unit,
@@ -113,22 +115,38 @@ function fitToJson(fit: FitResult): JsonFit {
  * fit flagged readings.
  */
 function pointsToJson(points: FitResult['points']): JsonPoints {
-  const column = (read: (p: FitResult['points'][number]) => number | null) => points.map((p) => finite(read(p)));
-  return {
-    line: points.map((p) => p.line),
-    distance: column((p) => p.distance),
-    radial: column((p) => p.radial),
-    field: column((p) => p.field),
-    predicted: column((p) => p.predicted),
-    residual: column((p) => p.residual),
-    standardUncertainty: column((p) => p.standardUncertainty),
-    ...(points.length > 0 && 'outlier' in points[0]! ? { outlier: points.map((p) => p.outlier === true) } : {}),
-    // a 3-D map's positions and, for vector readings, the component each point holds
-    ...(points.length > 0 && points[0]!.position !== undefined ? {
-      x: column((p) => p.position?.x ?? null), y: column((p) => p.position?.y ?? null), z: column((p) => p.position?.z ?? null),
-    } : {}),
-    ...(points.length > 0 && points[0]!.component !== undefined ? { component: points.map((p) => p.component ?? 'z') } : {}),
-  };
+  // One pass filling the seven columns every fit has (not one callback per column and reading);
+  // push keeps the arrays packed, as map made them.
+  const line: number[] = [];
+  const distance: (number | null)[] = [];
+  const radial: (number | null)[] = [];
+  const field: (number | null)[] = [];
+  const predicted: (number | null)[] = [];
+  const residual: (number | null)[] = [];
+  const standardUncertainty: (number | null)[] = [];
+  for (const p of points) {
+    line.push(p.line);
+    distance.push(finite(p.distance));
+    radial.push(finite(p.radial));
+    field.push(finite(p.field));
+    predicted.push(finite(p.predicted));
+    residual.push(finite(p.residual));
+    standardUncertainty.push(finite(p.standardUncertainty));
+  }
+  const json: { -readonly [K in keyof JsonPoints]: JsonPoints[K] } = { line, distance, radial, field, predicted, residual, standardUncertainty };
+  // The optional columns after these, in this order (the JSON's key order).
+  if (points.length === 0) return json;
+  const first = points[0]!;
+  if ('outlier' in first) json.outlier = points.map((p) => p.outlier === true);
+  // a 3-D map's positions and, for vector readings, the component each point holds
+  if (first.position !== undefined) {
+    const column = (read: (p: FitResult['points'][number]) => number | null) => points.map((p) => finite(read(p)));
+    json.x = column((p) => p.position?.x ?? null);
+    json.y = column((p) => p.position?.y ?? null);
+    json.z = column((p) => p.position?.z ?? null);
+  }
+  if (first.component !== undefined) json.component = points.map((p) => p.component ?? 'z');
+  return json;
 }
 
 function finite(value: number | null): number | null {

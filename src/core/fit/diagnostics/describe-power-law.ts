@@ -74,6 +74,9 @@ export interface PowerLawContext {
   readonly physicalField: number;
 }
 
+/** powerLawContext's distances and fields of the line, reused from call to call (grown when short; views of the first entries handed on). */
+let lineScratch = { distance: new Float64Array(64), field: new Float64Array(64) };
+
 /**
  * The parts of {@link describePowerLaw} that depend only on the readings and the best
  * physical fit, worked out once for all the power laws of a survey (compareModels).
@@ -89,8 +92,9 @@ export function powerLawContext(any: FitResult, physical: FitResult | null, mode
   for (let i = 1; i < points.length && ordered; i++) ordered = points[i - 1]!.distance <= points[i]!.distance;
   if (!ordered) order.sort((i, j) => points[i]!.distance - points[j]!.distance || i - j);
   const positive = order.filter((i) => points[i]!.distance > 0);
-  const distance = new Float64Array(positive.length);
-  const field = new Float64Array(positive.length);
+  if (lineScratch.distance.length < positive.length) lineScratch = { distance: new Float64Array(2 * positive.length), field: new Float64Array(2 * positive.length) };
+  const distance = lineScratch.distance.subarray(0, positive.length);
+  const field = lineScratch.field.subarray(0, positive.length);
   positive.forEach((i, k) => {
     distance[k] = points[i]!.distance;
     field[k] = points[i]!.field;
@@ -113,6 +117,13 @@ function side(residuals: readonly number[], where: string): string {
     : `above ${below} of the ${residuals.length} ${where} readings`;
 }
 
+/**
+ * One on-axis point for {@link coilField}, reused from call to call (a call runs to
+ * completion and only `distance` changes): no arrays made per sentence.
+ */
+const onePoint = { n: 1, distance: new Float64Array(1), radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' } satisfies SurveyPoints;
+const onePrediction = new Float64Array(1);
+
 /** A fit's predicted on-axis reading at one stated distance with the background left out (T). */
 function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distance: number): number {
   const model = modelOf(fit.model);
@@ -121,12 +132,9 @@ function coilField(fit: FitResult, modelOf: (id: ModelId) => FieldModel, distanc
     const p = model.parameters[j]!;
     values[j] = p.role === 'background' ? 0 : fit.params[p.name]?.value ?? NaN;
   }
-  const at = new Float64Array(1);
-  at[0] = distance;
-  const points: SurveyPoints = { n: 1, distance: at, radial: new Float64Array(1), field: new Float64Array(1), kind: 'magnitude' };
-  const out = new Float64Array(1);
-  model.evaluate(values, points, out);
-  return out[0]!;
+  onePoint.distance[0] = distance;
+  model.evaluate(values, onePoint, onePrediction);
+  return onePrediction[0]!;
 }
 
 /** A distance in `unit` to 3 significant digits without trailing zeros: 0.002 m in mm → "2", 0.0455 m in mm → "45.5". */

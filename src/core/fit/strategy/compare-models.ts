@@ -35,11 +35,12 @@ export function compareModels(fits: readonly FitResult[], modelOf: (id: ModelId)
     candidates.filter(usable).reduce<FitResult | null>((best, fit) => (best === null || fit.stats.aicc < best.stats.aicc ? fit : best), null);
   const best = lowest(weighted);
   const physical = lowest(weighted.filter((fit) => modelOf(fit.model).physical));
-  const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical);
-  // A scan's fits are described by distance from the coil (distance form), not by ruler position.
+  // A scan's fits are described by distance from the coil (distance form), not by ruler position;
+  // each law is restated once (the first one serves the shared context too).
+  const laws = weighted.filter((fit) => fit.converged && !modelOf(fit.model).physical).map(inDistanceForm);
   const coil = physical === null ? null : inDistanceForm(physical);
-  const shared = laws.length > 0 ? powerLawContext(inDistanceForm(laws[0]!), coil, modelOf, units) : null;
-  const comparison = laws.map((fit) => describePowerLaw(inDistanceForm(fit), coil, modelOf, shared!));
+  const shared = laws.length > 0 ? powerLawContext(laws[0]!, coil, modelOf, units) : null;
+  const comparison = laws.map((fit) => describePowerLaw(fit, coil, modelOf, shared!));
   return { fits: weighted, best: best?.model ?? null, comparison };
 }
 

@@ -63,18 +63,24 @@ export function fitModel(
   const criteria = stated ? chiSquareCriteria(n, k, chiSquare + logScale) : leastSquaresCriteria(n, k + 1, solution.rss);
   const coverage = coverageFactor(stated ? Infinity : Math.max(1, freedom));
   const moment = momentEstimate(model, solution.params, solution.freeIndices, uncertainty.covariance, coverage);
-  // One object literal per reading (no spread): the outlier flag only after a robust fit.
+  // One object literal per reading (no spread): the outlier flag only after a robust fit. A plain
+  // loop, not map: no callback per reading.
   const outliers = search.outliers;
-  const fitPoints = survey.readings.map((reading, i) => outliers === null
-    ? {
-        line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
-        predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
-      }
-    : {
-        line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
-        predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
-        outlier: outliers[i] === true,
-      });
+  const readings = survey.readings;
+  const fitPoints: FitResult['points'][number][] = [];
+  for (let i = 0; i < readings.length; i++) {
+    const reading = readings[i]!;
+    fitPoints.push(outliers === null
+      ? {
+          line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
+          predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
+        }
+      : {
+          line: reading.line, distance: reading.distance, radial: reading.radial, field: reading.field,
+          predicted: solution.predicted[i]!, residual: solution.residuals[i]!, standardUncertainty: stated ? sigma[i]! : null,
+          outlier: outliers[i] === true,
+        });
+  }
   const warnings = fitWarnings({ model, survey, points, solution, uncertainty, params, moment, search, chiSquare, options });
   return {
     model: model.id,

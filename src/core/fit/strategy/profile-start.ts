@@ -214,16 +214,31 @@ function solveLinear(
   let sy = 0;
   let sgg = 0;
   let sgy = 0;
-  for (let i = 0; i < points.n; i++) {
-    const g = shape[i]!;
-    if (!Number.isFinite(g)) return Infinity;
-    const w = weights[i]!;
-    const y = points.field[i]! - (freeBackground ? 0 : fixedBackground);
-    sw += w;
-    sg += w * g;
-    sy += w * y;
-    sgg += w * g * g;
-    sgy += w * g * y;
+  const level = freeBackground ? 0 : fixedBackground;
+  if (sigma === null) {
+    // Every weight is 1/1² = 1: the products by it left out (1·x is x, so the sums are the same).
+    for (let i = 0; i < points.n; i++) {
+      const g = shape[i]!;
+      if (!Number.isFinite(g)) return Infinity;
+      const y = points.field[i]! - level;
+      sw += 1;
+      sg += g;
+      sy += y;
+      sgg += g * g;
+      sgy += g * y;
+    }
+  } else {
+    for (let i = 0; i < points.n; i++) {
+      const g = shape[i]!;
+      if (!Number.isFinite(g)) return Infinity;
+      const w = weights[i]!;
+      const y = points.field[i]! - level;
+      sw += w;
+      sg += w * g;
+      sy += w * y;
+      sgg += w * g * g;
+      sgy += w * g * y;
+    }
   }
   let a = 1;
   let b = freeBackground ? 0 : fixedBackground;
