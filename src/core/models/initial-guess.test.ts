@@ -52,6 +52,17 @@ describe('initialGuess()', () => {
     expectClose(guess[0]!, 400 * Math.PI * 0.05 ** 2, { rel: 0.04 });
   });
 
+  it('dipole initialGuess() reads the farther half by distance whatever order the readings came in', () => {
+    // the start is the median moment of the farther half of the readings (dipole-model.ts), so
+    // the order a survey was walked in (outward, inward, shuffled) must not change it: against
+    // the same readings in increasing distance (from 10 mm, well inside the 50 mm radius, so the near half's moments differ from the far half's)
+    const forward = evenly(0.01, 0.5, 13);
+    const expected = getModel('dipole').initialGuess(synthetic(getModel('loop'), [400, 0.05, 0, 0], forward))[0]!;
+    for (const shuffled of [[...forward].reverse(), forward.map((_, i) => forward[(i * 5) % 13]!)]) {
+      expect(getModel('dipole').initialGuess(synthetic(getModel('loop'), [400, 0.05, 0, 0], shuffled))[0]).toBe(expected);
+    }
+  });
+
   it('power-law initialGuess() is the log–log slope: n = 1.378, 2.240, 2.923 for a 50 mm loop over three ranges', () => {
     // DOMAIN.md §9 row 64 (OLS of ln B on ln z, 15 equally spaced points, exact loop data)
     const ranges: [number, number, number][] = [[0.01, 0.15, 1.378], [0.05, 0.15, 2.240], [0.2, 0.5, 2.923]];
