@@ -265,18 +265,19 @@ describe('web page', () => {
 
   it('keeps the page responsive while a large survey is fitted in the worker', async () => {
     await removeAllFiles();
-    const rows = Array.from({ length: 5_000 }, (_, i) => `${(i / 25).toFixed(2)},${(1 / (1 + (i / 1000) ** 2) ** 1.5).toFixed(6)}`);
+    const rows = Array.from({ length: 20_000 }, (_, i) => `${(i / 100).toFixed(2)},${(1 / (1 + (i / 4000) ** 2) ** 1.5).toFixed(6)}`);
     const big = scratchFile('big.csv', ['distance (mm),B (mT)', ...rows].join('\n') + '\n');
     const before = await page.locator('#report-body').getAttribute('data-report-count');
     await page.setInputFiles('#survey-files', [big]);
     await page.waitForSelector('#report-body[data-state=running]', { state: 'attached' });
     expect(await page.locator('#run-progress').isVisible()).toBe(true);
-    // a frame and a round trip while the fit runs: the main thread is free
-    const started = Date.now();
-    const frame = await page.evaluate(() => new Promise<number>((resolve) => requestAnimationFrame((t) => resolve(t))));
-    expect(frame).toBeGreaterThan(0);
-    expect(Date.now() - started).toBeLessThan(1000);
-    expect(await page.locator('#report-body').getAttribute('data-state')).toBe('running');
+    // a frame drawn while the fit runs, and the state read in that same frame: the main thread
+    // is free during the fit (no bound on how soon, which a loaded machine cannot promise)
+    const frame = await page.evaluate(() => new Promise<{ time: number; state: string | null }>((resolve) => {
+      requestAnimationFrame((time) => resolve({ time, state: document.querySelector('#report-body')?.getAttribute('data-state') ?? null }));
+    }));
+    expect(frame.time).toBeGreaterThan(0);
+    expect(frame.state).toBe('running');
     await page.waitForFunction((count) => document.querySelector('#report-body')?.getAttribute('data-report-count') !== count, before, { timeout: 120_000 });
   });
 
