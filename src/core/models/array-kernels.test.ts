@@ -57,6 +57,39 @@ describe('array kernels give the per-point formulas to the last bit', () => {
     });
   }
 
+  it('every evaluateAtDistances equals evaluate, bit for bit, from the r and ln r of sourceDistances', () => {
+    // independent method: the model's own evaluate; exponents 2 and 3 exactly take its 1/r², 1/r³ branches,
+    // and an offset that puts the first point behind the datum gives NaN there in both
+    let checked = 0;
+    for (const id of modelIds) {
+      const model = getModel(id);
+      if (model.sourceDistances === undefined || model.evaluateAtDistances === undefined) continue;
+      const offsetIndex = model.parameters.findIndex((p) => p.role === 'offset');
+      const exponentIndex = model.parameters.findIndex((p) => p.role === 'exponent');
+      for (const [where, radial] of layouts) {
+        const points = survey(distance, radial, 'axial');
+        for (const offset of [0.0013, -0.002]) {
+          for (const exponent of [2, 3, 2.37, 1.9999999999999998]) {
+            const params = Float64Array.from(model.parameters, (p) => (p.role === 'amplitude' ? 3e-7 : p.role === 'background' ? -2e-6 : 0));
+            params[offsetIndex] = offset;
+            if (exponentIndex >= 0) params[exponentIndex] = exponent;
+            const direct = new Float64Array(points.n);
+            model.evaluate(params, points, direct);
+            const r = new Float64Array(points.n);
+            const logR = new Float64Array(points.n);
+            model.sourceDistances(offset, points, r, logR);
+            const fromDistances = new Float64Array(points.n);
+            model.evaluateAtDistances(params, r, logR, fromDistances);
+            expect(Array.from(fromDistances), `${id} ${where} δ ${offset} n ${exponent}`).toEqual(Array.from(direct));
+            checked += 1;
+          }
+        }
+      }
+    }
+    // the three power laws (DOMAIN.md §1.9)
+    expect(checked).toBe(3 * 2 * 2 * 4);
+  });
+
   it('every normalEquations equals the accumulation of its own jacobian, bit for bit', () => {
     // independent method: JᵀJ and Jᵀr summed row by row from the row-major jacobian (the engine's fallback)
     for (const id of modelIds) {

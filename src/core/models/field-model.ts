@@ -101,6 +101,18 @@ export interface FieldModel {
     params: Float64Array, points: SurveyPoints, weight: Float64Array, columnScale: Float64Array, residuals: Float64Array,
     gram: Float64Array, gradient: Float64Array,
   ): void;
+  /**
+   * Optional, for a model whose prediction depends on each reading only through its
+   * distance r from the source at probe offset δ (the power laws): r and ln r of every
+   * point at `offset`, written into `r` and `logR`, so that a search trying many values of
+   * the other parameters at one δ (profileStart's exponent) works them out once.
+   */
+  sourceDistances?(offset: number, points: SurveyPoints, r: Float64Array, logR: Float64Array): void;
+  /**
+   * With sourceDistances: `evaluate` at `params` from the r and ln r that sourceDistances
+   * gave for params' offset (`out.length` points), the same numbers to the last bit.
+   */
+  evaluateAtDistances?(params: Float64Array, r: Float64Array, logR: Float64Array, out: Float64Array): void;
   /** Data-driven starting values (SI, order of `parameters`), DOMAIN §1.1 heuristics. */
   initialGuess(points: SurveyPoints): Float64Array;
   /**

@@ -73,6 +73,26 @@ function powerLaw(id: ModelId, label: string, fixedExponent: number | null): Fie
         out[i] = (r > 0 ? amplitude * (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * Math.log(r))) : NaN) + background;
       }
     },
+    sourceDistances(offset: number, points: SurveyPoints, r: Float64Array, logR: Float64Array): void {
+      for (let i = 0; i < points.n; i++) {
+        const axial = points.distance[i]! + offset;
+        const rho = points.radial[i]!;
+        const distance = rho === 0 ? axial : Math.sqrt(axial * axial + rho * rho);
+        r[i] = distance;
+        logR[i] = Math.log(distance);
+      }
+    },
+    evaluateAtDistances(params: Float64Array, r: Float64Array, logR: Float64Array, out: Float64Array): void {
+      // evaluate's expression, with its r and ln r read instead of worked out
+      const amplitude = params[0]!;
+      const exponent = free ? params[1]! : fixedExponent;
+      const background = params[k - 1]!;
+      for (let i = 0; i < out.length; i++) {
+        const distance = r[i]!;
+        const inv = 1 / distance;
+        out[i] = (distance > 0 ? amplitude * (exponent === 2 ? inv * inv : exponent === 3 ? inv * inv * inv : Math.exp(-exponent * logR[i]!)) : NaN) + background;
+      }
+    },
     jacobian(params: Float64Array, points: SurveyPoints, out: Float64Array): void {
       const amplitude = params[0]!;
       const exponent = free ? params[1]! : fixedExponent;

@@ -72,4 +72,36 @@ describe('profileStart(model, points, start, fixed, lower, upper, sigma)', () =>
     expectClose(result.initial[1]!, 2.5, { rel: 0.02 });
     expectClose(result.initial[2]!, 0.02, { rel: 0.05 });
   });
+
+  it('profileStart() gives a power law the same start, bit for bit, with r and ln r worked out once per offset (sourceDistances) or by evaluate', () => {
+    // independent method: the same model with sourceDistances and evaluateAtDistances taken away, so every
+    // trial goes through evaluate and the slope through |d + δ|. Readings off the 2.5 law by a fixed ripple,
+    // on and off the axis, weighted and not, offset free or held (held behind the first reading: every trial NaN)
+    const law = getModel('power-law');
+    const { sourceDistances: _r, evaluateAtDistances: _e, ...rest } = law;
+    const plain: FieldModel = rest;
+    expect(plain.sourceDistances).toBeUndefined();
+    const distance = evenly(0.004, 0.25, 24);
+    const cases: [string, number[], boolean[], number][] = [
+      ['on the axis', distance.map(() => 0), [false, false, false, false], 0.005],
+      ['off the axis', distance.map((_, i) => (i % 3) * 0.01), [false, false, false, false], 0.005],
+      ['offset held', distance.map(() => 0), [false, false, true, false], 0.011],
+      ['offset held behind the first reading', distance.map(() => 0), [false, false, true, false], -0.006],
+    ];
+    for (const [label, radial, fixed, offset] of cases) {
+      const points: SurveyPoints = { n: distance.length, distance: Float64Array.from(distance), radial: Float64Array.from(radial), field: new Float64Array(distance.length), kind: 'magnitude' };
+      law.evaluate(Float64Array.of(1e-7, 2.5, 0.02, 3e-6), points, points.field as Float64Array);
+      const field = points.field as Float64Array;
+      field.forEach((b, i) => (field[i] = b * (1 + 0.03 * Math.sin(7 * i))));
+      for (const sigma of [null, Float64Array.from(field, (b) => 0.02 * Math.abs(b) + 1e-7)]) {
+        const run = (model: FieldModel) => profileStart(model, points, Float64Array.of(1e-7, 1.8, offset, 0), fixed, [-Infinity, 0, -0.008, -Infinity], [Infinity, 12, 0.25, Infinity], sigma);
+        const fast = run(law);
+        const slow = run(plain);
+        expect(Array.from(fast.initial), label).toEqual(Array.from(slow.initial));
+        expect(fast.chiSquare, label).toBe(slow.chiSquare);
+        expect([fast.scanned, fast.offsetOnBound, fast.scannedRange], label).toEqual([slow.scanned, slow.offsetOnBound, slow.scannedRange]);
+        if (offset > 0) expect(fast.initial[1], label).not.toBe(1.8);
+      }
+    }
+  });
 });

@@ -88,6 +88,18 @@ export function profileStart(
     const s = sigma === null ? 1 : sigma[i]!;
     weights[i] = 1 / (s * s);
   }
+  // A model that reads the points only through r(δ) (sourceDistances): r and ln r are worked
+  // out once per offset tried, for the log–log slope and for every exponent tried there.
+  const distances = freeExponent && offset >= 0 && model.sourceDistances !== undefined && model.evaluateAtDistances !== undefined
+    ? { r: scratchArray(n, 8), logR: scratchArray(n, 9), offset: NaN }
+    : null;
+  const distancesAt = (delta: number): NonNullable<typeof distances> => {
+    if (distances!.offset !== delta) {
+      model.sourceDistances!(delta, points, distances!.r, distances!.logR);
+      distances!.offset = delta;
+    }
+    return distances!;
+  };
   const best = start.slice();
   let bestCost = Infinity;
   /** χ² at offset δ with A, b solved and the exponent given or re-read; the winner is copied to best. */
@@ -95,10 +107,12 @@ export function profileStart(
     trial.set(start);
     if (offset >= 0) trial[offset] = delta;
     if (freeExponent) {
-      const slope = power === undefined ? logLogSlope(points, logField, offset >= 0 ? delta : 0) : -power;
+      const slope = power !== undefined
+        ? -power
+        : logLogSlope(points, logField, offset >= 0 ? delta : 0, distances === null ? null : distancesAt(delta));
       if (slope < 0 && -slope < upper[exponent]!) trial[exponent] = -slope;
     }
-    const cost = solveLinear(model, points, trial, shape, sigma, weights, amplitude, background, freeAmplitude, freeBackground, sign);
+    const cost = solveLinear(model, points, distances === null ? null : distancesAt(trial[offset]!), trial, shape, sigma, weights, amplitude, background, freeAmplitude, freeBackground, sign);
     if (cost < bestCost) {
       bestCost = cost;
       best.set(trial);
@@ -175,18 +189,30 @@ function chiSquareOf(points: SurveyPoints, out: ArrayLike<number>, sigma: ArrayL
   return Number.isFinite(sum) ? sum : Infinity;
 }
 
-/** OLS slope of ln|B| on ln(d + δ) over the points where both are finite (NaN with fewer than two). */
-function logLogSlope(points: SurveyPoints, logField: Float64Array, delta: number): number {
+/**
+ * OLS slope of ln|B| on ln(d + δ) over the points where both are finite (NaN with fewer
+ * than two). With `at`, the points' r and ln r at δ (FieldModel.sourceDistances) are read
+ * instead of worked out: on the axis that r is the signed d + δ where this takes |d + δ|,
+ * so a point behind the datum (r < 0) is left out then, which changes nothing: the model
+ * gives NaN there, so the trial costs Infinity whatever its exponent.
+ */
+function logLogSlope(points: SurveyPoints, logField: Float64Array, delta: number, at: { readonly r: Float64Array; readonly logR: Float64Array } | null): number {
   let count = 0;
   let sx = 0;
   let sy = 0;
   let sxx = 0;
   let sxy = 0;
   for (let i = 0; i < points.n; i++) {
-    const r = radialDistance(points.distance[i]! + delta, points.radial[i]!);
     const y = logField[i]!;
-    if (!(r > 0) || !Number.isFinite(y)) continue;
-    const x = Math.log(r);
+    let x: number;
+    if (at === null) {
+      const r = radialDistance(points.distance[i]! + delta, points.radial[i]!);
+      if (!(r > 0) || !Number.isFinite(y)) continue;
+      x = Math.log(r);
+    } else {
+      if (!(at.r[i]! > 0) || !Number.isFinite(y)) continue;
+      x = at.logR[i]!;
+    }
     count += 1;
     sx += x;
     sy += y;
@@ -199,16 +225,17 @@ function logLogSlope(points: SurveyPoints, logField: Float64Array, delta: number
 
 /**
  * Weighted least-squares amplitude A and background b for the shape at θ, written into θ;
- * returns χ². `weights` holds 1/σᵢ² (1 when sigma is null). The shape is the model at θ with A = 1 (or the fixed A) and b = 0 (or the fixed b).
+ * returns χ². The shape comes from the model's evaluate, or from evaluateAtDistances given the points' r and ln r at θ's offset (`distances`). `weights` holds 1/σᵢ² (1 when sigma is null). The shape is the model at θ with A = 1 (or the fixed A) and b = 0 (or the fixed b).
  */
 function solveLinear(
-  model: FieldModel, points: SurveyPoints, theta: Float64Array, shape: Float64Array, sigma: ArrayLike<number> | null, weights: Float64Array,
+  model: FieldModel, points: SurveyPoints, distances: { readonly r: Float64Array; readonly logR: Float64Array } | null, theta: Float64Array, shape: Float64Array, sigma: ArrayLike<number> | null, weights: Float64Array,
   amplitude: number, background: number, freeAmplitude: boolean, freeBackground: boolean, sign: number,
 ): number {
   if (freeAmplitude) theta[amplitude] = 1;
   const fixedBackground = background >= 0 ? theta[background]! : 0;
   if (background >= 0) theta[background] = 0;
-  model.evaluate(theta, points, shape);
+  if (distances === null) model.evaluate(theta, points, shape);
+  else model.evaluateAtDistances!(theta, distances.r, distances.logR, shape);
   let sw = 0;
   let sg = 0;
   let sy = 0;

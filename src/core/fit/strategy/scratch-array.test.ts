@@ -13,7 +13,9 @@ describe('scratchArray(n, slot)', () => {
     expect(scratchArray(12, 0)).toHaveLength(12);
   });
 
-  it('scratchArray() refuses a slot outside 0–7 (RangeError)', () => {
-    expect(() => scratchArray(3, 8)).toThrow(RangeError);
+  it('scratchArray() refuses a slot outside 0–9 (RangeError)', () => {
+    expect(() => scratchArray(3, 10)).toThrow(RangeError);
+    expect(() => scratchArray(3, -1)).toThrow(RangeError);
+    expect(scratchArray(3, 9)).toHaveLength(3);
   });
 });

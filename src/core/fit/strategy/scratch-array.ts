@@ -7,11 +7,11 @@ const slots: Float64Array[] = [];
  * allocate (and collect) arrays of survey length per model. Contents are left over from
  * the last use: write before reading.
  *
- * @param slot 0–7, one per array a caller needs at the same time
+ * @param slot 0–9, one per array a caller needs at the same time
  * @example scratchArray(30, 0).length // 30
  */
 export function scratchArray(n: number, slot: number): Float64Array {
-  if (!(slot >= 0 && slot < 8)) throw new RangeError(`scratchArray: slot ${slot}, expected 0–7`);
+  if (!(slot >= 0 && slot < 10)) throw new RangeError(`scratchArray: slot ${slot}, expected 0–9`);
   let array = slots[slot];
   if (array === undefined || array.length < n) {
     array = new Float64Array(Math.max(n, 2 * (array?.length ?? 0)));
