@@ -1,5 +1,5 @@
 import { defineConfig, type Plugin } from 'vite';
-import { chartLibraryPath, chartLibrarySpecifier } from './src/cli/chart-library';
+import { chartLibraryPath, chartLibrarySpecifier } from './src/cli/chart-library.ts';
 
 /**
  * The page's `import('chart.js/dist/chart.umd.js?raw')` (downloads.ts): chart.js does not
