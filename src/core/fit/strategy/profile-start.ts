@@ -90,16 +90,7 @@ export function profileStart(
   }
   // A model that reads the points only through r(δ) (sourceDistances): r and ln r are worked
   // out once per offset tried, for the log–log slope and for every exponent tried there.
-  const distances = freeExponent && offset >= 0 && model.sourceDistances !== undefined && model.evaluateAtDistances !== undefined
-    ? { r: scratchArray(n, 8), logR: scratchArray(n, 9), offset: NaN }
-    : null;
-  const distancesAt = (delta: number): NonNullable<typeof distances> => {
-    if (distances!.offset !== delta) {
-      model.sourceDistances!(delta, points, distances!.r, distances!.logR);
-      distances!.offset = delta;
-    }
-    return distances!;
-  };
+  const distances = freeExponent && offset >= 0 ? SourceDistances.of(model, points) : null;
   const best = start.slice();
   let bestCost = Infinity;
   /** χ² at offset δ with A, b solved and the exponent given or re-read; the winner is copied to best. */
@@ -109,10 +100,10 @@ export function profileStart(
     if (freeExponent) {
       const slope = power !== undefined
         ? -power
-        : logLogSlope(points, logField, offset >= 0 ? delta : 0, distances === null ? null : distancesAt(delta));
+        : logLogSlope(points, logField, offset >= 0 ? delta : 0, distances === null ? null : distances.at(delta));
       if (slope < 0 && -slope < upper[exponent]!) trial[exponent] = -slope;
     }
-    const cost = solveLinear(model, points, distances === null ? null : distancesAt(trial[offset]!), trial, shape, sigma, weights, amplitude, background, freeAmplitude, freeBackground, sign);
+    const cost = solveLinear(model, points, distances === null ? null : distances.at(trial[offset]!), trial, shape, sigma, weights, amplitude, background, freeAmplitude, freeBackground, sign);
     if (cost < bestCost) {
       bestCost = cost;
       best.set(trial);
@@ -171,6 +162,32 @@ export function profileStart(
   if (!(cost <= honest)) return { initial: start, scanned: false, offsetOnBound: -1, scannedIndex: -1, scannedRange: [], chiSquare: honest };
   const onlyLinear = fixed.every((f, j) => f || j === amplitude || j === background);
   return { initial: best, scanned: freeOffset || onlyLinear, offsetOnBound: onBound, scannedIndex: freeOffset ? offset : -1, scannedRange: range, chiSquare: cost };
+}
+
+/** The points' r and ln r at one probe offset (FieldModel.sourceDistances), worked out again only when the offset changes. */
+class SourceDistances {
+  readonly r: Float64Array;
+  readonly logR: Float64Array;
+  private offset = NaN;
+
+  private constructor(private readonly model: FieldModel, private readonly points: SurveyPoints) {
+    this.r = scratchArray(points.n, 8);
+    this.logR = scratchArray(points.n, 9);
+  }
+
+  /** A cache for `model`, or null when it has no sourceDistances and evaluateAtDistances. */
+  static of(model: FieldModel, points: SurveyPoints): SourceDistances | null {
+    return model.sourceDistances !== undefined && model.evaluateAtDistances !== undefined ? new SourceDistances(model, points) : null;
+  }
+
+  /** r and ln r at offset δ. */
+  at(delta: number): SourceDistances {
+    if (delta !== this.offset) {
+      this.model.sourceDistances!(delta, this.points, this.r, this.logR);
+      this.offset = delta;
+    }
+    return this;
+  }
 }
 
 /** Weighted χ² of the model at θ (Infinity when any prediction is not finite). `out` is scratch. */

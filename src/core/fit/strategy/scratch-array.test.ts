@@ -14,6 +14,7 @@ describe('scratchArray(n, slot)', () => {
   });
 
   it('scratchArray() refuses a slot outside 0–9 (RangeError)', () => {
+    // regression pin, not truth: the slot range scratchArray documents (0–9; profileStart uses 8 and 9)
     expect(() => scratchArray(3, 10)).toThrow(RangeError);
     expect(() => scratchArray(3, -1)).toThrow(RangeError);
     expect(scratchArray(3, 9)).toHaveLength(3);
