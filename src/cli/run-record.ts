@@ -1,5 +1,4 @@
 import * as crypto from 'node:crypto';
-import { createHash } from 'node:crypto';
 import { closeSync, constants, fstatSync, openSync, readFileSync, readSync } from 'node:fs';
 import { join } from 'node:path';
 import { RingfallError } from '../core/errors';
@@ -61,7 +60,7 @@ const oneShotHash = (crypto as { hash?: (algorithm: string, data: Uint8Array, en
  * 2 cores), else by createHash; the same digest (FIPS 180-4) either way.
  */
 export function sha256(bytes: Uint8Array): Buffer {
-  return oneShotHash === undefined ? createHash('sha256').update(bytes).digest() : oneShotHash('sha256', bytes, 'buffer');
+  return oneShotHash === undefined ? crypto.createHash('sha256').update(bytes).digest() : oneShotHash('sha256', bytes, 'buffer');
 }
 
 /** A file named in the run that could not be read: listed, with no hash and the reason. */
@@ -97,7 +96,7 @@ function describeFile(path: string, buffer: Buffer): RunInput {
   }
   try {
     if (!fstatSync(fd).isFile()) return unreadableInput(path, 'not a regular file');
-    const hash = createHash('sha256');
+    const hash = crypto.createHash('sha256');
     let bytes = 0;
     for (let got = readSync(fd, buffer, 0, buffer.length, null); got > 0; got = readSync(fd, buffer, 0, buffer.length, null)) {
       hash.update(buffer.subarray(0, got));
